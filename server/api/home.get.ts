@@ -1,0 +1,37 @@
+import { and, desc, eq, isNull, ne, sql } from 'drizzle-orm'
+import { can } from '#shared/roles'
+import demo from '../db/demo-accounts.json'
+
+interface Task { title: string; text: string; items?: { to: string; label: string }[]; action?: { to: string; label: string } }
+
+// What this person has to do today, by role.
+export default defineEventHandler(async (event) => {
+  const user = await requireRole(event, 'stress:evaluate')
+  const db = useDb()
+  const tasks: Task[] = []
+  if (can(user.role, 'designs:write')) {
+    const mine = await db.select({ id: tables.designs.id, name: tables.designs.name }).from(tables.designs)
+      .where(and(eq(tables.designs.ownerId, user.id), eq(tables.designs.status, 'active'))).orderBy(desc(tables.designs.updatedAt)).limit(5)
+    tasks.push({ title: 'Your designs', text: mine.length ? 'Pick up where you left off.' : 'No designs yet: start from a topology and a DC link.', items: mine.map(d => ({ to: `/designs/${d.id}`, label: d.name })), action: { to: '/designs/new', label: 'New design' } })
+    tasks.push({ title: 'Compare topologies', text: 'Run one duty through every topology and level count side by side.', action: { to: '/compare', label: 'Open trade study' } })
+  }
+  if (can(user.role, 'catalog:write')) {
+    const [pending] = await db.select({ n: sql<number>`count(*)::int` }).from(tables.parts).where(eq(tables.parts.approved, false))
+    tasks.push({ title: 'Parts catalogue', text: `${pending?.n ?? 0} part(s) wait for approval. Upload a supplier spreadsheet to add or update parts.`, action: { to: '/catalog/import', label: 'Upload spreadsheet' } })
+  }
+  if (can(user.role, 'bom:purchase')) {
+    const open = await db.select({ id: tables.boms.id, designId: tables.boms.designId, revision: tables.boms.revision, status: tables.boms.status }).from(tables.boms)
+      .where(and(ne(tables.boms.status, 'received'), ne(tables.boms.status, 'cancelled'))).orderBy(desc(tables.boms.releasedAt)).limit(8)
+    tasks.push({ title: 'Bills of materials to buy', text: open.length ? 'Released BOMs waiting for a quote, an order or delivery.' : 'Nothing waiting: engineering has not released a new BOM.', items: open.map(b => ({ to: `/boms/${b.id}`, label: `BOM ${b.id} rev. ${b.revision} — ${b.status}` })), action: { to: '/boms', label: 'All BOMs' } })
+  }
+  if (can(user.role, 'users:manage')) {
+    const invited = await db.select({ email: tables.users.email }).from(tables.users).where(isNull(tables.users.passwordHash))
+    tasks.push({ title: 'People', text: invited.length ? `${invited.length} invitation(s) not yet accepted.` : 'Everyone invited has signed up.', action: { to: '/admin/users', label: 'Manage people' } })
+    tasks.push({ title: 'Outgoing mail', text: 'Check what the app sent: invitations, resets, released BOMs.', action: { to: '/admin/mail', label: 'Open mail' } })
+  }
+  if (user.role === 'viewer' || user.role === 'component-engineer') {
+    tasks.push({ title: 'Designs', text: 'Read the team\'s designs and their results.', action: { to: '/designs', label: 'Browse designs' } })
+  }
+  if (user.role === 'viewer') tasks.push({ title: 'Released BOMs', text: 'Read what engineering released to purchasing.', action: { to: '/boms', label: 'Browse BOMs' } })
+  return { company: demo.company, tasks }
+})

@@ -1,0 +1,195 @@
+// All tables of Stratavolt. drizzle-kit generates the SQL migrations in drizzle/ from this file.
+import { sql } from 'drizzle-orm'
+import {
+  boolean, doublePrecision, index, integer, jsonb, pgTable, serial, text, timestamp, uniqueIndex,
+} from 'drizzle-orm/pg-core'
+
+const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+
+export const users = pgTable('users', {
+  id: serial('id').primaryKey(),
+  email: text('email').notNull(),
+  name: text('name').notNull(),
+  role: text('role').notNull(),
+  passwordHash: text('password_hash'),
+  disabled: boolean('disabled').notNull().default(false),
+  // Bumped on disable / password change: sessions carrying an older value stop working at once.
+  sessionVersion: integer('session_version').notNull().default(1),
+  lastSignInAt: timestamp('last_sign_in_at', { withTimezone: true }),
+  createdAt: createdAt(),
+}, t => [uniqueIndex('users_email_key').on(sql`lower(${t.email})`)])
+
+export const oneTimeTokens = pgTable('one_time_tokens', {
+  id: serial('id').primaryKey(),
+  userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  purpose: text('purpose').notNull(), // 'invite' | 'reset'
+  tokenHash: text('token_hash').notNull().unique(),
+  expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+  usedAt: timestamp('used_at', { withTimezone: true }),
+  createdAt: createdAt(),
+})
+
+export const apiTokens = pgTable('api_tokens', {
+  id: serial('id').primaryKey(),
+  userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  name: text('name').notNull(),
+  prefix: text('prefix').notNull(),
+  tokenHash: text('token_hash').notNull().unique(),
+  lastUsedAt: timestamp('last_used_at', { withTimezone: true }),
+  revokedAt: timestamp('revoked_at', { withTimezone: true }),
+  createdAt: createdAt(),
+})
+
+export const auditLog = pgTable('audit_log', {
+  id: serial('id').primaryKey(),
+  at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+  actorId: integer('actor_id').references(() => users.id, { onDelete: 'set null' }),
+  actorEmail: text('actor_email'),
+  action: text('action').notNull(),
+  subject: text('subject'),
+  details: jsonb('details'),
+  ip: text('ip'),
+}, t => [index('audit_log_at_idx').on(t.at)])
+
+export const sentMail = pgTable('sent_mail', {
+  id: serial('id').primaryKey(),
+  at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+  to: text('to').notNull(),
+  subject: text('subject').notNull(),
+  messageId: text('message_id'),
+  attachments: jsonb('attachments').$type<string[]>().notNull().default([]),
+  status: text('status').notNull(), // 'sent' | 'failed'
+  error: text('error'),
+})
+
+export const designs = pgTable('designs', {
+  id: serial('id').primaryKey(),
+  name: text('name').notNull(),
+  description: text('description').notNull().default(''),
+  ownerId: integer('owner_id').references(() => users.id, { onDelete: 'set null' }),
+  status: text('status').notNull().default('active'), // 'active' | 'archived'
+  revision: integer('revision').notNull().default(1),
+  topology: text('topology').notNull(),
+  levels: integer('levels').notNull(),
+  dcVoltage: doublePrecision('dc_voltage'),
+  powerKw: doublePrecision('power_kw'),
+  backToBack: boolean('back_to_back').notNull().default(false),
+  input: jsonb('input').notNull(),
+  // BOM settings: build quantity, spares, hand-added lines.
+  bomSettings: jsonb('bom_settings').notNull().default({ buildQuantity: 10, sparesPercent: 5, manualLines: [] }),
+  createdAt: createdAt(),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+})
+
+export const designRevisions = pgTable('design_revisions', {
+  id: serial('id').primaryKey(),
+  designId: integer('design_id').notNull().references(() => designs.id, { onDelete: 'cascade' }),
+  revision: integer('revision').notNull(),
+  name: text('name').notNull(),
+  input: jsonb('input').notNull(),
+  authorId: integer('author_id').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: createdAt(),
+}, t => [uniqueIndex('design_revisions_key').on(t.designId, t.revision)])
+
+export const catalogVersions = pgTable('catalog_versions', {
+  id: serial('id').primaryKey(),
+  number: integer('number').notNull().unique(),
+  importId: integer('import_id'),
+  note: text('note').notNull().default(''),
+  partsAdded: integer('parts_added').notNull().default(0),
+  partsUpdated: integer('parts_updated').notNull().default(0),
+  createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: createdAt(),
+})
+
+export const catalogImports = pgTable('catalog_imports', {
+  id: serial('id').primaryKey(),
+  filename: text('filename').notNull(),
+  storageKey: text('storage_key').notNull(),
+  sizeBytes: integer('size_bytes').notNull(),
+  status: text('status').notNull(), // 'preview' | 'committed' | 'discarded'
+  sheetName: text('sheet_name'),
+  headers: jsonb('headers').$type<string[]>().notNull().default([]),
+  mapping: jsonb('mapping'),
+  decimalSeparator: text('decimal_separator').notNull().default('.'),
+  rowCount: integer('row_count').notNull().default(0),
+  issueCount: integer('issue_count').notNull().default(0),
+  catalogVersionId: integer('catalog_version_id').references(() => catalogVersions.id),
+  uploadedBy: integer('uploaded_by').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: createdAt(),
+})
+
+export const headerMappings = pgTable('header_mappings', {
+  id: serial('id').primaryKey(),
+  userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  signature: text('signature').notNull(),
+  mapping: jsonb('mapping').notNull(),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [uniqueIndex('header_mappings_key').on(t.userId, t.signature)])
+
+export const parts = pgTable('parts', {
+  id: serial('id').primaryKey(),
+  manufacturer: text('manufacturer').notNull(),
+  partNumber: text('part_number').notNull(),
+  currentVersionId: integer('current_version_id'),
+  approved: boolean('approved').notNull().default(false),
+  createdAt: createdAt(),
+}, t => [uniqueIndex('parts_key').on(sql`lower(${t.manufacturer})`, sql`lower(${t.partNumber})`)])
+
+export const partVersions = pgTable('part_versions', {
+  id: serial('id').primaryKey(),
+  partId: integer('part_id').notNull().references(() => parts.id, { onDelete: 'cascade' }),
+  catalogVersionId: integer('catalog_version_id').notNull().references(() => catalogVersions.id),
+  // Columns the parts browser filters and sorts on; the whole row is in data.
+  partNumber: text('part_number').notNull(),
+  manufacturer: text('manufacturer').notNull(),
+  kind: text('kind').notNull(),
+  packageConfig: text('package_config').notNull(),
+  voltageRating: doublePrecision('voltage_rating'),
+  currentRating: doublePrecision('current_rating'),
+  unitPrice: doublePrecision('unit_price'),
+  currency: text('currency'),
+  stock: integer('stock'),
+  leadTimeDays: integer('lead_time_days'),
+  lifecycle: text('lifecycle').notNull(),
+  data: jsonb('data').notNull(),
+  createdAt: createdAt(),
+}, t => [
+  index('part_versions_part_idx').on(t.partId),
+  index('part_versions_kind_voltage_idx').on(t.kind, t.voltageRating),
+])
+
+export const partAssignments = pgTable('part_assignments', {
+  id: serial('id').primaryKey(),
+  designId: integer('design_id').notNull().references(() => designs.id, { onDelete: 'cascade' }),
+  side: text('side').notNull(), // 'machine' | 'grid' | 'dc-link'
+  position: text('position').notNull(),
+  partVersionId: integer('part_version_id').notNull().references(() => partVersions.id),
+  seriesCount: integer('series_count').notNull().default(1),
+  parallelCount: integer('parallel_count').notNull().default(1),
+  assignedBy: integer('assigned_by').references(() => users.id, { onDelete: 'set null' }),
+  assignedAt: timestamp('assigned_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [uniqueIndex('part_assignments_key').on(t.designId, t.side, t.position)])
+
+export const boms = pgTable('boms', {
+  id: serial('id').primaryKey(),
+  designId: integer('design_id').notNull().references(() => designs.id, { onDelete: 'cascade' }),
+  revision: integer('revision').notNull(),
+  designRevision: integer('design_revision').notNull(),
+  status: text('status').notNull().default('released'), // released | quoted | ordered | received | cancelled
+  snapshot: jsonb('snapshot').notNull(),
+  changes: jsonb('changes'),
+  releasedBy: integer('released_by').references(() => users.id, { onDelete: 'set null' }),
+  releasedAt: timestamp('released_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [uniqueIndex('boms_key').on(t.designId, t.revision)])
+
+export const bomPurchaseLines = pgTable('bom_purchase_lines', {
+  id: serial('id').primaryKey(),
+  bomId: integer('bom_id').notNull().references(() => boms.id, { onDelete: 'cascade' }),
+  lineKey: text('line_key').notNull(),
+  supplier: text('supplier'),
+  quotedUnitPrice: doublePrecision('quoted_unit_price'),
+  orderReference: text('order_reference'),
+  updatedBy: integer('updated_by').references(() => users.id, { onDelete: 'set null' }),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [uniqueIndex('bom_purchase_lines_key').on(t.bomId, t.lineKey)])

@@ -1,0 +1,68 @@
+import { createHash, randomBytes } from 'node:crypto'
+import type { H3Event } from 'h3'
+import { and, eq, isNull } from 'drizzle-orm'
+import { can, isRole, type Permission, type Role } from '#shared/roles'
+
+export interface CurrentUser {
+  id: number
+  email: string
+  name: string
+  role: Role
+}
+
+export function sha256(value: string) {
+  return createHash('sha256').update(value).digest('hex')
+}
+
+export function newSecretToken(bytes = 32) {
+  return randomBytes(bytes).toString('base64url')
+}
+
+async function userFromBearer(event: H3Event, token: string): Promise<CurrentUser | null> {
+  const db = useDb()
+  const [row] = await db.select({ tokenId: tables.apiTokens.id, user: tables.users })
+    .from(tables.apiTokens)
+    .innerJoin(tables.users, eq(tables.users.id, tables.apiTokens.userId))
+    .where(and(eq(tables.apiTokens.tokenHash, sha256(token)), isNull(tables.apiTokens.revokedAt)))
+  if (!row || row.user.disabled || !isRole(row.user.role)) return null
+  await db.update(tables.apiTokens).set({ lastUsedAt: new Date() }).where(eq(tables.apiTokens.id, row.tokenId))
+  event.context.viaToken = true
+  return { id: row.user.id, email: row.user.email, name: row.user.name, role: row.user.role }
+}
+
+/** The signed-in person (session cookie, or a Bearer token on /api/v1), checked against the database on every request. */
+export async function currentUser(event: H3Event): Promise<CurrentUser | null> {
+  if (event.context.user !== undefined) return event.context.user
+  let user: CurrentUser | null = null
+  const header = getHeader(event, 'authorization')
+  if (header?.startsWith('Bearer ') && event.path.startsWith('/api/v1/')) {
+    user = await userFromBearer(event, header.slice(7).trim())
+  } else {
+    const session = await getUserSession(event)
+    if (session.user) {
+      const [row] = await useDb().select().from(tables.users).where(eq(tables.users.id, session.user.id))
+      if (row && !row.disabled && row.sessionVersion === session.sessionVersion && isRole(row.role)) {
+        user = { id: row.id, email: row.email, name: row.name, role: row.role }
+      } else {
+        await clearUserSession(event)
+      }
+    }
+  }
+  event.context.user = user
+  return user
+}
+
+/** The one role guard: 401 when nobody is signed in, 403 when the role may not do this. */
+export async function requireRole(event: H3Event, permission: Permission): Promise<CurrentUser> {
+  const user = await currentUser(event)
+  if (!user) throw createError({ statusCode: 401, message: 'Please sign in.' })
+  if (!can(user.role, permission)) throw createError({ statusCode: 403, message: 'Your role does not allow this.' })
+  return user
+}
+
+declare module 'h3' {
+  interface H3EventContext {
+    user?: CurrentUser | null
+    viaToken?: boolean
+  }
+}

@@ -1,0 +1,201 @@
+// Public types of the stress engine. SI units throughout: V, A, Hz, H, F, W, °C.
+// The API (POST /api/v1/stress), the UI and the reports all read these shapes.
+
+export type TopologyId =
+  | 'two-level'
+  | 'diode-clamped'
+  | 't-type'
+  | 'anpc'
+  | 'flying-capacitor'
+  | 'cascaded-h-bridge'
+  | 'matrix'
+
+export type Modulation = 'sine' | 'third-harmonic' | 'space-vector' | 'six-step'
+
+export type DeviceKind = 'switch' | 'diode' | 'clamp-diode'
+export type CapacitorKind = 'dc-link' | 'flying'
+
+/** Where a number comes from, so an engineer can see why it is what it is. */
+export interface Provenance {
+  /** How it was computed, one sentence. */
+  method: string
+  /** The published source it was checked against ("common practice" / "from memory" where that is all there is). */
+  source: string
+}
+
+/** One operating point of the AC side. */
+export interface OperatingPoint {
+  name?: string
+  /** V, output fundamental line-to-line RMS (ignored for six-step). */
+  lineVoltageRms: number
+  /** A, output phase current RMS. */
+  phaseCurrentRms: number
+  /** −1…1; negative = regeneration (power from AC side into the DC link). */
+  powerFactor: number
+  /** Hz, output fundamental. */
+  fundamentalHz: number
+}
+
+/** One evaluation as POST /api/v1/stress takes it. */
+export interface StressInput extends OperatingPoint {
+  topology: TopologyId
+  /** Level count: 2 two-level; 3 t-type/anpc; 3…9 diode-clamped/flying-capacitor; odd 3…15 cascaded-h-bridge; ignored for matrix. */
+  levels?: number
+  /** V, nominal DC link (per cell for cascaded-h-bridge; unused by matrix). */
+  dcVoltage?: number
+  /** V, worst-case DC link for blocking voltages; default dcVoltage. */
+  dcVoltageMax?: number
+  /** V, matrix converter input line-to-line RMS. */
+  inputLineVoltageRms?: number
+  /** Hz, switching frequency (equals the fundamental for six-step). */
+  switchingHz: number
+  modulation: Modulation
+  /** V, commutation overshoot added to commutating devices' blocking voltage. */
+  overshootVoltage?: number
+  /** H, commutation-loop stray inductance; with the current slope gives the overshoot when overshootVoltage is absent. */
+  strayInductance?: number
+  /** A/s, current slope at turn-off used with strayInductance. */
+  currentSlope?: number
+  /** V, unit rating used to realise clamp-diode stacks (seriesCount); default V_dc,max/(N−1). */
+  clampDiodeUnitVoltage?: number
+}
+
+export interface DeviceStress {
+  /** Position name in the leg, e.g. "S1", "D1", "Dc1+" (stable ids; UI draws them). */
+  name: string
+  kind: DeviceKind
+  countPerPhase: number
+  /** V, steady-state blocking voltage at dcVoltageMax. */
+  blockingVoltage: number
+  /** V, with the commutation overshoot where the device commutates. */
+  blockingVoltageWithOvershoot: number
+  /** A */
+  currentAvg: number
+  /** A */
+  currentRms: number
+  /** A */
+  currentPeak: number
+  /** Clamp diodes: unit diodes in series to realise the position. */
+  seriesCount?: number
+  /** V, commutated voltage per switching event (for switching losses). */
+  commutatedVoltage?: number
+  provenance: Provenance
+}
+
+export interface CapacitorStress {
+  name: string
+  kind: CapacitorKind
+  count: number
+  /** V, DC voltage across it at dcVoltageMax. */
+  voltage: number
+  /** A, RMS ripple current. */
+  rippleCurrentRms: number
+  /** F, capacitance needed for the ripple target (if computed). */
+  capacitanceRequired?: number
+  provenance: Provenance
+}
+
+export interface SpectrumLine {
+  /** harmonic order (1 = fundamental) */
+  order: number
+  /** Hz */
+  frequency: number
+  /** V, peak amplitude of the line voltage at that order */
+  amplitude: number
+}
+
+export interface Waveform {
+  /** s */
+  time: number[]
+  /** V, line-to-line voltage u_ab */
+  lineVoltage: number[]
+  /** V, phase-leg (pole) voltage */
+  poleVoltage: number[]
+  /** A, phase current */
+  phaseCurrent: number[]
+}
+
+export interface StressResult {
+  topology: TopologyId
+  levels: number
+  modulationIndex: number
+  devices: DeviceStress[]
+  capacitors: CapacitorStress[]
+  /** V, line-to-line fundamental RMS actually produced */
+  lineVoltageFundamentalRms: number
+  /** fraction (0.31 = 31 %) */
+  lineVoltageThd: number
+  warnings: string[]
+  counts: { switchesPerPhase: number; diodesPerPhase: number; clampDiodesPerPhase: number; capacitors: number; switchesTotal: number; diodesTotal: number; clampDiodesTotal: number }
+  /** Only when requested (includeWaveform): one fundamental period. */
+  waveform?: Waveform
+  spectrum?: SpectrumLine[]
+}
+
+/** Derating policy: how the envelope becomes required part ratings. Defaults: common practice (ENGINEERING.md). */
+export interface DeratingPolicy {
+  /** Max DC-link-to-rated-voltage utilisation of semiconductors (0.65 → a 1200 V part at ≤ 780 V blocking). */
+  semiconductorVoltageUtilisation: number
+  /** Max peak-current-to-rated-current ratio (1 = peak at or below the nominal rating). */
+  semiconductorCurrentUtilisation: number
+  /** Max capacitor voltage-to-rating ratio. */
+  capacitorVoltageUtilisation: number
+  /** Max capacitor ripple-to-rating ratio. */
+  capacitorRippleUtilisation: number
+  /** °C margin kept below T_j,max in the thermal check. */
+  junctionMarginC: number
+  /** °C heatsink temperature assumed for the thermal check. */
+  heatsinkTemperatureC: number
+}
+
+/** One converter (machine side or grid side) of a design. */
+export interface ConverterInput {
+  topology: TopologyId
+  levels?: number
+  dcVoltage?: number
+  dcVoltageMax?: number
+  inputLineVoltageRms?: number
+  switchingHz: number
+  modulation: Modulation
+  overshootVoltage?: number
+  strayInductance?: number
+  currentSlope?: number
+  clampDiodeUnitVoltage?: number
+  operatingPoints: OperatingPoint[]
+}
+
+export interface DesignInput {
+  machineSide: ConverterInput
+  /** Optional active front end sharing the DC link (back-to-back); same topology kind. */
+  gridSide?: ConverterInput
+  derating?: Partial<DeratingPolicy>
+  /** V ripple target on the split / cell capacitors (peak-to-peak) for capacitance sizing. */
+  capacitorRippleTarget?: number
+}
+
+export interface DeviceEnvelope extends DeviceStress {
+  /** name of the operating point that set each worst value */
+  worstPoint: { blockingVoltage: string; currentAvg: string; currentRms: string; currentPeak: string }
+  /** V, required part voltage class after derating */
+  requiredVoltageRating: number
+  /** A, required part current rating after derating */
+  requiredCurrentRating: number
+}
+
+export interface CapacitorEnvelope extends CapacitorStress {
+  requiredVoltageRating: number
+  requiredRippleRating: number
+}
+
+export interface ConverterResult {
+  side: 'machine' | 'grid'
+  points: (StressResult & { pointName: string })[]
+  envelope: { devices: DeviceEnvelope[]; capacitors: CapacitorEnvelope[] }
+  warnings: string[]
+}
+
+export interface DesignResult {
+  converters: ConverterResult[]
+  derating: DeratingPolicy
+  warnings: string[]
+}

@@ -1,0 +1,39 @@
+// The one role table of the product (PRODUCT.md "Users and roles"). Routes, navigation and tests read it.
+
+export const roles = ['admin', 'design-engineer', 'component-engineer', 'purchasing', 'viewer'] as const
+export type Role = (typeof roles)[number]
+
+export const roleLabels: Record<Role, string> = {
+  'admin': 'Administrator',
+  'design-engineer': 'Design engineer',
+  'component-engineer': 'Component engineer',
+  'purchasing': 'Purchasing',
+  'viewer': 'Viewer',
+}
+
+/** What a signed-in person may do. Each server route asks for exactly one of these. */
+export const permissions = {
+  'users:manage': ['admin'],
+  'audit:read': ['admin'],
+  'mail:read': ['admin'],
+  'designs:read': ['admin', 'design-engineer', 'component-engineer', 'viewer'],
+  'designs:write': ['admin', 'design-engineer'],
+  'stress:evaluate': ['admin', 'design-engineer', 'component-engineer', 'purchasing', 'viewer'],
+  'catalog:read': ['admin', 'design-engineer', 'component-engineer', 'purchasing'],
+  'catalog:write': ['admin', 'component-engineer'],
+  'parts:assign': ['admin', 'design-engineer'],
+  'bom:read': ['admin', 'design-engineer', 'purchasing', 'viewer'],
+  'bom:release': ['admin', 'design-engineer'],
+  'bom:purchase': ['admin', 'purchasing'],
+  'tokens:own': ['admin', 'design-engineer', 'component-engineer', 'purchasing', 'viewer'],
+} as const satisfies Record<string, readonly Role[]>
+
+export type Permission = keyof typeof permissions
+
+export function can(role: Role | undefined | null, permission: Permission): boolean {
+  return !!role && (permissions[permission] as readonly Role[]).includes(role)
+}
+
+export function isRole(value: unknown): value is Role {
+  return typeof value === 'string' && (roles as readonly string[]).includes(value)
+}

@@ -1,0 +1,19 @@
+import { fileURLToPath } from 'node:url'
+import { defineConfig } from 'vitest/config'
+
+// Three kinds of test, each runnable on its own: `npx vitest run --project unit` needs nothing;
+// api and browser expect the server that `npm test` starts (STRATAVOLT_TEST_URL).
+const alias = {
+  '~~': fileURLToPath(new URL('./', import.meta.url)),
+  '#shared': fileURLToPath(new URL('./shared', import.meta.url)),
+}
+
+export default defineConfig({
+  test: {
+    projects: [
+      { resolve: { alias }, test: { name: 'unit', environment: 'node', include: ['tests/unit/**/*.test.ts'] } },
+      { resolve: { alias }, test: { name: 'api', environment: 'node', include: ['tests/api/**/*.test.ts'], testTimeout: 30000, hookTimeout: 60000 } },
+      { resolve: { alias }, test: { name: 'browser', environment: 'node', include: ['tests/browser/**/*.test.ts'], testTimeout: 90000, hookTimeout: 90000, fileParallelism: false } },
+    ],
+  },
+})
