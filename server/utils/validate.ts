@@ -17,7 +17,7 @@ function fail(statusCode: number, what: string, error: z.ZodError): never {
 }
 
 /** Reads and validates a JSON body: 400 when it is not JSON or not an object, 422 when a field is wrong. */
-export async function readValid<T extends z.ZodType>(event: H3Event, schema: T): Promise<z.infer<T>> {
+export async function readValid<T extends z.ZodType>(event: H3Event, schema: T, invalidStatus = 422): Promise<z.infer<T>> {
   let body: unknown
   try {
     body = await readBody(event)
@@ -28,7 +28,7 @@ export async function readValid<T extends z.ZodType>(event: H3Event, schema: T):
     throw createError({ statusCode: 400, message: 'The request body must be a JSON object.' })
   }
   const r = schema.safeParse(body)
-  if (!r.success) fail(422, 'Invalid field', r.error)
+  if (!r.success) fail(invalidStatus, 'Invalid field', r.error)
   return r.data
 }
 

@@ -3,7 +3,7 @@ import { loginSchema } from '#shared/schemas/auth'
 import { isRole } from '#shared/roles'
 
 export default defineEventHandler(async (event) => {
-  const { email, password } = await readValid(event, loginSchema)
+  const { email, password } = await readValid(event, loginSchema, 400)
   const ip = getRequestIP(event) ?? 'unknown'
   const wait = signInBlockedFor(email, ip)
   if (wait > 0) {
