@@ -27,6 +27,8 @@ export async function signInPage(page: Page, role: Role) {
   await page.getByLabel('Password').fill(demoPassword)
   await page.getByRole('button', { name: 'Sign in' }).click()
   await page.waitForURL(url => !url.pathname.startsWith('/sign-in'))
+  // the client-side navigation finishes when the signed-in layout is on screen
+  await page.locator('main#main').waitFor()
 }
 
 export async function screenshot(page: Page, name: string) {
