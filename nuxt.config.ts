@@ -5,6 +5,8 @@ export default defineNuxtConfig({
   telemetry: false,
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils'],
   css: ['~/assets/css/tailwind.css'],
+  // components are named by their file name, whatever feature folder holds them
+  components: [{ path: '~/components', pathPrefix: false }],
   app: {
     head: {
       title: 'Stratavolt',
@@ -24,12 +26,19 @@ export default defineNuxtConfig({
     appUrl: 'http://127.0.0.1:3000',
     purchasingEmail: 'purchasing@example.com',
     seedDemo: true,
+    uploadDir: '',
+    s3Bucket: '',
+    s3Endpoint: '',
+    s3Region: 'auto',
+    s3AccessKeyId: '',
+    s3SecretAccessKey: '',
     session: { maxAge: 60 * 60 * 12, cookie: { sameSite: 'lax' } },
   },
   nitro: {
     serverAssets: [
       { baseName: 'migrations', dir: '../drizzle' },
-      { baseName: 'catalog', dir: '../catalog' },
+      // pdfmake's full Roboto TTFs for server-made PDFs (the web UI uses @fontsource/roboto)
+      { baseName: 'fonts', dir: '../node_modules/pdfmake/fonts/Roboto' },
     ],
   },
   typescript: { strict: true },

@@ -58,6 +58,8 @@ export interface StressInput extends OperatingPoint {
   currentSlope?: number
   /** V, unit rating used to realise clamp-diode stacks (seriesCount); default V_dc,max/(N−1). */
   clampDiodeUnitVoltage?: number
+  /** V peak-to-peak ripple target for capacitance sizing; default 5 % of each capacitor's nominal voltage. */
+  capacitorRippleTarget?: number
 }
 
 export interface DeviceStress {
@@ -92,6 +94,12 @@ export interface CapacitorStress {
   rippleCurrentRms: number
   /** F, capacitance needed for the ripple target (if computed). */
   capacitanceRequired?: number
+  /** V peak-to-peak, the ripple target capacitanceRequired was sized for. */
+  rippleTarget?: number
+  /** A, RMS of the switching-period-averaged (low-frequency) part of the ripple current, e.g. the NPC neutral-point 3rd harmonic or the H-bridge cell 2nd harmonic. */
+  lowFrequencyRippleRms?: number
+  /** Unit capacitors rated one level step (V_dc/(N−1)) in series to realise it (flying capacitors: k). */
+  seriesCount?: number
   provenance: Provenance
 }
 
@@ -126,6 +134,10 @@ export interface StressResult {
   /** fraction (0.31 = 31 %) */
   lineVoltageThd: number
   warnings: string[]
+  /** Assumptions behind this result (switching pattern, THD order range), one sentence each. */
+  notes?: string[]
+  /** Highest harmonic order included in lineVoltageThd. */
+  thdMaxOrder?: number
   counts: { switchesPerPhase: number; diodesPerPhase: number; clampDiodesPerPhase: number; capacitors: number; switchesTotal: number; diodesTotal: number; clampDiodesTotal: number }
   /** Only when requested (includeWaveform): one fundamental period. */
   waveform?: Waveform
@@ -180,11 +192,15 @@ export interface DeviceEnvelope extends DeviceStress {
   requiredVoltageRating: number
   /** A, required part current rating after derating */
   requiredCurrentRating: number
+  /** V, smallest standard voltage class (600…6500 V) at or above requiredVoltageRating; absent when none suffices (series devices) */
+  voltageClass?: number
 }
 
 export interface CapacitorEnvelope extends CapacitorStress {
   requiredVoltageRating: number
   requiredRippleRating: number
+  /** name of the operating point that set each worst value */
+  worstPoint?: { voltage: string; rippleCurrentRms: string; capacitanceRequired: string }
 }
 
 export interface ConverterResult {

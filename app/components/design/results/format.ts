@@ -1,0 +1,72 @@
+// Display formatting for result numbers: SI prefixes, three significant digits. No engineering here.
+
+const PREFIXES: { symbol: string; factor: number }[] = [
+  { symbol: 'G', factor: 1e9 },
+  { symbol: 'M', factor: 1e6 },
+  { symbol: 'k', factor: 1e3 },
+  { symbol: '', factor: 1 },
+  { symbol: 'm', factor: 1e-3 },
+  { symbol: 'µ', factor: 1e-6 },
+  { symbol: 'n', factor: 1e-9 },
+  { symbol: 'p', factor: 1e-12 },
+]
+
+const DASH = '—'
+
+/** "1.23 kV", "780 V", "4.70 mF": value in base SI units, rounded to `digits` significant digits. */
+export function formatSI(value: number | null | undefined, unit: string, digits = 3): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return DASH
+  if (value === 0) return `0 ${unit}`
+  // Round first so 999.6 becomes "1.00 k", not "1000".
+  const rounded = Number(value.toPrecision(digits))
+  const magnitude = Math.abs(rounded)
+  const prefix = PREFIXES.find(p => magnitude >= p.factor * (1 - 1e-12)) ?? PREFIXES[PREFIXES.length - 1]!
+  const mantissa = (rounded / prefix.factor).toPrecision(digits)
+  const text = mantissa.includes('e') ? String(Number(mantissa)) : mantissa
+  return `${text.replace('-', '−')} ${prefix.symbol}${unit}`
+}
+
+/** V */
+export const formatVoltage = (volts: number | null | undefined): string => formatSI(volts, 'V')
+/** A */
+export const formatCurrent = (amperes: number | null | undefined): string => formatSI(amperes, 'A')
+/** F, shown in µF / mF */
+export const formatCapacitance = (farads: number | null | undefined): string => formatSI(farads, 'F')
+/** Hz */
+export const formatFrequency = (hertz: number | null | undefined): string => formatSI(hertz, 'Hz')
+
+/** fraction → "31.2 %" */
+export function formatPercent(fraction: number | null | undefined, digits = 3): string {
+  if (fraction === null || fraction === undefined || !Number.isFinite(fraction)) return DASH
+  if (fraction === 0) return '0 %'
+  return `${Number((fraction * 100).toPrecision(digits))} %`
+}
+
+/** plain number (modulation index, ratios) to `digits` significant digits */
+export function formatNumber(value: number | null | undefined, digits = 3): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return DASH
+  return String(Number(value.toPrecision(digits))).replace('-', '−')
+}
+
+/** whole counts */
+export function formatCount(n: number | null | undefined): string {
+  if (n === null || n === undefined || !Number.isFinite(n)) return DASH
+  return String(Math.round(n))
+}
+
+/** Trade label of a position kind. */
+export function deviceKindLabel(kind: string): string {
+  switch (kind) {
+    case 'switch': return 'Switch'
+    case 'diode': return 'Anti-parallel diode'
+    case 'clamp-diode': return 'Clamp diode'
+    case 'dc-link': return 'DC link'
+    case 'flying': return 'Flying'
+    default: return kind
+  }
+}
+
+/** Same number to display precision: used to mark every cell that shares the column's worst value. */
+export function sameAtDisplayPrecision(a: number, b: number, digits = 3): boolean {
+  return Number(a.toPrecision(digits)) === Number(b.toPrecision(digits))
+}

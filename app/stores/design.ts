@@ -1,0 +1,119 @@
+// The design being edited: its inputs, the live results for them, and saving with conflict detection.
+import { defineStore } from 'pinia'
+import type { DesignInput, DesignResult, OperatingPoint } from '#shared/engine/types'
+import type { DesignPreview } from '#shared/types/design'
+
+export const operatingPointPresets: Record<string, (rated: OperatingPoint) => OperatingPoint> = {
+  'Rated motoring': r => ({ ...r, name: 'Rated motoring' }),
+  'Regenerative braking': r => ({ ...r, name: 'Regenerative braking', powerFactor: -Math.abs(r.powerFactor) }),
+  'Low-frequency start': r => ({ ...r, name: 'Low-frequency start', lineVoltageRms: Math.round(r.lineVoltageRms * 0.1), fundamentalHz: Math.max(1, r.fundamentalHz * 0.1), phaseCurrentRms: Math.round(r.phaseCurrentRms * 1.5), powerFactor: 0.3 }),
+}
+
+export function blankDesign(): { name: string; description: string; input: DesignInput } {
+  return {
+    name: '',
+    description: '',
+    input: {
+      machineSide: {
+        topology: 'diode-clamped',
+        levels: 3,
+        dcVoltage: 1100,
+        dcVoltageMax: 1250,
+        switchingHz: 4000,
+        modulation: 'space-vector',
+        overshootVoltage: 100,
+        operatingPoints: [{ name: 'Rated motoring', lineVoltageRms: 690, phaseCurrentRms: 400, powerFactor: 0.86, fundamentalHz: 50 }],
+      },
+    },
+  }
+}
+
+interface FieldIssue { path: string; message: string }
+
+export const useDesignStore = defineStore('design', () => {
+  const id = ref<number | null>(null)
+  const revision = ref(0)
+  const name = ref('')
+  const description = ref('')
+  const input = ref<DesignInput>(blankDesign().input)
+  const preview = ref<DesignPreview | null>(null)
+  const evaluating = ref(false)
+  const evaluationError = ref('')
+  const fieldErrors = ref<Record<string, string>>({})
+  const saving = ref(false)
+  const saveError = ref('')
+  const conflict = ref<{ currentRevision: number } | null>(null)
+  const dirty = ref(false)
+  let sequence = 0
+
+  const result = computed<DesignResult | null>(() => preview.value?.result ?? null)
+
+  function reset(from = blankDesign(), designId: number | null = null, designRevision = 0) {
+    id.value = designId
+    revision.value = designRevision
+    name.value = from.name
+    description.value = from.description
+    input.value = structuredClone(toRaw(from.input))
+    preview.value = null
+    fieldErrors.value = {}
+    saveError.value = ''
+    conflict.value = null
+    dirty.value = false
+  }
+
+  function issuesToFields(issues: FieldIssue[] | undefined) {
+    const map: Record<string, string> = {}
+    for (const i of issues ?? []) map[i.path.replace(/^input\./, '')] ??= i.message
+    fieldErrors.value = map
+  }
+
+  /** Evaluates the current inputs on the server; a newer request wins over an older answer. */
+  async function evaluate() {
+    const mine = ++sequence
+    evaluating.value = true
+    try {
+      const r = await $fetch<DesignPreview>('/api/designs/preview', { method: 'POST', body: toRaw(input.value) })
+      if (mine !== sequence) return
+      preview.value = r
+      evaluationError.value = ''
+      fieldErrors.value = {}
+    } catch (err) {
+      if (mine !== sequence) return
+      const e = err as { data?: { message?: string; data?: { issues?: FieldIssue[] } } }
+      evaluationError.value = e.data?.message ?? 'The results could not be computed.'
+      issuesToFields(e.data?.data?.issues)
+    } finally {
+      if (mine === sequence) evaluating.value = false
+    }
+  }
+
+  async function save(): Promise<number | null> {
+    saving.value = true
+    saveError.value = ''
+    conflict.value = null
+    try {
+      const body = { name: name.value, description: description.value, input: toRaw(input.value) }
+      const saved = id.value
+        ? await $fetch<{ id: number; revision: number }>(`/api/designs/${id.value}`, { method: 'PUT', body: { ...body, revision: revision.value } })
+        : await $fetch<{ id: number; revision: number }>('/api/designs', { method: 'POST', body })
+      id.value = saved.id
+      revision.value = saved.revision
+      dirty.value = false
+      return saved.id
+    } catch (err) {
+      const e = err as { statusCode?: number; data?: { message?: string; data?: { issues?: FieldIssue[]; currentRevision?: number } } }
+      saveError.value = e.data?.message ?? 'Saving failed.'
+      if (e.statusCode === 409 && e.data?.data?.currentRevision) conflict.value = { currentRevision: e.data.data.currentRevision }
+      const issues = e.data?.data?.issues
+      if (issues) {
+        issuesToFields(issues)
+        if (issues.some(i => i.path === 'name')) fieldErrors.value.name = issues.find(i => i.path === 'name')!.message
+      }
+      return null
+    } finally {
+      saving.value = false
+    }
+  }
+
+  return { id, revision, name, description, input, preview, result, evaluating, evaluationError, fieldErrors, saving, saveError, conflict, dirty, reset, evaluate, save }
+})

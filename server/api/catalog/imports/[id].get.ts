@@ -1,0 +1,13 @@
+import { loadImportTable, describeImport } from '~~/server/services/catalog-import'
+import { eq } from 'drizzle-orm'
+import { idParam } from '#shared/schemas/auth'
+import type { ColumnMapping } from '#shared/catalog/types'
+
+export default defineEventHandler(async (event) => {
+  await requireRole(event, 'catalog:read')
+  const { id } = paramsValid(event, idParam)
+  const [row] = await useDb().select().from(tables.catalogImports).where(eq(tables.catalogImports.id, id))
+  if (!row) throw createError({ statusCode: 404, message: 'No such import.' })
+  const table = await loadImportTable(row)
+  return describeImport(row, table, (row.mapping ?? {}) as ColumnMapping, row.decimalSeparator as '.' | ',')
+})

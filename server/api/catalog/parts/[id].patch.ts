@@ -1,0 +1,27 @@
+import { commitParts, bumpCatalogGeneration } from '~~/server/services/catalog'
+import { eq } from 'drizzle-orm'
+import { idParam } from '#shared/schemas/auth'
+import { partPatchSchema } from '#shared/schemas/catalog'
+import type { CatalogPart } from '#shared/catalog/types'
+
+// Approve a part, or change its lifecycle / stock / lead time (a new part version in a new catalogue version).
+export default defineEventHandler(async (event) => {
+  const user = await requireRole(event, 'catalog:write')
+  const { id } = paramsValid(event, idParam)
+  const { approved, ...edits } = await readValid(event, partPatchSchema)
+  const db = useDb()
+  const [row] = await db.select({ part: tables.parts, data: tables.partVersions.data }).from(tables.parts)
+    .innerJoin(tables.partVersions, eq(tables.partVersions.id, tables.parts.currentVersionId)).where(eq(tables.parts.id, id))
+  if (!row) throw createError({ statusCode: 404, message: 'No such part.' })
+  await db.transaction(async (tx) => {
+    if (approved !== undefined) await tx.update(tables.parts).set({ approved }).where(eq(tables.parts.id, id))
+    const changes = Object.fromEntries(Object.entries(edits).filter(([, v]) => v !== undefined))
+    if (Object.keys(changes).length) {
+      const part = { ...(row.data as CatalogPart), ...changes }
+      await commitParts(tx, [part], { userId: user.id, note: `Edited ${part.partNumber} (${Object.keys(changes).join(', ')})`, approve: row.part.approved })
+    }
+  })
+  bumpCatalogGeneration()
+  await audit(event, 'part edited', { subject: `${row.part.manufacturer} ${row.part.partNumber}`, details: { approved, ...edits } })
+  return { ok: true }
+})

@@ -1,0 +1,134 @@
+// A released BOM as a printable PDF (A4 landscape): header with design and revisions on every page,
+// the lines with totals, purchasing records, the positions table and the safety note.
+
+import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces'
+import type { BomLine, BomPurchase, BomSnapshot } from '../../shared/bom/types'
+import { formatDateTime, formatMoney, formatPieces, formatUnitPrice } from './format'
+import { PDF_STYLES, TABLE_LAYOUT, heading, keepHeadingsWithContent, pageFrame, renderPdf, safetyBox, type PdfFonts } from './pdf'
+
+export { loadFonts, loadFontsFromNodeModules, type PdfFonts } from './pdf'
+
+function header(text: string, alignment: 'left' | 'right' = 'left'): TableCell {
+  return { text, bold: true, alignment }
+}
+
+function num(text: string, extra: Record<string, unknown> = {}): TableCell {
+  return { text, alignment: 'right', ...extra }
+}
+
+/** Currency shown beside the number only when the line differs from the BOM currency. */
+function price(value: number | null, line: BomLine, bomCurrency: string, unit = false): string {
+  const text = unit ? formatUnitPrice(value) : formatMoney(value)
+  return value !== null && line.currency !== bomCurrency ? `${text} ${line.currency}` : text
+}
+
+function linesTable(snapshot: BomSnapshot): Content {
+  const cur = snapshot.currency
+  const body: TableCell[][] = [[
+    header('#', 'right'), header('Part number'), header('Manufacturer'), header('Description'), header('References'),
+    header('Per set [pcs]', 'right'), header('Build [pcs]', 'right'), header('Spares [pcs]', 'right'), header('Order [pcs]', 'right'),
+    header('Break [pcs]', 'right'), header(`Unit [${cur}]`, 'right'), header(`Extended [${cur}]`, 'right'), header('Lead [days]', 'right'), header('Lifecycle'),
+  ]]
+  snapshot.lines.forEach((line, i) => {
+    const description: Content[] = [{ text: line.description }]
+    if (line.warnings?.length) description.push({ text: line.warnings.join('; '), italics: true, color: '#92400e', fontSize: 6.5 })
+    body.push([
+      num(String(i + 1)), { text: line.partNumber || '—' }, { text: line.manufacturer || '—' }, { stack: description },
+      { text: line.references.join(', '), fontSize: 6.5 },
+      num(formatPieces(line.quantityPerUnit)), num(formatPieces(line.quantityBuild)), num(formatPieces(line.quantitySpares)),
+      num(formatPieces(line.quantityOrder), { bold: true }), num(formatPieces(line.priceBreakQuantity)),
+      num(price(line.unitPrice, line, cur, true)), num(price(line.extendedPrice, line, cur)),
+      num(formatPieces(line.leadTimeDays)), { text: line.lifecycle ?? '—' },
+    ])
+  })
+  const t = snapshot.totals
+  const sum = (pick: (l: BomLine) => number) => snapshot.lines.reduce((a, l) => a + pick(l), 0)
+  body.push([
+    { text: `Total, ${t.lines} lines`, bold: true, colSpan: 5 }, '', '', '', '',
+    num(formatPieces(sum(l => l.quantityPerUnit)), { bold: true }), num(formatPieces(sum(l => l.quantityBuild)), { bold: true }),
+    num(formatPieces(sum(l => l.quantitySpares)), { bold: true }), num(formatPieces(t.pieces), { bold: true }), '', '',
+    num(`${formatMoney(t.extendedPrice)} ${cur}`, { bold: true, colSpan: 2 }), '', '',
+  ])
+  return {
+    table: {
+      headerRows: 1,
+      dontBreakRows: true,
+      widths: [16, 70, 72, '*', 90, 34, 34, 34, 38, 34, 44, 58, 30, 40],
+      body,
+    },
+    layout: TABLE_LAYOUT,
+  }
+}
+
+function excludedNote(snapshot: BomSnapshot): Content | null {
+  const parts: string[] = []
+  if (snapshot.totals.unpricedLines > 0) parts.push(`${snapshot.totals.unpricedLines} line(s) without a price`)
+  if ((snapshot.totals.otherCurrencyLines ?? 0) > 0) parts.push(`${snapshot.totals.otherCurrencyLines} line(s) priced in another currency`)
+  return parts.length > 0 ? { text: `Not in the total: ${parts.join(', ')}.`, italics: true, margin: [0, 3, 0, 0] } : null
+}
+
+function purchaseTable(snapshot: BomSnapshot, purchase: BomPurchase): Content | null {
+  const rows = snapshot.lines.map((line, i) => ({ line, i, p: purchase[line.key] })).filter(r => r.p)
+  if (rows.length === 0) return null
+  const cur = snapshot.currency
+  const body: TableCell[][] = [[header('#', 'right'), header('Part number'), header('Ordered from'), header('Order [pcs]', 'right'), header(`Quoted unit [${cur}]`, 'right'), header(`Quoted extended [${cur}]`, 'right'), header('Order reference')]]
+  for (const { line, i, p } of rows) {
+    const quoted = p!.quotedUnitPrice ?? null
+    body.push([
+      num(String(i + 1)), { text: line.partNumber || line.description }, { text: p!.supplier ?? '—' }, num(formatPieces(line.quantityOrder)),
+      num(price(quoted, line, cur, true)), num(price(quoted === null ? null : quoted * line.quantityOrder, line, cur)), { text: p!.orderReference ?? '—' },
+    ])
+  }
+  return [
+    heading('Purchasing'),
+    { table: { headerRows: 1, dontBreakRows: true, widths: [16, 110, 150, 50, 70, 80, '*'], body }, layout: TABLE_LAYOUT },
+  ]
+}
+
+function positionsTable(snapshot: BomSnapshot): Content {
+  const body: TableCell[][] = [[header('Side'), header('Position'), header('Manufacturer'), header('Part number'), header('Per converter set [pcs]', 'right'), header('In series [pcs]', 'right'), header('In parallel [pcs]', 'right')]]
+  for (const p of snapshot.positions) {
+    body.push([{ text: p.side }, { text: p.position }, { text: p.manufacturer }, { text: p.partNumber }, num(formatPieces(p.perConverter)), num(formatPieces(p.seriesCount)), num(formatPieces(p.parallelCount))])
+  }
+  return { table: { headerRows: 1, dontBreakRows: true, widths: [50, 60, 150, 120, 80, 60, 60], body }, layout: TABLE_LAYOUT }
+}
+
+/** The BOM as PDF bytes. Fonts come from the caller (server asset or node_modules). */
+export async function bomToPdf(snapshot: BomSnapshot, fonts: PdfFonts, purchase: BomPurchase = {}): Promise<Buffer> {
+  const title = `Bill of materials: ${snapshot.designName}`
+  const released = `released ${formatDateTime(snapshot.releasedAt)} by ${snapshot.releasedBy}`
+  const summary: TableCell[][] = [
+    [header('Design'), { text: `${snapshot.designName}, revision ${snapshot.designRevision}` }, header('BOM revision'), { text: String(snapshot.revision) }],
+    [header('Topology'), { text: snapshot.topologySummary }, header('Released'), { text: `${formatDateTime(snapshot.releasedAt)} by ${snapshot.releasedBy}` }],
+    [header('Build quantity'), { text: `${formatPieces(snapshot.buildQuantity)} sets, spares ${snapshot.sparesPercent} %` }, header('Total'), { text: `${formatMoney(snapshot.totals.extendedPrice)} ${snapshot.currency}`, bold: true }],
+  ]
+  const designRows: TableCell[][] = snapshot.designSummary.map(([label, value, unit]) => [{ text: label }, num(typeof value === 'number' ? String(value) : value), { text: unit }])
+
+  const content: Content[] = [
+    { text: title, style: 'h1' },
+    { table: { widths: [70, '*', 70, '*'], body: summary }, layout: 'noBorders', margin: [0, 0, 0, 8] },
+    linesTable(snapshot),
+  ]
+  const note = excludedNote(snapshot)
+  if (note) content.push(note)
+  const purchasing = purchaseTable(snapshot, purchase)
+  if (purchasing) content.push(purchasing)
+  content.push(heading('Positions'), positionsTable(snapshot))
+  if (designRows.length > 0) {
+    content.push(heading('Design summary'), { table: { headerRows: 0, widths: [160, 80, 40], body: designRows }, layout: TABLE_LAYOUT })
+  }
+  content.push(safetyBox(snapshot.safetyNote))
+
+  const doc: TDocumentDefinitions = {
+    pageSize: 'A4',
+    pageOrientation: 'landscape',
+    pageMargins: [30, 40, 30, 34],
+    info: { title: `${title} (design rev ${snapshot.designRevision}, BOM rev ${snapshot.revision})`, author: snapshot.releasedBy, subject: 'Bill of materials', creator: 'Stratavolt', producer: 'Stratavolt' },
+    ...pageFrame(snapshot.company, `${snapshot.designName} · design rev ${snapshot.designRevision} · BOM rev ${snapshot.revision}`, released, 'Stratavolt bill of materials: a design aid; vendor datasheets govern part ratings.'),
+    content,
+    pageBreakBefore: keepHeadingsWithContent as TDocumentDefinitions['pageBreakBefore'],
+    styles: PDF_STYLES as unknown as TDocumentDefinitions['styles'],
+    defaultStyle: { font: 'Roboto', fontSize: 7.5, lineHeight: 1.1 },
+  }
+  return renderPdf(doc, fonts)
+}

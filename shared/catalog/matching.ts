@@ -1,0 +1,552 @@
+// Part matching for one device position: which catalogue parts meet the derated ratings, how many
+// in series / parallel / packages, their losses, junction temperature, price at the build quantity.
+//
+// Losses (ENGINEERING.md, "Losses and junction temperature"):
+//   conduction  P_cond = V0·I_avg + r·I_rms²                       per device
+//   switching   E(i, v) = E_ref·(|i|/I_ref)·(v/V_ref) per event, summed over one period:
+//               P_sw = f_sw·E_ref·(v/V_ref)·(I_sw/I_ref),  I_sw = (1/2π)∫|i(θ)|·s(θ)dθ
+//               where s(θ) = 1 while the device switches. With linear scaling the sum over events is
+//               the switching-averaged current; for a two-level leg with sine PWM I_sw = Î/π, which is
+//               the closed form of F. Bierhoff, F. W. Fuchs, IEEE PESC 2004:
+//               P_sw,T = f_sw·(E_on + E_off)·(Î/π)/I_ref·V_dc/V_ref,  P_rr,D = f_sw·E_rr·(Î/π)/I_ref·V_dc/V_ref.
+//               When a duty gives no switchedCurrentAvg, Î/π is used: exact for two-level and an upper
+//               bound for multilevel positions (they switch during part of their conducting half-cycle).
+//   junction    T_j = T_heatsink + P·(R_th,jc + R_th,ch)            per device (no coupling between chips)
+
+import { PACKAGE_CONFIGURATIONS, type PartKind } from '../../catalog/columns'
+import type { CapacitorEnvelope, DeviceEnvelope, TopologyId } from '../engine/types'
+import { priceAtQuantity } from './prices'
+import type { CatalogPart, Lifecycle } from './types'
+
+export { priceAtQuantity } from './prices'
+
+export type PositionKind = 'switch' | 'diode' | 'clamp-diode' | 'capacitor'
+
+/** One device or capacitor position of a converter at its worst operating point, and how often it occurs. */
+export interface PositionDuty {
+  positionName: string
+  kind: PositionKind
+  /** V, part voltage class needed after derating, for the whole position (series parts share it). */
+  requiredVoltageRating: number
+  /** A, semiconductors: part current rating needed after derating. */
+  requiredCurrentRating?: number
+  /** A RMS, capacitors: ripple-current rating needed after derating. */
+  requiredRippleRating?: number
+  /** F, capacitors: capacitance the position needs. */
+  capacitanceRequired?: number
+  /** A, average current of the position (semiconductors). */
+  currentAvg: number
+  /** A, RMS current (capacitors: ripple current). */
+  currentRms: number
+  /** A, peak current. */
+  currentPeak: number
+  /** A, (1/2π)∫|i|·s(θ)dθ over the instants the device switches; default currentPeak/π (two-level, Bierhoff & Fuchs). */
+  switchedCurrentAvg?: number
+  /** V, steady-state blocking voltage. */
+  blockingVoltage: number
+  /** V, voltage commutated per switching event (V_dc two-level, V_dc/(N−1) multilevel). */
+  commutatedVoltage: number
+  /** Hz */
+  switchingHz: number
+  /** Identical positions per phase leg (capacitors: capacitor positions per converter, with phases = 1). */
+  positionsPerPhase: number
+  phases: number
+  /** Converters in the design that carry this position (2 for back-to-back with the same duty). */
+  converters: number
+  /** Topology, to offer leg modules only where they fit; absent = any. */
+  topology?: TopologyId
+  levels?: number
+}
+
+export interface MatchPolicy {
+  /** °C assumed at the heatsink */
+  heatsinkTemperatureC: number
+  /** °C kept below T_j,max */
+  junctionMarginC: number
+  /** Converter sets built (a design is priced at packages per design × this). */
+  buildQuantity: number
+  /** Parts allowed in series per position kind (default: switch 1, diode 1, clamp-diode 8, capacitor 4). */
+  maxSeries?: Partial<Record<PositionKind, number>>
+  /** Parts allowed in parallel per position kind (default: 4 for semiconductors, 50 capacitors). */
+  maxParallel?: Partial<Record<PositionKind, number>>
+  /** Usable share of each paralleled semiconductor's current rating (default 0.9, common practice for current imbalance). */
+  parallelCurrentSharing?: number
+  /** Usable share of each series part's voltage rating (default 1: balanced by snubbers / sharing resistors). */
+  seriesVoltageSharing?: number
+  /** Offer obsolete parts (default false). */
+  includeObsolete?: boolean
+}
+
+const DEFAULT_MAX_SERIES: Record<PositionKind, number> = { 'switch': 1, 'diode': 1, 'clamp-diode': 8, 'capacitor': 4 }
+const DEFAULT_MAX_PARALLEL: Record<PositionKind, number> = { 'switch': 4, 'diode': 4, 'clamp-diode': 4, 'capacitor': 50 }
+
+export interface CandidateLosses {
+  /** W per device */
+  conduction: number
+  /** W per device (turn-on + turn-off, or reverse recovery) */
+  switching: number
+  /** W per device */
+  total: number
+  /** W for all devices of this position in one converter (phases × positions × series × parallel) */
+  perConverter: number
+}
+
+export interface Candidate {
+  part: CatalogPart
+  seriesCount: number
+  parallelCount: number
+  /** %, (series × rating / required − 1) · 100 */
+  voltageMarginPct: number
+  /** %, semiconductors: current; capacitors: ripple current */
+  currentMarginPct: number
+  /** %, capacitors only: (capacitance of the bank / needed − 1) · 100 */
+  capacitanceMarginPct?: number
+  /** null when the part lacks loss data */
+  losses: CandidateLosses | null
+  /** °C, semiconductors with thermal data */
+  junctionTemperatureC?: number
+  /** °C, T_j,max − margin */
+  junctionLimitC?: number
+  thermalOk: boolean
+  /** Device slots of this position kind in one package. */
+  slotsPerPackage: number
+  packagesPerConverter: number
+  packagesPerDesign: number
+  /** Pieces bought for the build quantity (raised to the first price break / MOQ when needed). */
+  orderQuantity: number
+  /** per piece at orderQuantity; null without prices */
+  unitPrice: number | null
+  priceBreakQuantity: number | null
+  currency?: string
+  /** unitPrice × packagesPerDesign */
+  costPerDesign: number | null
+  stock?: number
+  stockOk: boolean | null
+  leadTimeDays?: number
+  lifecycle: Lifecycle
+  /** The package also holds other kinds of positions (e.g. the switch's own anti-parallel diode). */
+  sharedPackage: boolean
+  warnings: string[]
+}
+
+export interface MatchResult {
+  candidates: Candidate[]
+  /** Problems with the duty itself (then there are no candidates). */
+  dutyProblems: string[]
+  /** Parts looked at, and why the others were left out. */
+  considered: number
+  rejected: { wrongKind: number, wrongTopology: number, voltage: number, current: number, capacitance: number, obsolete: number, missingData: number }
+}
+
+const LIFECYCLE_RANK: Record<Lifecycle, number> = { active: 0, nrnd: 1, obsolete: 2 }
+
+function kindsFor(position: PositionKind): readonly PartKind[] {
+  switch (position) {
+    case 'switch': return ['switch-diode', 'switch']
+    case 'diode': return ['diode', 'switch-diode']
+    case 'clamp-diode': return ['diode', 'switch-diode']
+    case 'capacitor': return ['capacitor']
+  }
+}
+
+/** Positions of the duty's kind that one package of the part covers (0 = cannot serve it). */
+export function slotsPerPackage(part: Pick<CatalogPart, 'kind' | 'packageConfiguration'>, position: PositionKind): number {
+  const cfg = PACKAGE_CONFIGURATIONS[part.packageConfiguration]
+  if (!cfg || !cfg.kinds.includes(part.kind)) return 0
+  switch (position) {
+    case 'switch': return part.kind === 'switch-diode' || part.kind === 'switch' ? cfg.switches : 0
+    case 'diode': return part.kind === 'diode' ? cfg.diodes : part.kind === 'switch-diode' ? cfg.switches : 0
+    // A switch package serves clamp positions only when it has clamp diodes of its own (NPC leg).
+    case 'clamp-diode': return part.kind === 'diode' ? cfg.clampDiodes : part.kind === 'switch-diode' && part.packageConfiguration === 'npc-leg' ? cfg.clampDiodes : 0
+    case 'capacitor': return part.kind === 'capacitor' ? 1 : 0
+  }
+}
+
+function fitsTopology(part: CatalogPart, duty: PositionDuty): boolean {
+  const cfg = PACKAGE_CONFIGURATIONS[part.packageConfiguration]
+  if (!cfg?.topologies || !duty.topology) return true
+  if (!cfg.topologies.includes(duty.topology)) return false
+  // Three-level leg modules fit three-level legs only.
+  if ((part.packageConfiguration === 'npc-leg') && duty.levels !== undefined && duty.levels !== 3) return false
+  return true
+}
+
+/** Packages of one part per converter for a position: modules stay within a phase leg unless they span phases. */
+export function packagesPerConverter(duty: Pick<PositionDuty, 'positionsPerPhase' | 'phases'>, devicesPerPosition: number, slots: number, phasesPerPackage: number): number {
+  const devicesPerPhase = duty.positionsPerPhase * devicesPerPosition
+  if (phasesPerPackage > 1) {
+    const slotsPerPhase = slots / phasesPerPackage
+    return Math.ceil(duty.phases / phasesPerPackage) * Math.ceil(devicesPerPhase / slotsPerPhase)
+  }
+  return duty.phases * Math.ceil(devicesPerPhase / slots)
+}
+
+function round(value: number, digits = 2): number {
+  const f = 10 ** digits
+  return Math.round(value * f) / f
+}
+
+interface Sizing { series: number, parallel: number }
+
+function semiconductorSizing(part: CatalogPart, duty: PositionDuty, maxSeries: number, maxParallel: number, parallelSharing: number, seriesSharing: number): Sizing | 'voltage' | 'current' | 'missingData' {
+  const rating = part.voltageRating
+  const current = part.currentRating
+  if (!(rating > 0) || !(current !== undefined && current > 0)) return 'missingData'
+  let series = Math.max(1, Math.ceil(duty.requiredVoltageRating / rating - 1e-9))
+  if (series > 1) series = Math.ceil(duty.requiredVoltageRating / (rating * seriesSharing) - 1e-9)
+  if (series > maxSeries) return 'voltage'
+  const required = duty.requiredCurrentRating ?? duty.currentPeak
+  let parallel = Math.max(1, Math.ceil(required / current - 1e-9))
+  if (parallel > 1) parallel = Math.ceil(required / (current * parallelSharing) - 1e-9)
+  if (parallel > maxParallel) return 'current'
+  return { series, parallel }
+}
+
+function capacitorSizing(part: CatalogPart, duty: PositionDuty, maxSeries: number, maxParallel: number): Sizing | 'voltage' | 'current' | 'capacitance' | 'missingData' {
+  const rating = part.voltageRating
+  const ripple = part.rippleCurrentRating
+  const capacitance = part.capacitance
+  if (!(rating > 0) || !(ripple !== undefined && ripple > 0) || !(capacitance !== undefined && capacitance > 0)) return 'missingData'
+  const series = Math.max(1, Math.ceil(duty.requiredVoltageRating / rating - 1e-9))
+  if (series > maxSeries) return 'voltage'
+  // A string of `series` capacitors carries the full ripple and has 1/series of one capacitance.
+  const byRipple = Math.ceil((duty.requiredRippleRating ?? duty.currentRms) / ripple - 1e-9)
+  const byCapacitance = duty.capacitanceRequired ? Math.ceil((duty.capacitanceRequired * series) / capacitance - 1e-9) : 1
+  const parallel = Math.max(1, byRipple, byCapacitance)
+  if (parallel > maxParallel) return byCapacitance >= byRipple ? 'capacitance' : 'current'
+  return { series, parallel }
+}
+
+/** Losses per device of a semiconductor part at the position, or null when the part lacks the data. */
+export function deviceLosses(part: CatalogPart, duty: PositionDuty, series: number, parallel: number): { conduction: number, switching: number } | null {
+  const asSwitch = duty.kind === 'switch'
+  const v0 = asSwitch ? part.switchThresholdVoltage : part.diodeThresholdVoltage
+  const r = asSwitch ? part.switchSlopeResistance : part.diodeSlopeResistance
+  if (v0 === undefined || r === undefined) return null
+  const iAvg = duty.currentAvg / parallel
+  const iRms = duty.currentRms / parallel
+  const conduction = v0 * iAvg + r * iRms * iRms
+  const energy = asSwitch
+    ? (part.turnOnEnergy !== undefined && part.turnOffEnergy !== undefined ? part.turnOnEnergy + part.turnOffEnergy : undefined)
+    : (part.recoveryEnergy ?? 0)
+  if (energy === undefined) return null
+  let switching = 0
+  if (energy > 0 && duty.switchingHz > 0 && duty.commutatedVoltage > 0) {
+    const vRef = part.energyReferenceVoltage
+    const iRef = part.energyReferenceCurrent
+    if (!vRef || !iRef) return null
+    const switchedCurrent = (duty.switchedCurrentAvg ?? duty.currentPeak / Math.PI) / parallel
+    switching = duty.switchingHz * energy * (switchedCurrent / iRef) * (duty.commutatedVoltage / series / vRef)
+  }
+  return { conduction, switching }
+}
+
+function describePosition(kind: PositionKind): string {
+  return kind === 'clamp-diode' ? 'clamp diode' : kind
+}
+
+/** Checks a duty's numbers, naming the field; empty when it can be matched. */
+export function checkDuty(duty: PositionDuty): string[] {
+  const problems: string[] = []
+  const positive = (field: keyof PositionDuty, value: unknown, allowZero = false) => {
+    if (typeof value !== 'number' || !Number.isFinite(value) || value < 0 || (!allowZero && value === 0)) {
+      problems.push(`${duty.positionName || 'position'}: ${String(field)} must be a number ${allowZero ? '≥' : '>'} 0, got ${String(value)}`)
+    }
+  }
+  positive('requiredVoltageRating', duty.requiredVoltageRating)
+  if (duty.kind === 'capacitor') positive('requiredRippleRating', duty.requiredRippleRating ?? duty.currentRms, true)
+  else positive('requiredCurrentRating', duty.requiredCurrentRating ?? duty.currentPeak)
+  positive('currentAvg', duty.currentAvg, true)
+  positive('currentRms', duty.currentRms, true)
+  positive('currentPeak', duty.currentPeak, true)
+  positive('commutatedVoltage', duty.commutatedVoltage, true)
+  positive('switchingHz', duty.switchingHz, true)
+  for (const field of ['positionsPerPhase', 'phases', 'converters'] as const) {
+    if (!Number.isInteger(duty[field]) || duty[field] < 1) problems.push(`${duty.positionName || 'position'}: ${field} must be a whole number ≥ 1, got ${String(duty[field])}`)
+  }
+  return problems
+}
+
+/**
+ * Candidate parts for one position that meet the derated ratings (with series / parallel parts where
+ * the policy allows). Sorted: thermally fine first, then lifecycle, then cost per design, then losses.
+ */
+export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] | PartIndex, policy: MatchPolicy): MatchResult {
+  const index = isPartIndex(parts) ? parts : indexParts(parts)
+  const maxSeries = policy.maxSeries?.[duty.kind] ?? DEFAULT_MAX_SERIES[duty.kind]
+  const maxParallel = policy.maxParallel?.[duty.kind] ?? DEFAULT_MAX_PARALLEL[duty.kind]
+  const parallelSharing = policy.parallelCurrentSharing ?? 0.9
+  const seriesSharing = policy.seriesVoltageSharing ?? 1
+  const pool = index.byPosition[duty.kind]
+  const rejected = { wrongKind: index.size - pool.length, wrongTopology: 0, voltage: 0, current: 0, capacitance: 0, obsolete: 0, missingData: 0 }
+  const candidates: Candidate[] = []
+  const isCapacitor = duty.kind === 'capacitor'
+  const dutyProblems = checkDuty(duty)
+  if (dutyProblems.length > 0) return { candidates, dutyProblems, considered: 0, rejected: { ...rejected, wrongKind: 0 } }
+
+  for (const { part, slots } of pool) {
+    if (!fitsTopology(part, duty)) { rejected.wrongTopology++; continue }
+    const sizing = isCapacitor
+      ? capacitorSizing(part, duty, maxSeries, maxParallel)
+      : semiconductorSizing(part, duty, maxSeries, maxParallel, parallelSharing, seriesSharing)
+    if (typeof sizing === 'string') { rejected[sizing]++; continue }
+    if (part.lifecycle === 'obsolete' && !policy.includeObsolete) { rejected.obsolete++; continue }
+    candidates.push(buildCandidate(part, duty, policy, sizing, slots))
+  }
+  return { candidates: sortCandidates(candidates), dutyProblems, considered: index.size, rejected }
+}
+
+/** Parts grouped by the position kinds they can serve, with their slot counts: build once per catalogue, match many positions. */
+export interface PartIndex {
+  readonly kind: 'part-index'
+  readonly size: number
+  readonly byPosition: Readonly<Record<PositionKind, readonly { part: CatalogPart, slots: number }[]>>
+}
+
+const POSITION_KINDS: readonly PositionKind[] = ['switch', 'diode', 'clamp-diode', 'capacitor']
+
+export function indexParts(parts: readonly CatalogPart[]): PartIndex {
+  const byPosition: Record<PositionKind, { part: CatalogPart, slots: number }[]> = { 'switch': [], 'diode': [], 'clamp-diode': [], 'capacitor': [] }
+  for (const part of parts) {
+    for (const position of POSITION_KINDS) {
+      const slots = slotsPerPackage(part, position)
+      if (slots > 0) byPosition[position].push({ part, slots })
+    }
+  }
+  return { kind: 'part-index', size: parts.length, byPosition }
+}
+
+function isPartIndex(parts: readonly CatalogPart[] | PartIndex): parts is PartIndex {
+  return !Array.isArray(parts) && (parts as PartIndex).kind === 'part-index'
+}
+
+function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPolicy, sizing: Sizing, slots: number): Candidate {
+  const { series, parallel } = sizing
+  const warnings: string[] = []
+  const isCapacitor = duty.kind === 'capacitor'
+  const devices = series * parallel
+  const devicesPerConverter = devices * duty.positionsPerPhase * duty.phases
+  const cfg = PACKAGE_CONFIGURATIONS[part.packageConfiguration]
+  const phasesPerPackage = isCapacitor ? 1 : cfg.phasesPerPackage
+  const packages = packagesPerConverter(duty, devices, slots, phasesPerPackage)
+  const packagesPerDesign = packages * duty.converters
+  const unusedSlots = packages * slots - devicesPerConverter
+  if (unusedSlots > 0 && slots > 1) {
+    warnings.push(`${unusedSlots} of ${packages * slots} ${describePosition(duty.kind)} positions in these packages are not used by ${duty.positionName} (another position of the leg may use them)`)
+  }
+  // A switch-diode package also holds the anti-parallel diodes (and an NPC leg its clamp diodes).
+  const sharedPackage = part.kind === 'switch-diode'
+  if (duty.kind === 'diode' && part.kind === 'switch-diode') {
+    warnings.push(`the anti-parallel diode inside ${part.partNumber}: no extra package when the switch position uses the same part`)
+  }
+  if (series > 1) warnings.push(`${series} in series: voltage sharing (snubbers or sharing resistors) needed`)
+  if (parallel > 1 && !isCapacitor) warnings.push(`${parallel} in parallel: current sharing assumed at ${Math.round((policy.parallelCurrentSharing ?? 0.9) * 100)} % of each rating`)
+
+  const voltageMarginPct = round(((series * part.voltageRating) / duty.requiredVoltageRating - 1) * 100, 1)
+  let currentMarginPct: number
+  let capacitanceMarginPct: number | undefined
+  let losses: CandidateLosses | null = null
+  let junctionTemperatureC: number | undefined
+  let junctionLimitC: number | undefined
+  let thermalOk = true
+
+  if (isCapacitor) {
+    const rippleNeeded = duty.requiredRippleRating ?? duty.currentRms
+    currentMarginPct = round(((parallel * (part.rippleCurrentRating ?? 0)) / rippleNeeded - 1) * 100, 1)
+    if (duty.capacitanceRequired) capacitanceMarginPct = round(((parallel * (part.capacitance ?? 0)) / series / duty.capacitanceRequired - 1) * 100, 1)
+    if (part.esr !== undefined) {
+      const perCapacitor = part.esr * (duty.currentRms / parallel) ** 2
+      losses = { conduction: round(perCapacitor, 3), switching: 0, total: round(perCapacitor, 3), perConverter: round(perCapacitor * devicesPerConverter, 2) }
+    }
+  }
+  else {
+    currentMarginPct = round(((parallel * (part.currentRating ?? 0)) / (duty.requiredCurrentRating ?? duty.currentPeak) - 1) * 100, 1)
+    const perDevice = deviceLosses(part, duty, series, parallel)
+    if (perDevice) {
+      const total = perDevice.conduction + perDevice.switching
+      losses = { conduction: round(perDevice.conduction, 3), switching: round(perDevice.switching, 3), total: round(total, 3), perConverter: round(total * devicesPerConverter, 2) }
+      const rthJc = duty.kind === 'switch' ? part.rthJunctionCaseSwitch : part.rthJunctionCaseDiode
+      if (rthJc !== undefined && part.junctionTemperatureMax !== undefined) {
+        junctionTemperatureC = round(policy.heatsinkTemperatureC + total * (rthJc + (part.rthCaseHeatsink ?? 0)), 1)
+        junctionLimitC = part.junctionTemperatureMax - policy.junctionMarginC
+        thermalOk = junctionTemperatureC <= junctionLimitC
+        if (!thermalOk) warnings.push(`T_j ${junctionTemperatureC} °C exceeds ${junctionLimitC} °C (T_j,max ${part.junctionTemperatureMax} °C − ${policy.junctionMarginC} °C margin)`)
+        if (part.rthCaseHeatsink === undefined) warnings.push('no R_th case-heatsink in the catalogue: T_j leaves it out')
+      }
+      else warnings.push('no thermal data: junction temperature not computed')
+    }
+    else warnings.push('loss data incomplete: losses and junction temperature not computed')
+  }
+
+  const needed = packagesPerDesign * policy.buildQuantity
+  const price = priceAtQuantity(part.priceBreaks, needed, part.minimumOrderQuantity ?? 1)
+  const orderQuantity = price?.orderQuantity ?? Math.max(needed, part.minimumOrderQuantity ?? 1)
+  if (price?.raisedToMinimum) warnings.push(`order raised from ${needed} to ${orderQuantity} pieces (first price break or MOQ)`)
+  if (!price) warnings.push('no price in the catalogue')
+  const stockOk = part.stock === undefined ? null : part.stock >= orderQuantity
+  if (stockOk === false) warnings.push(`stock ${part.stock} < ${orderQuantity} needed${part.leadTimeDays !== undefined ? `; lead time ${part.leadTimeDays} d` : ''}`)
+  if (part.lifecycle === 'nrnd') warnings.push('not for new designs (NRND)')
+  if (part.lifecycle === 'obsolete') warnings.push('obsolete')
+
+  // Plain assignments (no conditional spreads): this runs for every candidate of 20 000 parts.
+  const candidate: Candidate = {
+    part,
+    seriesCount: series,
+    parallelCount: parallel,
+    voltageMarginPct,
+    currentMarginPct,
+    losses,
+    thermalOk,
+    slotsPerPackage: slots,
+    packagesPerConverter: packages,
+    packagesPerDesign,
+    orderQuantity,
+    unitPrice: price ? price.unitPrice : null,
+    priceBreakQuantity: price ? price.breakQuantity : null,
+    costPerDesign: price ? round(price.unitPrice * packagesPerDesign, 2) : null,
+    stockOk,
+    lifecycle: part.lifecycle,
+    sharedPackage,
+    warnings,
+  }
+  if (capacitanceMarginPct !== undefined) candidate.capacitanceMarginPct = capacitanceMarginPct
+  if (junctionTemperatureC !== undefined) {
+    candidate.junctionTemperatureC = junctionTemperatureC
+    candidate.junctionLimitC = junctionLimitC
+  }
+  if (part.currency) candidate.currency = part.currency
+  if (part.stock !== undefined) candidate.stock = part.stock
+  if (part.leadTimeDays !== undefined) candidate.leadTimeDays = part.leadTimeDays
+  return candidate
+}
+
+/** Thermally fine first, then lifecycle (active, NRND, obsolete), cost per design, losses per converter. */
+export function sortCandidates(candidates: Candidate[]): Candidate[] {
+  // Keys computed once per candidate: the comparator runs n·log n times on large catalogues.
+  const keyed = candidates.map(c => ({
+    c,
+    group: (c.thermalOk ? 0 : 3) + LIFECYCLE_RANK[c.lifecycle],
+    cost: c.costPerDesign ?? Infinity,
+    loss: c.losses ? c.losses.perConverter : Infinity,
+  }))
+  keyed.sort((a, b) => a.group - b.group || (a.cost === b.cost ? 0 : a.cost < b.cost ? -1 : 1) || (a.loss === b.loss ? 0 : a.loss < b.loss ? -1 : 1))
+  return keyed.map(k => k.c)
+}
+
+function formatNumber(value: number): string {
+  return Number(value.toPrecision(4)).toString()
+}
+
+function formatCapacitance(farad: number): string {
+  return farad >= 1e-3 ? `${formatNumber(farad * 1e3)} mF` : `${formatNumber(farad * 1e6)} µF`
+}
+
+/**
+ * Explains why no part fits a position (null when some part does): what is required, the closest
+ * parts and what each lacks, and parts left out for lifecycle or topology.
+ */
+export function whyNothingFits(duty: PositionDuty, catalogue: readonly CatalogPart[] | PartIndex, policy: MatchPolicy): string | null {
+  const index = isPartIndex(catalogue) ? catalogue : indexParts(catalogue)
+  const result = matchPosition(duty, index, policy)
+  if (result.dutyProblems.length > 0) return result.dutyProblems.join('; ')
+  if (result.candidates.length > 0) return null
+  const maxSeries = policy.maxSeries?.[duty.kind] ?? DEFAULT_MAX_SERIES[duty.kind]
+  const maxParallel = policy.maxParallel?.[duty.kind] ?? DEFAULT_MAX_PARALLEL[duty.kind]
+  const noun = describePosition(duty.kind)
+  const isCapacitor = duty.kind === 'capacitor'
+  const kinds = kindsFor(duty.kind)
+  const pool = index.byPosition[duty.kind].map(entry => entry.part)
+  if (pool.length === 0) return `${duty.positionName}: the catalogue has no part that can serve as a ${noun} (kinds ${kinds.map(k => `'${k}'`).join(' or ')}).`
+
+  const currentNeeded = isCapacitor ? (duty.requiredRippleRating ?? duty.currentRms) : (duty.requiredCurrentRating ?? duty.currentPeak)
+  const needs = [`≥ ${formatNumber(duty.requiredVoltageRating)} V`, `≥ ${formatNumber(currentNeeded)} A${isCapacitor ? ' ripple' : ''}`]
+  if (isCapacitor && duty.capacitanceRequired) needs.push(`≥ ${formatCapacitance(duty.capacitanceRequired)}`)
+  const allowance = `allowing up to ${maxSeries} in series and ${maxParallel} in parallel`
+  let message = `${duty.positionName}: no ${noun} rated ${needs.join(' and ')} (${allowance}).`
+
+  // Closest: the smallest product of shortfalls even with the most series / parallel parts allowed.
+  const shortfall = (p: CatalogPart) => {
+    const v = duty.requiredVoltageRating / (p.voltageRating * maxSeries)
+    const i = currentNeeded / (((isCapacitor ? p.rippleCurrentRating : p.currentRating) ?? 0) * maxParallel)
+    const c = isCapacitor && duty.capacitanceRequired ? (duty.capacitanceRequired * Math.ceil(duty.requiredVoltageRating / p.voltageRating)) / ((p.capacitance ?? 0) * maxParallel) : 1
+    return Math.max(1, v) * Math.max(1, Number.isFinite(i) ? i : 1e9) * Math.max(1, Number.isFinite(c) ? c : 1e9)
+  }
+  // Obsolete parts are counted below rather than offered as "closest" (unless nothing else exists).
+  const usable = policy.includeObsolete ? pool : pool.filter(p => p.lifecycle !== 'obsolete')
+  const closest = [...(usable.length > 0 ? usable : pool)].sort((a, b) => shortfall(a) - shortfall(b)).slice(0, 3)
+  const describe = (p: CatalogPart) => {
+    const lacks: string[] = []
+    if (p.voltageRating * maxSeries < duty.requiredVoltageRating) lacks.push(`voltage ${formatNumber(p.voltageRating)} V${maxSeries > 1 ? ` × ${maxSeries}` : ''} < ${formatNumber(duty.requiredVoltageRating)} V`)
+    const rating = (isCapacitor ? p.rippleCurrentRating : p.currentRating) ?? 0
+    const usable = rating * maxParallel * (maxParallel > 1 && !isCapacitor ? policy.parallelCurrentSharing ?? 0.9 : 1)
+    if (usable < currentNeeded) lacks.push(`current ${formatNumber(rating)} A${maxParallel > 1 ? ` × ${maxParallel}` : ''} < ${formatNumber(currentNeeded)} A`)
+    if (isCapacitor && duty.capacitanceRequired && p.capacitance !== undefined) {
+      const series = Math.max(1, Math.ceil(duty.requiredVoltageRating / p.voltageRating))
+      if ((p.capacitance * maxParallel) / series < duty.capacitanceRequired) lacks.push(`capacitance ${formatCapacitance(p.capacitance)} × ${maxParallel} / ${series} in series < ${formatCapacitance(duty.capacitanceRequired)}`)
+    }
+    if (!fitsTopology(p, duty)) lacks.push(`a ${PACKAGE_CONFIGURATIONS[p.packageConfiguration].label} module made for another topology`)
+    if (p.lifecycle === 'obsolete' && !policy.includeObsolete) lacks.push('obsolete')
+    const rating2 = isCapacitor ? `${formatNumber(p.voltageRating)} V, ${formatCapacitance(p.capacitance ?? 0)}, ${formatNumber(p.rippleCurrentRating ?? 0)} A` : `${formatNumber(p.voltageRating)} V, ${formatNumber(p.currentRating ?? 0)} A`
+    return `${p.manufacturer} ${p.partNumber} (${rating2})${lacks.length > 0 ? `: ${lacks.join('; ')}` : ''}`
+  }
+  message += ` Closest: ${closest.map(describe).join('; ')}.`
+  if (result.rejected.obsolete > 0) message += ` ${result.rejected.obsolete} obsolete part${result.rejected.obsolete > 1 ? 's' : ''} would fit.`
+  if (result.rejected.wrongTopology > 0) message += ` ${result.rejected.wrongTopology} module${result.rejected.wrongTopology > 1 ? 's are' : ' is'} made for another topology.`
+  if (result.rejected.missingData > 0) message += ` ${result.rejected.missingData} part${result.rejected.missingData > 1 ? 's lack' : ' lacks'} ratings in the catalogue.`
+  return message
+}
+
+export interface DutyContext {
+  /** Hz */
+  switchingHz: number
+  /** default 3 */
+  phases?: number
+  /** default 1 */
+  converters?: number
+  topology?: TopologyId
+  levels?: number
+}
+
+/** A device position of the engine's envelope as a matching duty (worst values over the operating points). */
+export function positionDutyFromDevice(device: DeviceEnvelope, ctx: DutyContext): PositionDuty {
+  return {
+    positionName: device.name,
+    kind: device.kind,
+    requiredVoltageRating: device.requiredVoltageRating,
+    requiredCurrentRating: device.requiredCurrentRating,
+    currentAvg: device.currentAvg,
+    currentRms: device.currentRms,
+    currentPeak: device.currentPeak,
+    blockingVoltage: device.blockingVoltage,
+    // Without the engine's commutated voltage the steady blocking voltage is the closest stand-in.
+    commutatedVoltage: device.commutatedVoltage ?? device.blockingVoltage,
+    switchingHz: ctx.switchingHz,
+    positionsPerPhase: device.countPerPhase,
+    phases: ctx.phases ?? 3,
+    converters: ctx.converters ?? 1,
+    ...(ctx.topology ? { topology: ctx.topology } : {}),
+    ...(ctx.levels !== undefined ? { levels: ctx.levels } : {}),
+  }
+}
+
+/** A capacitor position of the engine's envelope as a matching duty (count per converter, phases = 1). */
+export function positionDutyFromCapacitor(capacitor: CapacitorEnvelope, ctx: Omit<DutyContext, 'switchingHz' | 'phases'>): PositionDuty {
+  return {
+    positionName: capacitor.name,
+    kind: 'capacitor',
+    requiredVoltageRating: capacitor.requiredVoltageRating,
+    requiredRippleRating: capacitor.requiredRippleRating,
+    ...(capacitor.capacitanceRequired !== undefined ? { capacitanceRequired: capacitor.capacitanceRequired } : {}),
+    currentAvg: 0,
+    currentRms: capacitor.rippleCurrentRms,
+    currentPeak: capacitor.rippleCurrentRms * Math.SQRT2,
+    blockingVoltage: capacitor.voltage,
+    commutatedVoltage: 0,
+    switchingHz: 0,
+    positionsPerPhase: capacitor.count,
+    phases: 1,
+    converters: ctx.converters ?? 1,
+    ...(ctx.topology ? { topology: ctx.topology } : {}),
+    ...(ctx.levels !== undefined ? { levels: ctx.levels } : {}),
+  }
+}

@@ -1,0 +1,113 @@
+// Shapes of the parts catalogue shared by the importer, the matcher, the server and the UI.
+// SI units throughout (V, A, Ω, J, K/W, F); temperatures in °C, lead times in days, prices per piece.
+
+import type { ColumnKey, Currency, Lifecycle, PackageConfiguration, PartKind, Technology } from '../../catalog/columns'
+
+export type { ColumnKey, Currency, Lifecycle, PackageConfiguration, PartKind, Technology } from '../../catalog/columns'
+
+/** Unit price from `minQuantity` pieces upwards. */
+export interface PriceBreak {
+  /** pieces */
+  minQuantity: number
+  /** per piece, in the part's currency */
+  unitPrice: number
+}
+
+export interface CatalogPart {
+  partNumber: string
+  manufacturer: string
+  kind: PartKind
+  /** Device positions one package covers (see PACKAGE_CONFIGURATIONS); 'single' for capacitors. */
+  packageConfiguration: PackageConfiguration
+  technology?: Technology
+  /** V, semiconductors: rated blocking voltage; capacitors: rated DC voltage. */
+  voltageRating: number
+  /** A, nominal current per switch or diode (semiconductors). */
+  currentRating?: number
+  /** V, switch on-state threshold (v = V0 + r·i). */
+  switchThresholdVoltage?: number
+  /** Ω, switch on-state slope resistance. */
+  switchSlopeResistance?: number
+  /** V, diode on-state threshold. */
+  diodeThresholdVoltage?: number
+  /** Ω, diode on-state slope resistance. */
+  diodeSlopeResistance?: number
+  /** J per event at the test voltage / current. */
+  turnOnEnergy?: number
+  /** J per event. */
+  turnOffEnergy?: number
+  /** J per event (diode reverse recovery). */
+  recoveryEnergy?: number
+  /** V, test voltage of the switching energies. */
+  energyReferenceVoltage?: number
+  /** A, test current of the switching energies. */
+  energyReferenceCurrent?: number
+  /** K/W, one switch. */
+  rthJunctionCaseSwitch?: number
+  /** K/W, one diode. */
+  rthJunctionCaseDiode?: number
+  /** K/W, per switch or diode. */
+  rthCaseHeatsink?: number
+  /** °C */
+  junctionTemperatureMax?: number
+  /** F */
+  capacitance?: number
+  /** A RMS */
+  rippleCurrentRating?: number
+  /** Ω */
+  esr?: number
+  /** Ascending by minQuantity; empty when the catalogue gives no price. */
+  priceBreaks: PriceBreak[]
+  currency?: Currency
+  /** pieces */
+  minimumOrderQuantity?: number
+  /** pieces */
+  stock?: number
+  /** days */
+  leadTimeDays?: number
+  lifecycle: Lifecycle
+  supplier?: string
+  datasheetUrl?: string
+  description?: string
+  /** Spreadsheet row the part was imported from (import preview only). */
+  sourceRow?: number
+}
+
+export type CellValue = string | number | null
+
+/** An uploaded sheet as read, before mapping: row numbers are the ones the user sees in the spreadsheet. */
+export interface RawTable {
+  sheetName: string
+  format: 'xlsx' | 'csv'
+  /** Row number of the header row (1-based). */
+  headerRowNumber: number
+  headers: string[]
+  rows: { rowNumber: number, cells: CellValue[] }[]
+  /** CSV only: the delimiter found. */
+  delimiter?: ',' | ';' | '\t'
+  /** Decimal separator the file suggests (';'-delimited CSV usually means decimal commas). */
+  suggestedDecimalSeparator?: '.' | ','
+  warnings: TableProblem[]
+  errors: TableProblem[]
+}
+
+/** A problem with the file: `row` as the user sees it, `column` a letter such as "C". */
+export interface TableProblem {
+  row?: number
+  column?: string
+  message: string
+}
+
+/** Which uploaded column (0-based index into RawTable.headers) feeds each catalogue column. */
+export type ColumnMapping = Partial<Record<ColumnKey, number | null>>
+
+export interface ValidationIssue {
+  /** Spreadsheet row as the user sees it (the header row for a problem with a whole column). */
+  row: number
+  /** Column letter of the uploaded sheet, e.g. "C"; "" when the column is not mapped. */
+  column: string
+  field: ColumnKey
+  message: string
+  /** 'error' rejects the row; 'warning' imports it but tells the user. */
+  severity: 'error' | 'warning'
+}

@@ -1,0 +1,255 @@
+// Capacitor stresses: DC-link (split or single), flying and H-bridge cell capacitors, from switched currents.
+import type { CompiledLeg } from './model'
+import type { CapacitorStress } from './types'
+
+const TWO_PI = 2 * Math.PI
+const SHIFT = TWO_PI / 3
+/** Default ripple target when none is given: 5 % of the capacitor's nominal voltage, peak-to-peak (common practice). */
+export const DEFAULT_RIPPLE_FRACTION = 0.05
+
+export interface CapacitorContext {
+  leg: CompiledLeg
+  /** clamped pole reference of phase a */
+  reference: (theta: number) => number
+  /** A */
+  currentPeak: number
+  /** rad */
+  phi: number
+  /** V, unit voltage at the worst-case and at the nominal DC link */
+  unitVoltageMax: number
+  unitVoltageNominal: number
+  fundamentalHz: number
+  switchingHz: number
+  /** V peak-to-peak, absolute; default DEFAULT_RIPPLE_FRACTION of each capacitor's nominal voltage */
+  rippleTarget?: number
+  points: number
+}
+
+interface CurrentFigures {
+  /** A, RMS of the current minus its mean */
+  rms: number
+  /** A, RMS of the switching-period-averaged current minus its mean (low-frequency ripple) */
+  lowFrequencyRms: number
+  /** A, mean (DC part) */
+  mean: number
+  /** C, peak-to-peak charge swing from the low-frequency current */
+  chargeLowFrequency: number
+  /** C, largest peak-to-peak charge swing within one switching period */
+  chargeSwitching: number
+}
+
+/**
+ * Split DC link of L−1 series capacitors (capacitor j between DC nodes j−1 and j) feeding three legs
+ * whose pole sits at DC node = level; PD carriers common to all phases. With a ripple-free DC source
+ * current (Kolar & Round's assumption) capacitor j carries −Σ(currents drawn from nodes ≥ j) plus a
+ * constant; in each switching period the carrier value c ∈ [0, 1] sweeps the joint states in order.
+ */
+export function splitLinkCurrents(L: number, reference: (theta: number) => number, currentPeak: number, phi: number, points: number, switchingHz: number, fundamentalHz: number): CurrentFigures[] {
+  const J = L - 1
+  const sum = new Float64Array(J)
+  const sumSq = new Float64Array(J)
+  const series = new Float64Array(J * points)
+  const swing = new Float64Array(J)
+  const base = [0, 0, 0]
+  const frac = [0, 0, 0]
+  const cur = [0, 0, 0]
+  const order = [0, 1, 2]
+  const bounds = [0, 0, 0, 0, 1]
+  const dTheta = TWO_PI / points
+
+  for (let k = 0; k < points; k++) {
+    const theta = (k + 0.5) * dTheta
+    for (let x = 0; x < 3; x++) {
+      const tx = theta - x * SHIFT
+      const r = ((1 + reference(tx)) * (L - 1)) / 2
+      const lo = Math.max(0, Math.min(Math.floor(r), L - 2))
+      base[x] = lo
+      frac[x] = r - lo
+      cur[x] = currentPeak * Math.sin(tx - phi)
+    }
+    sort3(order, frac)
+    bounds[1] = frac[order[0]!]!
+    bounds[2] = frac[order[1]!]!
+    bounds[3] = frac[order[2]!]!
+    for (let j = 1; j <= J; j++) {
+      // Interval currents (c rising through the sorted duty fractions) and their average.
+      let avg = 0
+      let ms = 0
+      const values = [0, 0, 0, 0]
+      for (let q = 0; q < 4; q++) {
+        const len = bounds[q + 1]! - bounds[q]!
+        if (len <= 0) continue
+        let ic = 0
+        for (let x = 0; x < 3; x++) {
+          const level = base[x]! + (frac[x]! >= bounds[q + 1]! ? 1 : 0)
+          if (level >= j) ic -= cur[x]!
+        }
+        values[q] = ic
+        avg += len * ic
+        ms += len * ic * ic
+      }
+      let acc = 0
+      let hi = 0
+      let lo = 0
+      for (let q = 0; q < 4; q++) {
+        const len = bounds[q + 1]! - bounds[q]!
+        if (len <= 0) continue
+        acc += len * (values[q]! - avg)
+        if (acc > hi) hi = acc
+        if (acc < lo) lo = acc
+      }
+      const dq = ((hi - lo) / (2 * switchingHz))
+      if (dq > swing[j - 1]!) swing[j - 1] = dq
+      sum[j - 1]! += avg
+      sumSq[j - 1]! += ms
+      series[(j - 1) * points + k] = avg
+    }
+  }
+  return Array.from({ length: J }, (_, j) => figures(sum[j]! / points, sumSq[j]! / points, series.subarray(j * points, (j + 1) * points), swing[j]!, fundamentalHz))
+}
+
+/** Orders the three phase indices by ascending duty fraction (no allocation in the hot loop). */
+function sort3(order: number[], key: number[]): void {
+  order[0] = 0; order[1] = 1; order[2] = 2
+  const swap = (a: number, b: number) => {
+    if (key[order[a]!]! > key[order[b]!]!) { const t = order[a]!; order[a] = order[b]!; order[b] = t }
+  }
+  swap(0, 1); swap(1, 2); swap(0, 1)
+}
+
+function figures(mean: number, meanSquare: number, averaged: Float64Array, chargeSwitching: number, fundamentalHz: number): CurrentFigures {
+  const n = averaged.length
+  const dt = 1 / (fundamentalHz * n)
+  let lf = 0
+  let q = 0
+  let qMax = 0
+  let qMin = 0
+  for (let k = 0; k < n; k++) {
+    const ac = averaged[k]! - mean
+    lf += ac * ac
+    q += ac * dt
+    if (q > qMax) qMax = q
+    if (q < qMin) qMin = q
+  }
+  return {
+    rms: Math.sqrt(Math.max(0, meanSquare - mean * mean)),
+    lowFrequencyRms: Math.sqrt(lf / n),
+    mean,
+    chargeLowFrequency: qMax - qMin,
+    chargeSwitching,
+  }
+}
+
+/**
+ * Flying capacitor between two adjacent cells under phase-shifted carriers (shift 1/(N−1) of a
+ * period): it carries ±i while the two cells' states differ, 2·min(d, 1/(N−1), 1 − d) of each
+ * switching period with cell duty d = (1 + m)/2; its switching-period average is zero.
+ */
+function flyingCurrents(N: number, reference: (theta: number) => number, currentPeak: number, phi: number, points: number, switchingHz: number): CurrentFigures {
+  const delta = 1 / (N - 1)
+  let ms = 0
+  let swing = 0
+  for (let k = 0; k < points; k++) {
+    const theta = ((k + 0.5) * TWO_PI) / points
+    const d = (1 + reference(theta)) / 2
+    const i = currentPeak * Math.sin(theta - phi)
+    const t = Math.min(d, delta, 1 - d)
+    ms += 2 * t * i * i
+    swing = Math.max(swing, (Math.abs(i) * t) / switchingHz)
+  }
+  return { rms: Math.sqrt(ms / points), lowFrequencyRms: 0, mean: 0, chargeLowFrequency: 0, chargeSwitching: swing }
+}
+
+/**
+ * H-bridge cell capacitor under unipolar PWM (legs at duties (1 ± m)/2 on one carrier): it carries
+ * the phase current while the cell outputs ±V_cell, |m| of the period; the average m·i holds the
+ * second harmonic M·Î/(2√2) RMS that dominates; the cell's DC source is taken ripple-free.
+ */
+function cellCurrents(reference: (theta: number) => number, currentPeak: number, phi: number, points: number, switchingHz: number, fundamentalHz: number): CurrentFigures {
+  const series = new Float64Array(points)
+  let sum = 0
+  let sumSq = 0
+  let swing = 0
+  for (let k = 0; k < points; k++) {
+    const theta = ((k + 0.5) * TWO_PI) / points
+    const m = reference(theta)
+    const i = currentPeak * Math.sin(theta - phi)
+    const am = Math.abs(m)
+    series[k] = m * i
+    sum += m * i
+    sumSq += am * i * i
+    swing = Math.max(swing, (Math.abs(i) * am * (1 - am)) / (2 * switchingHz))
+  }
+  return figures(sum / points, sumSq / points, series, swing, fundamentalHz)
+}
+
+export interface CapacitorOutcome {
+  capacitors: CapacitorStress[]
+  warnings: string[]
+}
+
+/** Stress of every capacitor position of the converter. */
+export function capacitorStresses(ctx: CapacitorContext): CapacitorOutcome {
+  const { leg } = ctx
+  const defs = leg.def.capacitors
+  const warnings: string[] = []
+  const result: CapacitorStress[] = []
+  const L = leg.def.modelLevels
+  const build = (def: (typeof defs)[number], f: CurrentFigures, method: string, source: string): CapacitorStress => {
+    const nominal = def.voltageUnits * ctx.unitVoltageNominal
+    const target = ctx.rippleTarget ?? DEFAULT_RIPPLE_FRACTION * nominal
+    const charge = f.chargeLowFrequency + f.chargeSwitching
+    return {
+      name: def.name,
+      kind: def.kind,
+      count: def.countInConverter,
+      voltage: def.voltageUnits * ctx.unitVoltageMax,
+      rippleCurrentRms: f.rms,
+      lowFrequencyRippleRms: f.lowFrequencyRms,
+      ...(def.seriesCount !== undefined ? { seriesCount: def.seriesCount } : {}),
+      capacitanceRequired: target > 0 ? charge / target : 0,
+      rippleTarget: target,
+      provenance: { method, source },
+    }
+  }
+  const sizing = 'capacitance = (low-frequency + switching charge swing) / peak-to-peak ripple target'
+
+  switch (leg.def.capacitorModel) {
+    case 'split': {
+      const all = splitLinkCurrents(L, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz)
+      for (const def of defs) {
+        const f = all[(def.splitIndex ?? 1) - 1]!
+        const source = L === 2 ? 'J. W. Kolar, S. D. Round, IEE Proc. EPA 153(4) 2006' : 'first principles (switched DC-side currents); neutral-point current after Nabae, Takahashi, Akagi, IEEE TIA 1981'
+        result.push(build(def, f, `Mean square of the switched DC-side current of the three legs over each switching period (common carriers), minus its mean, ripple-free DC source; ${sizing}.`, source))
+      }
+      // Equal means ⇔ the capacitor voltages hold themselves; with N > 3 they generally cannot.
+      const scale = Math.max(ctx.currentPeak, 1e-12)
+      const drift = all.some(f => Math.abs(f.mean - all[all.length - 1]!.mean) > 5e-3 * scale)
+      if (drift) warnings.push(`DC-link capacitor voltages do not balance themselves at this operating point (diode-clamped leg with ${L} levels, real power flowing); ripple currents assume each capacitor is held by its own supply or a balancing circuit.`)
+      break
+    }
+    case 'flying': {
+      const link = splitLinkCurrents(2, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz)[0]!
+      const fly = flyingCurrents(L, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz)
+      for (const def of defs) {
+        if (def.kind === 'dc-link') {
+          result.push(build(def, link, `DC-link string carries the current switched by the outermost cell (its carrier common to the three phases), as a two-level link; ${sizing}.`, 'J. W. Kolar, S. D. Round, IEE Proc. EPA 153(4) 2006 (same form); T. A. Meynard, H. Foch, IEEE PESC 1992 (structure)'))
+        }
+        else {
+          result.push(build(def, fly, `Carries ±i while its two adjacent cells differ: 2·min(d, 1/(N−1), 1−d) of each period under phase-shifted carriers; ${sizing}.`, 'first principles; T. A. Meynard, H. Foch, IEEE PESC 1992 (structure, voltages)'))
+        }
+      }
+      break
+    }
+    case 'cell': {
+      const f = cellCurrents(ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz)
+      for (const def of defs) {
+        result.push(build(def, f, `Cell current (s_A − s_B)·i under unipolar PWM, mean square |m|·i² per period, minus its mean; second harmonic M·Î/(2√2) dominates; ${sizing}.`, 'first principles (cell power balance); common practice'))
+      }
+      break
+    }
+    case 'none':
+      break
+  }
+  return { capacitors: result, warnings }
+}

@@ -1,0 +1,225 @@
+// evaluateDesign: several operating points per converter → envelope per position → required ratings after derating.
+import { EngineInputError } from './errors'
+import { evaluateStress } from './stress'
+import type {
+  CapacitorEnvelope, ConverterInput, ConverterResult, DeratingPolicy, DesignInput, DesignResult, DeviceEnvelope, OperatingPoint, StressInput, StressResult,
+} from './types'
+import { resolveStressInput } from './validate'
+
+/**
+ * Common practice (ENGINEERING.md "Derating"; no single source): DC link at ≤ 65 % of the
+ * semiconductor rating, peak current at or below the nominal current, capacitors at their rated
+ * voltage (1.0: the rating already covers the worst-case DC link; ripple is added on top by the part's
+ * own ripple rating) and ripple current at or below the rating; 25 °C junction margin, 80 °C heatsink.
+ */
+export const defaultDerating: DeratingPolicy = {
+  semiconductorVoltageUtilisation: 0.65,
+  semiconductorCurrentUtilisation: 1.0,
+  capacitorVoltageUtilisation: 1.0,
+  capacitorRippleUtilisation: 1.0,
+  junctionMarginC: 25,
+  heatsinkTemperatureC: 80,
+}
+
+/** V, blocking-voltage classes of power semiconductors (common practice). */
+export const STANDARD_VOLTAGE_CLASSES = [600, 650, 1200, 1700, 2500, 3300, 4500, 6500] as const
+
+const MAX_POINTS = 50
+const POINT_FIELDS = new Set(['name', 'lineVoltageRms', 'phaseCurrentRms', 'powerFactor', 'fundamentalHz'])
+
+function resolveDerating(given: Partial<DeratingPolicy> | undefined): DeratingPolicy {
+  if (given !== undefined && (typeof given !== 'object' || given === null)) throw new EngineInputError('derating', 'derating must be an object')
+  const policy = { ...defaultDerating, ...(given ?? {}) }
+  const ranges: Record<keyof DeratingPolicy, [number, number, string]> = {
+    semiconductorVoltageUtilisation: [0, 1, 'fraction'],
+    semiconductorCurrentUtilisation: [0, 2, 'fraction'],
+    capacitorVoltageUtilisation: [0, 1, 'fraction'],
+    capacitorRippleUtilisation: [0, 2, 'fraction'],
+    junctionMarginC: [0, 100, '°C'],
+    heatsinkTemperatureC: [-40, 150, '°C'],
+  }
+  for (const [key, [min, max, unit]] of Object.entries(ranges) as [keyof DeratingPolicy, [number, number, string]][]) {
+    const v = policy[key]
+    const exclusiveMin = unit === 'fraction'
+    if (typeof v !== 'number' || !Number.isFinite(v) || (exclusiveMin ? v <= min : v < min) || v > max) {
+      throw new EngineInputError(`derating.${key}`, `derating.${key} must be ${exclusiveMin ? 'above' : 'at least'} ${min} and at most ${max} (${unit})`)
+    }
+  }
+  return policy
+}
+
+/** Smallest standard class at or above the required rating; undefined when even 6500 V is short. */
+export function voltageClassFor(required: number): number | undefined {
+  return STANDARD_VOLTAGE_CLASSES.find(c => c >= required - 1e-9)
+}
+
+type PointResult = StressResult & { pointName: string }
+interface PointInput { pointName: string; at: string; input: StressInput }
+
+/** The single-point inputs of a converter, named and checked for shape; field paths for errors. */
+function pointInputs(conv: ConverterInput, path: string, rippleTarget: number | undefined): PointInput[] {
+  if (typeof conv !== 'object' || conv === null) throw new EngineInputError(path, `${path} must be an object`)
+  const ops = conv.operatingPoints as unknown
+  if (!Array.isArray(ops) || ops.length < 1 || ops.length > MAX_POINTS) {
+    throw new EngineInputError(`${path}.operatingPoints`, `${path}.operatingPoints must hold 1…${MAX_POINTS} operating points`)
+  }
+  const seen = new Set<string>()
+  const { operatingPoints: _omit, ...converter } = conv
+  return ops.map((op: OperatingPoint, i: number) => {
+    const at = `${path}.operatingPoints.${i}`
+    if (typeof op !== 'object' || op === null) throw new EngineInputError(at, `${at} must be an object`)
+    if (op.name !== undefined && (typeof op.name !== 'string' || op.name.trim() === '')) throw new EngineInputError(`${at}.name`, 'name must be a non-empty string')
+    const pointName = op.name ?? `Point ${i + 1}`
+    if (seen.has(pointName)) throw new EngineInputError(`${at}.name`, `operating point name "${pointName}" is used twice`)
+    seen.add(pointName)
+    const input: StressInput = {
+      ...converter,
+      name: pointName,
+      lineVoltageRms: op.lineVoltageRms,
+      phaseCurrentRms: op.phaseCurrentRms,
+      powerFactor: op.powerFactor,
+      fundamentalHz: op.fundamentalHz,
+      ...(rippleTarget !== undefined ? { capacitorRippleTarget: rippleTarget } : {}),
+    }
+    return { pointName, at, input }
+  })
+}
+
+/** Runs `f`, re-rooting an EngineInputError at the point (point fields) or the converter (the rest). */
+function atPoint<T>(p: PointInput, path: string, f: () => T): T {
+  try {
+    return f()
+  }
+  catch (e) {
+    if (e instanceof EngineInputError) throw e.under(POINT_FIELDS.has(e.field) ? p.at : path)
+    throw e
+  }
+}
+
+function evaluatePoints(conv: ConverterInput, path: string, rippleTarget: number | undefined): PointResult[] {
+  return pointInputs(conv, path, rippleTarget).map(p => ({ ...atPoint(p, path, () => evaluateStress(p.input)), pointName: p.pointName }))
+}
+
+function envelopeOf(points: PointResult[], derating: DeratingPolicy): ConverterResult['envelope'] {
+  const first = points[0]!
+  const devices: DeviceEnvelope[] = first.devices.map((d0, k) => {
+    const worst = { blockingVoltage: first.pointName, currentAvg: first.pointName, currentRms: first.pointName, currentPeak: first.pointName }
+    const env = { ...d0 }
+    for (const pt of points) {
+      const d = pt.devices[k]!
+      if (d.blockingVoltageWithOvershoot > env.blockingVoltageWithOvershoot) { env.blockingVoltageWithOvershoot = d.blockingVoltageWithOvershoot; worst.blockingVoltage = pt.pointName }
+      env.blockingVoltage = Math.max(env.blockingVoltage, d.blockingVoltage)
+      if (d.currentAvg > env.currentAvg) { env.currentAvg = d.currentAvg; worst.currentAvg = pt.pointName }
+      if (d.currentRms > env.currentRms) { env.currentRms = d.currentRms; worst.currentRms = pt.pointName }
+      if (d.currentPeak > env.currentPeak) { env.currentPeak = d.currentPeak; worst.currentPeak = pt.pointName }
+      if (d.commutatedVoltage !== undefined) env.commutatedVoltage = Math.max(env.commutatedVoltage ?? 0, d.commutatedVoltage)
+      if (d.seriesCount !== undefined) env.seriesCount = Math.max(env.seriesCount ?? 1, d.seriesCount)
+    }
+    // A clamp-diode stack is rated per unit diode: its share of the stack's voltage.
+    const perUnit = env.blockingVoltageWithOvershoot / (env.kind === 'clamp-diode' ? (env.seriesCount ?? 1) : 1)
+    const requiredVoltageRating = perUnit / derating.semiconductorVoltageUtilisation
+    const voltageClass = voltageClassFor(requiredVoltageRating)
+    return {
+      ...env,
+      worstPoint: worst,
+      requiredVoltageRating,
+      requiredCurrentRating: env.currentPeak / derating.semiconductorCurrentUtilisation,
+      ...(voltageClass !== undefined ? { voltageClass } : {}),
+      provenance: {
+        method: `Maximum over ${points.length} operating point(s); required voltage = blocking with overshoot${env.kind === 'clamp-diode' ? ' per unit diode' : ''} / ${derating.semiconductorVoltageUtilisation}, required current = peak / ${derating.semiconductorCurrentUtilisation}. Per point: ${d0.provenance.method}`,
+        source: `${d0.provenance.source}; derating: common practice`,
+      },
+    }
+  })
+  const capacitors: CapacitorEnvelope[] = first.capacitors.map((c0, k) => {
+    const env = { ...c0 }
+    const worst = { voltage: first.pointName, rippleCurrentRms: first.pointName, capacitanceRequired: first.pointName }
+    for (const pt of points) {
+      const c = pt.capacitors[k]!
+      if (c.voltage > env.voltage) { env.voltage = c.voltage; worst.voltage = pt.pointName }
+      if (c.rippleCurrentRms > env.rippleCurrentRms) { env.rippleCurrentRms = c.rippleCurrentRms; worst.rippleCurrentRms = pt.pointName }
+      if ((c.capacitanceRequired ?? 0) > (env.capacitanceRequired ?? 0)) { env.capacitanceRequired = c.capacitanceRequired; worst.capacitanceRequired = pt.pointName }
+      if (c.lowFrequencyRippleRms !== undefined) env.lowFrequencyRippleRms = Math.max(env.lowFrequencyRippleRms ?? 0, c.lowFrequencyRippleRms)
+    }
+    return {
+      ...env,
+      worstPoint: worst,
+      requiredVoltageRating: env.voltage / derating.capacitorVoltageUtilisation,
+      requiredRippleRating: env.rippleCurrentRms / derating.capacitorRippleUtilisation,
+      provenance: { method: `Maximum over ${points.length} operating point(s); required ratings = voltage / ${derating.capacitorVoltageUtilisation}, ripple / ${derating.capacitorRippleUtilisation}. Per point: ${c0.provenance.method}`, source: `${c0.provenance.source}; derating: common practice` },
+    }
+  })
+  return { devices, capacitors }
+}
+
+function converterResult(side: 'machine' | 'grid', conv: ConverterInput, path: string, derating: DeratingPolicy, rippleTarget: number | undefined): ConverterResult {
+  const points = evaluatePoints(conv, path, rippleTarget)
+  const warnings = Array.from(new Set(points.flatMap(p => p.warnings.map(w => `${p.pointName}: ${w}`))))
+  return { side, points, envelope: envelopeOf(points, derating), warnings }
+}
+
+/** The grid side shares the DC link: same topology and DC link, levels taken from the machine side when absent. */
+function gridInput(machine: ConverterInput, grid: ConverterInput): ConverterInput {
+  if (typeof grid !== 'object' || grid === null) throw new EngineInputError('gridSide', 'gridSide must be an object')
+  if (machine.topology === 'matrix') throw new EngineInputError('gridSide', 'a matrix converter has no DC link to share with a grid-side converter')
+  if (grid.topology !== machine.topology) throw new EngineInputError('gridSide.topology', `gridSide.topology must equal machineSide.topology (${machine.topology}): the two converters share the DC link`)
+  for (const key of ['levels', 'dcVoltage', 'dcVoltageMax'] as const) {
+    if (grid[key] !== undefined && machine[key] !== undefined && grid[key] !== machine[key]) {
+      throw new EngineInputError(`gridSide.${key}`, `gridSide.${key} must equal machineSide.${key} (${machine[key]}): shared DC link`)
+    }
+  }
+  return { ...grid, levels: grid.levels ?? machine.levels, dcVoltage: grid.dcVoltage ?? machine.dcVoltage, dcVoltageMax: grid.dcVoltageMax ?? machine.dcVoltageMax }
+}
+
+function designPreamble(input: DesignInput): { derating: DeratingPolicy; rippleTarget: number | undefined; grid?: ConverterInput } {
+  if (typeof input !== 'object' || input === null) throw new EngineInputError('input', 'design input must be an object')
+  const derating = resolveDerating(input.derating)
+  const rippleTarget = input.capacitorRippleTarget
+  if (rippleTarget !== undefined && (typeof rippleTarget !== 'number' || !Number.isFinite(rippleTarget) || rippleTarget <= 0)) {
+    throw new EngineInputError('capacitorRippleTarget', 'capacitorRippleTarget must be a number above 0 (V peak-to-peak)')
+  }
+  if (typeof input.machineSide !== 'object' || input.machineSide === null) throw new EngineInputError('machineSide', 'machineSide is required')
+  return { derating, rippleTarget, ...(input.gridSide !== undefined ? { grid: gridInput(input.machineSide, input.gridSide) } : {}) }
+}
+
+/** Checks a design input without evaluating it (for form and route validation); throws EngineInputError naming the field. */
+export function checkDesignInput(input: DesignInput): void {
+  const { rippleTarget, grid } = designPreamble(input)
+  const sides: [ConverterInput, string][] = [[input.machineSide, 'machineSide'], ...(grid ? [[grid, 'gridSide'] as [ConverterInput, string]] : [])]
+  for (const [conv, path] of sides) {
+    for (const p of pointInputs(conv, path, rippleTarget)) atPoint(p, path, () => resolveStressInput(p.input))
+  }
+}
+
+/** Evaluates every operating point of the machine side (and grid side), the envelopes and required ratings. */
+export function evaluateDesign(input: DesignInput): DesignResult {
+  const { derating, rippleTarget, grid } = designPreamble(input)
+  const converters = [converterResult('machine', input.machineSide, 'machineSide', derating, rippleTarget)]
+  if (grid) converters.push(converterResult('grid', grid, 'gridSide', derating, rippleTarget))
+
+  const warnings: string[] = []
+  for (const c of converters) {
+    const series = c.envelope.devices.filter(d => d.voltageClass === undefined)
+    if (series.length > 0) {
+      const worst = Math.max(...series.map(d => d.requiredVoltageRating))
+      warnings.push(`${c.side === 'machine' ? 'Machine' : 'Grid'} side: ${series.map(d => d.name).join(', ')} need a ${Math.ceil(worst)} V rating, above the 6500 V class: series-connected devices (or more levels) are needed.`)
+    }
+    warnings.push(...c.warnings.map(w => `${c.side === 'machine' ? 'Machine' : 'Grid'} side, ${w}`))
+  }
+  if (converters.length === 2) {
+    const [m, g] = converters as [ConverterResult, ConverterResult]
+    const pm = maxPower(input.machineSide, m)
+    const pg = maxPower(grid!, g)
+    if (pg < 0.95 * pm) warnings.push(`Grid side carries at most ${Math.round(pg / 1000)} kW of real power but the machine side up to ${Math.round(pm / 1000)} kW: the shared DC link cannot balance (add or uprate grid-side operating points).`)
+    warnings.push('Shared DC link: capacitor ripple currents are listed per converter; with unsynchronised carriers the link carries about the root-sum-square of both.')
+  }
+  return { converters, derating, warnings }
+}
+
+/** W, largest real power magnitude √3·V_LL,1·I·cos φ over a converter's points. */
+function maxPower(conv: ConverterInput, result: ConverterResult): number {
+  return Math.max(...result.points.map((p, i) => {
+    const op = conv.operatingPoints[i]!
+    return Math.abs(Math.sqrt(3) * p.lineVoltageFundamentalRms * op.phaseCurrentRms * op.powerFactor)
+  }))
+}

@@ -1,0 +1,13 @@
+// Public surface of the stress engine (pure TypeScript: no Nuxt, DB or browser imports).
+export * from './types'
+export { EngineInputError } from './errors'
+export { evaluateStress, THD_MIN_ORDER, type EvaluateOptions } from './stress'
+export { evaluateDesign, defaultDerating, STANDARD_VOLTAGE_CLASSES, voltageClassFor } from './design'
+export { checkDesignInput, checkStressInput } from './check'
+export { legLayout, type LegLayout, type LegLayoutItem } from './layout'
+export { topologies, topologyById } from './topologies'
+export { linearLimit, SIX_STEP_INDEX } from './modulation'
+export { DEFAULT_INTEGRATION_POINTS } from './integrate'
+export { DEFAULT_RIPPLE_FRACTION } from './capacitors'
+export { blockingFromStates, type TopologyDefinition, type LegDefinition, type PositionDef, type StateDef, type CapacitorDef } from './model'
+export { legFor } from './validate'

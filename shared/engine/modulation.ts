@@ -1,0 +1,44 @@
+// Normalised pole-voltage references m(θ) (per unit of the half DC link) for each modulation.
+import type { Modulation } from './types'
+
+const TWO_PI = 2 * Math.PI
+const SHIFT = TWO_PI / 3
+
+/** Linear-range limit of the reference amplitude: sine 1; third-harmonic (1/6) and space vector 2/√3. */
+export const linearLimit: Record<Exclude<Modulation, 'six-step'>, number> = {
+  'sine': 1,
+  'third-harmonic': 2 / Math.sqrt(3),
+  'space-vector': 2 / Math.sqrt(3),
+}
+
+/** Fundamental of the six-step pole voltage per unit of V_dc/2 (square wave: 4/π). */
+export const SIX_STEP_INDEX = 4 / Math.PI
+
+/**
+ * Reference of phase a at angle θ (rad) with fundamental amplitude `a`, clamped to [−1, 1]
+ * (clamping only bites past the linear range, where the caller warns). Other phases: θ − 2πk/3.
+ */
+export function makeReference(modulation: Modulation, a: number): (theta: number) => number {
+  switch (modulation) {
+    case 'six-step':
+      return theta => (Math.sin(theta) >= 0 ? 1 : -1)
+    case 'sine':
+      return theta => clamp(a * Math.sin(theta))
+    case 'third-harmonic':
+      // 1/6 of the fundamental at three times its frequency flattens the peak by √3/2.
+      return theta => clamp(a * (Math.sin(theta) + Math.sin(3 * theta) / 6))
+    case 'space-vector':
+      // Min-max common-mode injection: the same linear range and duties as space-vector modulation.
+      return (theta) => {
+        const sa = Math.sin(theta)
+        const sb = Math.sin(theta - SHIFT)
+        const sc = Math.sin(theta + SHIFT)
+        const mid = (Math.max(sa, sb, sc) + Math.min(sa, sb, sc)) / 2
+        return clamp(a * (sa - mid))
+      }
+  }
+}
+
+function clamp(m: number): number {
+  return m > 1 ? 1 : m < -1 ? -1 : m
+}

@@ -1,0 +1,232 @@
+// evaluateStress: one operating point of one converter → stresses of every device and capacitor position.
+import { capacitorStresses } from './capacitors'
+import { EngineInputError } from './errors'
+import { isPowerOfTwo } from './fft'
+import { DEFAULT_INTEGRATION_POINTS, integrateLeg } from './integrate'
+import { linearLimit, makeReference, SIX_STEP_INDEX } from './modulation'
+import { harmonicAmplitudes, synthesise, totalHarmonicDistortion } from './synth'
+import type { CompiledLeg } from './model'
+import type { DeviceStress, SpectrumLine, StressInput, StressResult } from './types'
+import { resolveStressInput, type ResolvedInput } from './validate'
+
+export interface EvaluateOptions {
+  /** add one fundamental period of pole / line voltage and phase current */
+  includeWaveform?: boolean
+  /** add the line-voltage spectrum (orders 1…thdMaxOrder) */
+  includeSpectrum?: boolean
+  /** samples per fundamental period for the switched waveforms (rounded up to a power of two, 256…65536) */
+  samples?: number
+  /** integration points per fundamental period for the averaged currents (default 2048) */
+  integrationPoints?: number
+}
+
+const MIN_SAMPLES = 256
+const MAX_SAMPLES = 65536
+/** THD covers orders 2…max(THD_MIN_ORDER, 2.5 · effective carrier ratio), limited to samples/4. */
+export const THD_MIN_ORDER = 250
+const SPECTRUM_FLOOR = 1e-4
+
+/** Voltages that scale the per-unit tables of a topology. */
+interface Scales {
+  /** V, base of the modulation index (half DC link; cells × V_cell; matrix: virtual half link 0.75·V̂_in,phase) */
+  halfLink: number
+  /** V, unit voltage of the state table at the worst-case and the nominal supply */
+  unitMax: number
+  unitNominal: number
+  /** V switched by one carrier comparison in the synthesis */
+  stepVoltage: number
+  /** reported modulation index per unit of reference amplitude (matrix: transfer ratio = 3/4 of the virtual-inverter amplitude) */
+  indexPerAmplitude: number
+  /** effective carrier ratio of the line voltage (f_sw,eff / f) */
+  effectiveRatio: number
+}
+
+function scalesFor(p: ResolvedInput): Scales {
+  const L = p.leg.def.modelLevels
+  const mf = p.switchingHz / p.fundamentalHz
+  switch (p.topology.supply) {
+    case 'dc-link': {
+      const ratio = p.modulation === 'six-step' ? 1 : p.leg.def.carrier === 'phase-shifted' ? (L - 1) * mf : mf
+      return { halfLink: p.dcVoltage / 2, unitMax: p.dcVoltageMax / (L - 1), unitNominal: p.dcVoltage / (L - 1), stepVoltage: p.dcVoltage / (p.modulation === 'six-step' ? 1 : L - 1), indexPerAmplitude: 1, effectiveRatio: ratio }
+    }
+    case 'cell': {
+      const cells = p.leg.def.cellsPerPhase ?? 1
+      return { halfLink: cells * p.dcVoltage, unitMax: p.dcVoltageMax, unitNominal: p.dcVoltage, stepVoltage: p.dcVoltage, indexPerAmplitude: 1, effectiveRatio: 2 * cells * mf }
+    }
+    case 'ac-input': {
+      // Indirect model: virtual DC link 1.5·V̂_in,phase (the largest ripple-free value), so the output phase peak is at most 0.75·V̂_in,phase × amplitude.
+      const peakPhase = (Math.SQRT2 * p.inputLineVoltageRms) / Math.sqrt(3)
+      const unit = Math.SQRT2 * p.inputLineVoltageRms
+      return { halfLink: 0.75 * peakPhase, unitMax: unit, unitNominal: unit, stepVoltage: 1.5 * peakPhase, indexPerAmplitude: 0.75, effectiveRatio: mf }
+    }
+  }
+}
+
+function nextPowerOfTwo(n: number): number {
+  return 2 ** Math.ceil(Math.log2(Math.max(1, n)))
+}
+
+function checkOptions(options: EvaluateOptions): void {
+  if (options.samples !== undefined && (!Number.isFinite(options.samples) || options.samples < 1)) throw new EngineInputError('samples', 'samples must be a positive number')
+  const n = options.integrationPoints
+  if (n !== undefined && (!Number.isInteger(n) || n < 64 || n > 1 << 20 || n % 2 !== 0)) throw new EngineInputError('integrationPoints', 'integrationPoints must be an even integer 64…1048576')
+}
+
+const fmt = (v: number, digits = 3) => Number(v.toPrecision(digits)).toString()
+
+/** Evaluates one operating point. Throws EngineInputError for input it cannot evaluate. */
+export function evaluateStress(input: StressInput, options: EvaluateOptions = {}): StressResult {
+  checkOptions(options)
+  const p = resolveStressInput(input)
+  const { leg, topology } = p
+  const warnings = [...p.warnings]
+  const notes: string[] = []
+  const sixStep = p.modulation === 'six-step'
+  const scales = scalesFor(p)
+  const points = options.integrationPoints ?? DEFAULT_INTEGRATION_POINTS
+
+  // Reference amplitude per unit of the half link, the index to report, and the over-modulation check.
+  const requestedPhasePeak = (Math.SQRT2 * p.lineVoltageRms) / Math.sqrt(3)
+  const amplitude = sixStep ? SIX_STEP_INDEX : requestedPhasePeak / scales.halfLink
+  const modulationIndex = amplitude * scales.indexPerAmplitude
+  const reference = makeReference(p.modulation, amplitude)
+
+  const phi = Math.acos(p.powerFactor)
+  const currentPeak = Math.SQRT2 * p.phaseCurrentRms
+  const currents = integrateLeg(leg, reference, currentPeak, phi, points)
+  const lineVoltageFundamentalRms = (Math.sqrt(3) * currents.referenceFundamental * scales.halfLink) / Math.SQRT2
+
+  if (!sixStep) {
+    const limit = linearLimit[p.modulation as keyof typeof linearLimit]
+    if (amplitude > limit * (1 + 1e-9)) {
+      const actual = `the output fundamental is ${fmt(lineVoltageFundamentalRms)} V line-to-line RMS instead of the requested ${fmt(p.lineVoltageRms)} V`
+      warnings.push(topology.supply === 'ac-input'
+        ? `Over-modulation: voltage transfer ratio ${fmt(modulationIndex)} exceeds the matrix converter's linear limit ${fmt(limit * scales.indexPerAmplitude)} with ${p.modulation} modulation (at most √3/2 ≈ 0.866, Wheeler et al., IEEE TIE 2002); the reference is clamped and ${actual}.`
+        : `Over-modulation: modulation index ${fmt(modulationIndex)} exceeds the linear limit ${fmt(limit)} of ${p.modulation} modulation; the reference is clamped and ${actual}.`)
+    }
+  }
+
+  const devices = deviceStresses(p, leg, currents, scales, points)
+  const caps = capacitorStresses({
+    leg,
+    reference,
+    currentPeak,
+    phi,
+    unitVoltageMax: scales.unitMax,
+    unitVoltageNominal: scales.unitNominal,
+    fundamentalHz: p.fundamentalHz,
+    switchingHz: p.switchingHz,
+    rippleTarget: p.capacitorRippleTarget,
+    points,
+  })
+  warnings.push(...caps.warnings)
+
+  // Switched waveforms at the actual carrier ratio → spectrum and THD.
+  const maxOrderWanted = Math.max(THD_MIN_ORDER, Math.ceil(2.5 * scales.effectiveRatio))
+  const mf = p.switchingHz / p.fundamentalHz
+  let samples = options.samples !== undefined
+    ? nextPowerOfTwo(options.samples)
+    : nextPowerOfTwo(Math.max(4 * maxOrderWanted, 16 * mf, 4096))
+  samples = Math.min(MAX_SAMPLES, Math.max(MIN_SAMPLES, samples))
+  if (!isPowerOfTwo(samples)) throw new Error('samples must be a power of two')
+  const thdMaxOrder = Math.min(maxOrderWanted, samples / 4)
+  const synthesis = synthesise({ leg, reference, sixStep, frequencyRatio: mf, stepVoltage: scales.stepVoltage, samples })
+  const amplitudes = harmonicAmplitudes(synthesis.line, thdMaxOrder)
+  let lineVoltageThd = totalHarmonicDistortion(amplitudes)
+  if (amplitudes[1]! <= 1e-9 * Math.max(scales.halfLink, 1e-9)) {
+    lineVoltageThd = 0
+    warnings.push('No fundamental output voltage: THD is not defined and reported as 0.')
+  }
+  notes.push(`Line-voltage THD over harmonic orders 2…${thdMaxOrder} from ${samples} samples per period (f_sw/f = ${fmt(mf, 4)}${sixStep ? ', six-step' : ''}).`)
+  if (!sixStep && thdMaxOrder < 1.2 * scales.effectiveRatio) notes.push(`The first switching harmonics (order ≈ ${Math.round(scales.effectiveRatio)}) lie beyond order ${thdMaxOrder}; THD covers the low-order distortion only.`)
+  if (topology.patternNote) notes.push(topology.patternNote)
+  if (topology.supply === 'ac-input') notes.push('No DC link: input filter capacitors are not sized by the engine; the spectrum ignores input-frequency components.')
+
+  const result: StressResult = {
+    topology: topology.id,
+    levels: p.levels,
+    modulationIndex,
+    devices,
+    capacitors: caps.capacitors,
+    lineVoltageFundamentalRms,
+    lineVoltageThd,
+    thdMaxOrder,
+    warnings,
+    notes,
+    counts: countsOf(devices, caps.capacitors),
+  }
+  if (options.includeSpectrum) {
+    const lines: SpectrumLine[] = []
+    const floor = SPECTRUM_FLOOR * amplitudes[1]!
+    for (let h = 1; h <= thdMaxOrder; h++) {
+      if (h === 1 || amplitudes[h]! >= floor) lines.push({ order: h, frequency: h * p.fundamentalHz, amplitude: amplitudes[h]! })
+    }
+    result.spectrum = lines
+  }
+  if (options.includeWaveform) {
+    const S = samples
+    const time: number[] = new Array(S)
+    const current: number[] = new Array(S)
+    for (let j = 0; j < S; j++) {
+      time[j] = (j + 0.5) / (S * p.fundamentalHz)
+      current[j] = currentPeak * Math.sin((2 * Math.PI * (j + 0.5)) / S - phi)
+    }
+    result.waveform = { time, lineVoltage: Array.from(synthesis.line), poleVoltage: Array.from(synthesis.pole), phaseCurrent: current }
+  }
+  return result
+}
+
+function deviceStresses(p: ResolvedInput, leg: CompiledLeg, currents: ReturnType<typeof integrateLeg>, scales: Scales, points: number): DeviceStress[] {
+  const t = p.topology
+  const commutationUnits = leg.def.commutationUnits ?? 1
+  const clampUnit = p.clampDiodeUnitVoltage ?? scales.unitMax
+  const scheme = {
+    'phase-disposition': 'phase-disposition carriers',
+    'phase-shifted': 'phase-shifted carriers, redundant states used evenly',
+    'phase-shifted-unipolar': 'phase-shifted unipolar carriers, every cell carrying the phase current',
+    'input-averaged': 'each input phase a third of the time',
+  }[leg.def.carrier]
+  const blockingMethod = t.supply === 'ac-input' ? 'blocking = peak input line voltage √2·V_LL,in' : `blocking by enumerating the switching states at V_dc,max`
+
+  return leg.positions.map((pos, k): DeviceStress => {
+    const blockingVoltage = pos.blockingUnits * scales.unitMax
+    const overshoot = pos.commutates ? p.overshootVoltage : 0
+    const device: DeviceStress = {
+      name: pos.name,
+      kind: pos.kind,
+      countPerPhase: pos.countPerPhase,
+      blockingVoltage,
+      blockingVoltageWithOvershoot: blockingVoltage + overshoot,
+      currentAvg: currents.avg[k]!,
+      currentRms: currents.rms[k]!,
+      currentPeak: currents.peak[k]!,
+      commutatedVoltage: pos.commutates ? commutationUnits * scales.unitNominal : 0,
+      provenance: {
+        method: `Switching-period-averaged integration over one fundamental period (${points} points) of the leg's state table (${scheme}); ${blockingMethod}${pos.commutates ? ', overshoot added (commutating position)' : ', switches at the fundamental only (no overshoot added)'}.`,
+        source: `${t.currentSource}; structure and blocking: ${t.structureSource}`,
+      },
+    }
+    if (pos.kind === 'clamp-diode') device.seriesCount = Math.max(1, Math.ceil(blockingVoltage / clampUnit - 1e-9))
+    return device
+  })
+}
+
+function countsOf(devices: DeviceStress[], capacitors: StressResult['capacitors']): StressResult['counts'] {
+  let switchesPerPhase = 0
+  let diodesPerPhase = 0
+  let clampDiodesPerPhase = 0
+  for (const d of devices) {
+    if (d.kind === 'switch') switchesPerPhase += d.countPerPhase
+    else if (d.kind === 'diode') diodesPerPhase += d.countPerPhase
+    else clampDiodesPerPhase += d.countPerPhase * (d.seriesCount ?? 1)
+  }
+  return {
+    switchesPerPhase,
+    diodesPerPhase,
+    clampDiodesPerPhase,
+    capacitors: capacitors.reduce((a, c) => a + c.count, 0),
+    switchesTotal: 3 * switchesPerPhase,
+    diodesTotal: 3 * diodesPerPhase,
+    clampDiodesTotal: 3 * clampDiodesPerPhase,
+  }
+}

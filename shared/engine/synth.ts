@@ -1,0 +1,160 @@
+// Switched pole and line voltages over one fundamental period (naturally sampled carriers), their spectrum and THD.
+import { fft } from './fft'
+import type { CompiledLeg } from './model'
+
+const TWO_PI = 2 * Math.PI
+
+/** One carrier comparison: contributes `weight` volts while α·m + β exceeds the carrier (triangle 0…1, shifted by τ periods). */
+interface Comparator {
+  alpha: number
+  beta: number
+  tau: number
+  weight: number
+}
+
+/**
+ * The modulator as comparisons: PD bands (level ⌊r⌋ or ⌊r⌋+1), flying-capacitor cells on carriers
+ * 360°/(N−1) apart, H-bridge cells (legs A and B compare +m and −m) on carriers 180°/cells apart, and
+ * the matrix converter as a two-level virtual inverter on its virtual DC link. `stepVoltage` is the
+ * voltage one comparison switches (V).
+ */
+function comparatorsFor(leg: CompiledLeg, stepVoltage: number): { list: Comparator[]; offset: number } {
+  const L = leg.def.modelLevels
+  switch (leg.def.carrier) {
+    case 'phase-disposition':
+      return {
+        list: Array.from({ length: L - 1 }, (_, k) => ({ alpha: (L - 1) / 2, beta: (L - 1) / 2 - k, tau: 0, weight: stepVoltage })),
+        offset: (-(L - 1) / 2) * stepVoltage,
+      }
+    case 'phase-shifted':
+      return {
+        list: Array.from({ length: L - 1 }, (_, k) => ({ alpha: 0.5, beta: 0.5, tau: k / (L - 1), weight: stepVoltage })),
+        offset: (-(L - 1) / 2) * stepVoltage,
+      }
+    case 'phase-shifted-unipolar': {
+      const cells = leg.def.cellsPerPhase ?? 1
+      const list: Comparator[] = []
+      for (let k = 0; k < cells; k++) {
+        const tau = k / (2 * cells)
+        list.push({ alpha: 0.5, beta: 0.5, tau, weight: stepVoltage }, { alpha: -0.5, beta: 0.5, tau, weight: -stepVoltage })
+      }
+      return { list, offset: 0 }
+    }
+    case 'input-averaged':
+      return { list: [{ alpha: 0.5, beta: 0.5, tau: 0, weight: stepVoltage }], offset: -stepVoltage / 2 }
+  }
+}
+
+/** Triangle carrier 0…1 with troughs at integer carrier periods p. */
+function triangle(p: number): number {
+  return 1 - Math.abs(2 * (p - Math.floor(p)) - 1)
+}
+
+/** Fraction of a linear segment from a to b where it is positive. */
+function positiveFraction(a: number, b: number): number {
+  if (a > 0) return b > 0 ? 1 : a / (a - b)
+  return b > 0 ? b / (b - a) : 0
+}
+
+export interface SynthesisInput {
+  leg: CompiledLeg
+  /** clamped pole reference of phase a, m(θ) */
+  reference: (theta: number) => number
+  sixStep: boolean
+  /** f_sw / f */
+  frequencyRatio: number
+  /** V switched by one comparison (six-step: V_dc) */
+  stepVoltage: number
+  /** samples per fundamental period, a power of two */
+  samples: number
+}
+
+export interface Synthesis {
+  /** V, phase-a pole voltage (relative to the DC midpoint / cell string), each sample the mean over its interval */
+  pole: Float64Array
+  /** V, line voltage u_ab, interval means */
+  line: Float64Array
+}
+
+/**
+ * Pole voltage of one phase, each sample the exact mean over its interval of the comparison
+ * outcomes: u = α·m + β − carrier is linear between the sample edges and carrier vertices
+ * (m interpolated linearly), so every crossing lands at its own instant, not on the sample grid.
+ */
+function pole(input: SynthesisInput, shift: number): Float64Array {
+  const S = input.samples
+  const out = new Float64Array(S)
+  if (input.sixStep) {
+    // High while sin(θ − shift) ≥ 0: t ∈ [s, s + ½) in fundamental periods, s = shift/2π.
+    const s = shift / TWO_PI
+    const V = input.stepVoltage
+    for (let j = 0; j < S; j++) {
+      const t0 = j / S
+      const t1 = (j + 1) / S
+      let high = 0
+      for (const start of [s - 1, s, s + 1]) high += Math.max(0, Math.min(t1, start + 0.5) - Math.max(t0, start))
+      out[j] = V * (high * S) - V / 2
+    }
+    return out
+  }
+  const m = new Float64Array(S + 1)
+  for (let j = 0; j <= S; j++) m[j] = input.reference((TWO_PI * j) / S - shift)
+  const { list, offset } = comparatorsFor(input.leg, input.stepVoltage)
+  const dp = input.frequencyRatio / S
+  const u = new Float64Array(S + 1)
+  out.fill(offset)
+  for (const c of list) {
+    for (let j = 0; j <= S; j++) u[j] = c.alpha * m[j]! + c.beta - triangle(j * dp + c.tau)
+    for (let j = 0; j < S; j++) {
+      const p0 = j * dp + c.tau
+      const p1 = p0 + dp
+      let zPrev = 0
+      let uPrev = u[j]!
+      let area = 0
+      for (let v = (Math.floor(2 * p0) + 1) / 2; v < p1; v += 0.5) {
+        const z = (v - p0) / dp
+        const uv = c.alpha * (m[j]! + z * (m[j + 1]! - m[j]!)) + c.beta - triangle(v)
+        area += (z - zPrev) * positiveFraction(uPrev, uv)
+        zPrev = z
+        uPrev = uv
+      }
+      area += (1 - zPrev) * positiveFraction(uPrev, u[j + 1]!)
+      out[j]! += c.weight * area
+    }
+  }
+  return out
+}
+
+export function synthesise(input: SynthesisInput): Synthesis {
+  const a = pole(input, 0)
+  const b = pole(input, TWO_PI / 3)
+  const line = new Float64Array(a.length)
+  for (let j = 0; j < a.length; j++) line[j] = a[j]! - b[j]!
+  return { pole: a, line }
+}
+
+/**
+ * Peak amplitude per harmonic order 0…maxOrder of a periodic signal given as interval means over
+ * one period: |c_h| = |X_h| / (n·sinc(πh/n)) undoes the interval averaging.
+ */
+export function harmonicAmplitudes(samples: Float64Array, maxOrder: number): Float64Array {
+  const n = samples.length
+  const re = Float64Array.from(samples)
+  const im = new Float64Array(n)
+  fft(re, im)
+  const out = new Float64Array(maxOrder + 1)
+  out[0] = Math.abs(re[0]!) / n
+  for (let h = 1; h <= maxOrder && h < n / 2; h++) {
+    const x = (Math.PI * h) / n
+    out[h] = (2 * Math.hypot(re[h]!, im[h]!)) / n / (Math.sin(x) / x)
+  }
+  return out
+}
+
+/** THD = √(Σ_{h=2}^{H} A_h²) / A_1. */
+export function totalHarmonicDistortion(amplitudes: Float64Array): number {
+  const a1 = amplitudes[1]!
+  let sum = 0
+  for (let h = 2; h < amplitudes.length; h++) sum += amplitudes[h]! * amplitudes[h]!
+  return a1 > 0 ? Math.sqrt(sum) / a1 : 0
+}

@@ -1,0 +1,163 @@
+// Input checks and normalisation for one evaluation; every refusal names its field.
+import { EngineInputError } from './errors'
+import { compileLeg, type CompiledLeg, type TopologyDefinition } from './model'
+import { topologyById } from './topologies'
+import type { Modulation, StressInput } from './types'
+
+const MODULATIONS: Modulation[] = ['sine', 'third-harmonic', 'space-vector', 'six-step']
+/** f_sw/f above this is outside the engine's synthesis range. */
+export const MAX_FREQUENCY_RATIO = 100_000
+
+export interface ResolvedInput {
+  topology: TopologyDefinition
+  leg: CompiledLeg
+  /** level count reported (phase levels; 3 for the matrix converter's three input potentials) */
+  levels: number
+  modulation: Modulation
+  /** V, nominal DC link (per cell for cascaded H-bridge; 0 for matrix) */
+  dcVoltage: number
+  /** V, worst-case DC link */
+  dcVoltageMax: number
+  /** V, matrix input line-to-line RMS (0 otherwise) */
+  inputLineVoltageRms: number
+  /** V, requested output line-to-line fundamental RMS (0 for six-step, where it follows from the DC link) */
+  lineVoltageRms: number
+  phaseCurrentRms: number
+  powerFactor: number
+  fundamentalHz: number
+  switchingHz: number
+  /** V, overshoot added to commutating devices */
+  overshootVoltage: number
+  /** V, unit diode rating for clamp stacks (undefined → one level step at V_dc,max) */
+  clampDiodeUnitVoltage?: number
+  /** V peak-to-peak */
+  capacitorRippleTarget?: number
+  warnings: string[]
+}
+
+const legCache = new Map<string, CompiledLeg>()
+
+/** Compiled leg of a topology at a level count, built once. */
+export function legFor(topology: TopologyDefinition, levels: number): CompiledLeg {
+  const key = `${topology.id}:${levels}`
+  let leg = legCache.get(key)
+  if (!leg) {
+    leg = compileLeg(topology, levels)
+    legCache.set(key, leg)
+  }
+  return leg
+}
+
+type NumberRule = { required?: boolean; min?: number; max?: number; positive?: boolean; unit: string }
+
+function num(input: Record<string, unknown>, field: string, rule: NumberRule): number | undefined {
+  const v = input[field]
+  if (v === undefined || v === null) {
+    if (rule.required) throw new EngineInputError(field, `${field} is required (${rule.unit})`)
+    return undefined
+  }
+  if (typeof v !== 'number' || !Number.isFinite(v)) throw new EngineInputError(field, `${field} must be a finite number (${rule.unit})`)
+  if (rule.positive && v <= 0) throw new EngineInputError(field, `${field} must be greater than 0 (${rule.unit})`)
+  if (rule.min !== undefined && v < rule.min) throw new EngineInputError(field, `${field} must be at least ${rule.min} (${rule.unit})`)
+  if (rule.max !== undefined && v > rule.max) throw new EngineInputError(field, `${field} must be at most ${rule.max} (${rule.unit})`)
+  return v
+}
+
+function describeLevels(t: TopologyDefinition): string {
+  const l = t.allowedLevels
+  if (l === 'ignored') return 'ignored'
+  if (l.length === 1) return String(l[0])
+  const odd = l.every(n => n % 2 === 1) && l.length > 1 && l[1]! - l[0]! === 2
+  return `${odd ? 'odd ' : ''}${l[0]}…${l[l.length - 1]}`
+}
+
+/** Checks one evaluation's input and resolves defaults; throws EngineInputError naming the field. */
+export function resolveStressInput(raw: StressInput): ResolvedInput {
+  if (typeof raw !== 'object' || raw === null) throw new EngineInputError('input', 'input must be an object')
+  const input = raw as unknown as Record<string, unknown>
+  const warnings: string[] = []
+
+  const id = input.topology
+  const topology = typeof id === 'string' ? topologyById[id as keyof typeof topologyById] : undefined
+  if (!topology) throw new EngineInputError('topology', `topology must be one of ${Object.keys(topologyById).join(', ')}`)
+
+  const modulation = input.modulation as Modulation
+  if (!MODULATIONS.includes(modulation)) throw new EngineInputError('modulation', `modulation must be one of ${MODULATIONS.join(', ')}`)
+  if (!topology.modulations.includes(modulation)) {
+    throw new EngineInputError('modulation', modulation === 'six-step'
+      ? `six-step operation is for the two-level topology only, not ${topology.id}`
+      : `${topology.id} does not support ${modulation} modulation`)
+  }
+
+  let levels: number
+  if (topology.allowedLevels === 'ignored') {
+    levels = topology.defaultLevels ?? 3
+  }
+  else {
+    const given = input.levels
+    if (given === undefined || given === null) {
+      if (topology.defaultLevels === undefined) throw new EngineInputError('levels', `levels is required for ${topology.id} (${describeLevels(topology)})`)
+      levels = topology.defaultLevels
+    }
+    else if (typeof given !== 'number' || !Number.isInteger(given) || !topology.allowedLevels.includes(given)) {
+      throw new EngineInputError('levels', `levels must be ${describeLevels(topology)} for ${topology.id}`)
+    }
+    else levels = given
+  }
+
+  const sixStep = modulation === 'six-step'
+  const ac = topology.supply === 'ac-input'
+  const dcUnit = topology.supply === 'cell' ? 'V per cell' : 'V'
+  const dcVoltage = ac ? 0 : num(input, 'dcVoltage', { required: true, positive: true, unit: dcUnit })!
+  let dcVoltageMax = dcVoltage
+  if (!ac) {
+    const given = num(input, 'dcVoltageMax', { positive: true, unit: dcUnit })
+    if (given !== undefined) {
+      if (given < dcVoltage) throw new EngineInputError('dcVoltageMax', 'dcVoltageMax must be at least dcVoltage (V, worst-case DC link)')
+      dcVoltageMax = given
+    }
+  }
+  const inputLineVoltageRms = ac ? num(input, 'inputLineVoltageRms', { required: true, positive: true, unit: 'V, input line-to-line RMS; required for matrix' })! : 0
+  const lineVoltageRms = sixStep ? 0 : num(input, 'lineVoltageRms', { required: true, min: 0, unit: 'V, output line-to-line RMS' })!
+  const phaseCurrentRms = num(input, 'phaseCurrentRms', { required: true, min: 0, unit: 'A RMS' })!
+  const powerFactor = num(input, 'powerFactor', { required: true, min: -1, max: 1, unit: '−1…1' })!
+  const fundamentalHz = num(input, 'fundamentalHz', { required: true, positive: true, unit: 'Hz' })!
+  const switchingHz = num(input, 'switchingHz', { required: true, positive: true, unit: 'Hz' })!
+  if (!sixStep) {
+    if (switchingHz <= fundamentalHz) throw new EngineInputError('switchingHz', 'switchingHz must be above fundamentalHz for PWM (switching-period averaging needs f_sw ≫ f)')
+    if (switchingHz / fundamentalHz > MAX_FREQUENCY_RATIO) throw new EngineInputError('switchingHz', `switchingHz / fundamentalHz must not exceed ${MAX_FREQUENCY_RATIO}`)
+    if (switchingHz / fundamentalHz < 10) warnings.push(`Switching frequency only ${(switchingHz / fundamentalHz).toFixed(1)} × the fundamental: switching-period-averaged currents are approximate below about 10 ×.`)
+  }
+
+  const overshootGiven = num(input, 'overshootVoltage', { min: 0, unit: 'V' })
+  const stray = num(input, 'strayInductance', { min: 0, unit: 'H' })
+  const slope = num(input, 'currentSlope', { min: 0, unit: 'A/s' })
+  let overshootVoltage = overshootGiven ?? 0
+  if (overshootGiven === undefined && (stray !== undefined) !== (slope !== undefined)) {
+    warnings.push('strayInductance and currentSlope are needed together for the overshoot ΔV = L_σ·di/dt; no overshoot added.')
+  }
+  else if (overshootGiven === undefined && stray !== undefined && slope !== undefined) {
+    overshootVoltage = stray * slope
+  }
+  const clampDiodeUnitVoltage = num(input, 'clampDiodeUnitVoltage', { positive: true, unit: 'V' })
+  const capacitorRippleTarget = num(input, 'capacitorRippleTarget', { positive: true, unit: 'V peak-to-peak' })
+
+  return {
+    topology,
+    leg: legFor(topology, levels),
+    levels,
+    modulation,
+    dcVoltage,
+    dcVoltageMax,
+    inputLineVoltageRms,
+    lineVoltageRms,
+    phaseCurrentRms,
+    powerFactor,
+    fundamentalHz,
+    switchingHz: sixStep ? fundamentalHz : switchingHz,
+    overshootVoltage,
+    clampDiodeUnitVoltage,
+    capacitorRippleTarget,
+    warnings,
+  }
+}

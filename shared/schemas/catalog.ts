@@ -1,0 +1,31 @@
+import { z } from 'zod'
+import { CATALOG_COLUMNS, LIFECYCLES, PART_KINDS } from '../../catalog/columns'
+
+const columnKeys = CATALOG_COLUMNS.map(c => c.key) as [string, ...string[]]
+
+export const decimalSeparatorSchema = z.enum(['.', ','], { message: "Choose '.' or ','" })
+
+export const importMappingSchema = z.object({
+  mapping: z.record(z.enum(columnKeys, { message: 'Not a catalogue column' }), z.number().int().min(0).nullable()),
+  decimalSeparator: decimalSeparatorSchema.default('.'),
+})
+
+export const partsQuerySchema = z.object({
+  q: z.string().trim().max(100).optional(),
+  kind: z.enum(PART_KINDS).optional(),
+  lifecycle: z.enum(LIFECYCLES).optional(),
+  approved: z.enum(['yes', 'no']).optional(),
+  minVoltage: z.coerce.number().min(0).optional(),
+  minCurrent: z.coerce.number().min(0).optional(),
+  sort: z.enum(['partNumber', 'manufacturer', 'kind', 'voltageRating', 'currentRating', 'unitPrice', 'stock', 'leadTimeDays', 'lifecycle']).default('partNumber'),
+  dir: z.enum(['asc', 'desc']).default('asc'),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(50),
+})
+
+export const partPatchSchema = z.object({
+  approved: z.boolean().optional(),
+  lifecycle: z.enum(LIFECYCLES).optional(),
+  stock: z.number().int().min(0).optional(),
+  leadTimeDays: z.number().int().min(0).max(3650).optional(),
+}).refine(v => Object.values(v).some(x => x !== undefined), { message: 'Give at least one field to change' })

@@ -1,0 +1,121 @@
+// zod schemas of the public API inputs (POST /api/v1/stress, /api/v1/evaluate), shared by forms and routes.
+// Field checks live here; topology-specific cross-field checks come from the engine itself (one source).
+import { z } from 'zod'
+import { EngineInputError } from '../engine/errors'
+import { checkDesignInput, checkStressInput } from '../engine/check'
+import type { Modulation, TopologyId } from '../engine/types'
+
+export const topologyIds = ['two-level', 'diode-clamped', 't-type', 'anpc', 'flying-capacitor', 'cascaded-h-bridge', 'matrix'] as const satisfies readonly TopologyId[]
+export const modulations = ['sine', 'third-harmonic', 'space-vector', 'six-step'] as const satisfies readonly Modulation[]
+// Both lists must name every member of their union: a missing one fails to compile here.
+type Missing<T, L extends readonly unknown[]> = Exclude<T, L[number]>
+const _allTopologies: Missing<TopologyId, typeof topologyIds> extends never ? true : never = true
+const _allModulations: Missing<Modulation, typeof modulations> extends never ? true : never = true
+void _allTopologies
+void _allModulations
+
+/** A finite number with a message naming the field and its unit. */
+function quantity(field: string, unit: string) {
+  return z.number({ error: i => (i.input === undefined ? `${field} is required (${unit})` : `${field} must be a number (${unit})`) })
+}
+const positive = (field: string, unit: string) => quantity(field, unit).positive({ error: `${field} must be greater than 0 (${unit})` })
+const nonNegative = (field: string, unit: string) => quantity(field, unit).min(0, { error: `${field} must be at least 0 (${unit})` })
+
+const topology = z.enum(topologyIds, { error: `topology must be one of ${topologyIds.join(', ')}` })
+const modulation = z.enum(modulations, { error: `modulation must be one of ${modulations.join(', ')}` })
+const levels = z.number({ error: 'levels must be a whole number (2 two-level; 3 t-type, anpc; 3…9 diode-clamped, flying-capacitor; odd 3…15 cascaded-h-bridge)' })
+  .int({ error: 'levels must be a whole number' }).min(2, { error: 'levels must be at least 2' }).max(15, { error: 'levels must be at most 15' })
+
+/** Converter fields common to the single-point and the design input. */
+const converterFields = {
+  topology,
+  levels: levels.optional(),
+  dcVoltage: positive('dcVoltage', 'V, nominal DC link; per cell for cascaded-h-bridge').optional(),
+  dcVoltageMax: positive('dcVoltageMax', 'V, worst-case DC link').optional(),
+  inputLineVoltageRms: positive('inputLineVoltageRms', 'V, matrix input line-to-line RMS').optional(),
+  switchingHz: positive('switchingHz', 'Hz'),
+  modulation,
+  overshootVoltage: nonNegative('overshootVoltage', 'V').optional(),
+  strayInductance: nonNegative('strayInductance', 'H').optional(),
+  currentSlope: nonNegative('currentSlope', 'A/s').optional(),
+  clampDiodeUnitVoltage: positive('clampDiodeUnitVoltage', 'V').optional(),
+}
+
+const pointFields = {
+  phaseCurrentRms: nonNegative('phaseCurrentRms', 'A RMS'),
+  powerFactor: quantity('powerFactor', '−1…1').min(-1, { error: 'powerFactor must be at least −1' }).max(1, { error: 'powerFactor must be at most 1' }),
+  fundamentalHz: positive('fundamentalHz', 'Hz'),
+}
+
+const onlyWhenClean = { when: (payload: { issues: unknown[] }) => payload.issues.length === 0 }
+
+/** Adds the engine's own refusal as an issue at its field path. */
+function engineIssue(ctx: z.RefinementCtx, check: () => void): void {
+  try {
+    check()
+  }
+  catch (e) {
+    if (!(e instanceof EngineInputError)) throw e
+    ctx.addIssue({ code: 'custom', path: e.field.split('.').map(k => (/^\d+$/.test(k) ? Number(k) : k)), message: e.message })
+  }
+}
+
+/** POST /api/v1/stress body (PRODUCT.md "Public API v1"); lineVoltageRms may be left out for six-step. */
+export const stressInputSchema = z.object({
+  ...converterFields,
+  lineVoltageRms: nonNegative('lineVoltageRms', 'V, output line-to-line RMS').optional(),
+  ...pointFields,
+  includeWaveform: z.boolean({ error: 'includeWaveform must be true or false' }).optional(),
+})
+  .superRefine((v, ctx) => {
+    if (v.lineVoltageRms === undefined && v.modulation !== 'six-step') {
+      ctx.addIssue({ code: 'custom', path: ['lineVoltageRms'], message: 'lineVoltageRms is required (V, output line-to-line RMS) unless modulation is six-step' })
+      return
+    }
+    const { includeWaveform: _w, ...input } = v
+    engineIssue(ctx, () => checkStressInput({ ...input, lineVoltageRms: input.lineVoltageRms ?? 0 }))
+  }, onlyWhenClean)
+  // Six-step ignores the requested voltage (it follows from the DC link): 0 stands in for it.
+  .transform(v => ({ ...v, lineVoltageRms: v.lineVoltageRms ?? 0 }))
+
+export const operatingPointSchema = z.object({
+  name: z.string({ error: 'name must be text' }).trim().min(1, { error: 'Name the operating point' }).max(60, { error: 'name: at most 60 characters' }),
+  lineVoltageRms: nonNegative('lineVoltageRms', 'V, output line-to-line RMS; ignored for six-step'),
+  ...pointFields,
+})
+
+export const converterInputSchema = z.object({
+  ...converterFields,
+  operatingPoints: z.array(operatingPointSchema, { error: 'operatingPoints must be a list' })
+    .min(1, { error: 'Give at least one operating point' })
+    .max(50, { error: 'At most 50 operating points' })
+    .superRefine((points, ctx) => {
+      const seen = new Map<string, number>()
+      points.forEach((p, i) => {
+        if (seen.has(p.name)) ctx.addIssue({ code: 'custom', path: [i, 'name'], message: `Operating point name "${p.name}" is already used by point ${seen.get(p.name)! + 1}` })
+        else seen.set(p.name, i)
+      })
+    }),
+})
+
+const fraction = (field: string, max: number) => quantity(`derating.${field}`, 'fraction').positive({ error: `${field} must be greater than 0` }).max(max, { error: `${field} must be at most ${max}` })
+
+export const deratingSchema = z.object({
+  semiconductorVoltageUtilisation: fraction('semiconductorVoltageUtilisation', 1),
+  semiconductorCurrentUtilisation: fraction('semiconductorCurrentUtilisation', 2),
+  capacitorVoltageUtilisation: fraction('capacitorVoltageUtilisation', 1),
+  capacitorRippleUtilisation: fraction('capacitorRippleUtilisation', 2),
+  junctionMarginC: quantity('junctionMarginC', '°C').min(0, { error: 'junctionMarginC must be at least 0 °C' }).max(100, { error: 'junctionMarginC must be at most 100 °C' }),
+  heatsinkTemperatureC: quantity('heatsinkTemperatureC', '°C').min(-40, { error: 'heatsinkTemperatureC must be at least −40 °C' }).max(150, { error: 'heatsinkTemperatureC must be at most 150 °C' }),
+}).partial()
+
+/** POST /api/v1/evaluate body and the design form: machine side, optional grid side, derating. */
+export const designInputSchema = z.object({
+  machineSide: converterInputSchema,
+  gridSide: converterInputSchema.optional(),
+  derating: deratingSchema.optional(),
+  capacitorRippleTarget: positive('capacitorRippleTarget', 'V peak-to-peak').optional(),
+}).superRefine((v, ctx) => engineIssue(ctx, () => checkDesignInput(v)), onlyWhenClean)
+
+export type StressInputBody = z.input<typeof stressInputSchema>
+export type DesignInputBody = z.input<typeof designInputSchema>
