@@ -344,6 +344,28 @@ export function buildTemplateRows(): TemplateRows {
   }
 }
 
+export interface ColumnGuideRow {
+  header: string
+  unit: string
+  type: ColumnType
+  /** "all", "none" or the kinds, e.g. "switch-diode, switch". */
+  requiredFor: string
+  allowedValues: string
+  description: string
+}
+
+/** One line per column for the template's guide sheet and the docs. */
+export function describeColumns(): ColumnGuideRow[] {
+  return CATALOG_COLUMNS.map(column => ({
+    header: column.header,
+    unit: unitsRowLabel(column),
+    type: column.type,
+    requiredFor: column.requiredFor.length === PART_KINDS.length ? 'all' : column.requiredFor.length === 0 ? 'none' : column.requiredFor.join(', '),
+    allowedValues: column.values ? column.values.join(', ') : column.min !== undefined || column.max !== undefined ? `${column.min ?? ''}…${column.max ?? ''} ${column.unit}`.trim() : '',
+    description: column.description,
+  }))
+}
+
 /** True when a row looks like the template's units row (so the reader can skip it). */
 export function isUnitsRow(cells: readonly (string | number | null)[]): boolean {
   const labels = new Set(CATALOG_COLUMNS.map(unitsRowLabel).concat(['', '-', 'unit', 'units']))

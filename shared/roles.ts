@@ -23,6 +23,7 @@ export const permissions = {
   'catalog:write': ['admin', 'component-engineer'],
   'parts:assign': ['admin', 'design-engineer'],
   'bom:read': ['admin', 'design-engineer', 'purchasing', 'viewer'],
+  'bom:draft': ['admin', 'design-engineer'],
   'bom:release': ['admin', 'design-engineer'],
   'bom:purchase': ['admin', 'purchasing'],
   'tokens:own': ['admin', 'design-engineer', 'component-engineer', 'purchasing', 'viewer'],

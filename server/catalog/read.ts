@@ -3,7 +3,7 @@
 // cells, hidden rows, duplicates. Every problem names the row and cell as the user sees them.
 
 import ExcelJS from 'exceljs'
-import { isUnitsRow } from '../../catalog/columns'
+import { CATALOG_COLUMNS, isUnitsRow } from '../../catalog/columns'
 import { columnLetter, suggestMapping } from '../../shared/catalog/mapping'
 import type { CellValue, RawTable, TableProblem } from '../../shared/catalog/types'
 import { detectDelimiter, parseCsv } from './csv'
@@ -24,6 +24,10 @@ export interface ReadOptions {
 
 export const DEFAULT_READ_LIMITS = { maxBytes: 5 * 1024 * 1024, maxRows: 20_000, maxUncompressedBytes: 100 * 1024 * 1024, maxCompressionRatio: 200, maxProblems: 500 }
 
+// Worksheet parts that carry nothing a catalogue import reads (hyperlink targets included: the cell text is used).
+const IGNORED_SHEET_NODES = ['dataValidations', 'conditionalFormatting', 'extLst', 'drawing', 'picture', 'pageSetup', 'pageMargins', 'headerFooter', 'printOptions', 'rowBreaks', 'tableParts', 'sheetProtection', 'hyperlinks']
+const MAX_COLUMNS = 1000
+
 const PREFERRED_SHEET = /^(parts?|catalog(ue)?|components?|parts? list)$/i
 const LIKELY_SHEET = /part|catalog|component/i
 
@@ -39,7 +43,10 @@ function formatCount(n: number): string {
 class Problems {
   readonly list: TableProblem[] = []
   private dropped = 0
-  constructor(private readonly limit: number) {}
+  private readonly limit: number
+  constructor(limit: number) {
+    this.limit = limit
+  }
   add(problem: TableProblem) {
     if (this.list.length < this.limit) this.list.push(problem)
     else this.dropped++
@@ -47,9 +54,6 @@ class Problems {
   finish(what: string): TableProblem[] {
     if (this.dropped > 0) this.list.push({ message: `… and ${formatCount(this.dropped)} more ${what} not listed` })
     return this.list
-  }
-  get count() {
-    return this.list.length + this.dropped
   }
 }
 
@@ -81,6 +85,16 @@ function sniff(buffer: Buffer): Sniffed {
  * Never throws for bad input: problems come back in `errors` / `warnings`.
  */
 export async function readCatalogFile(buffer: Buffer | Uint8Array, fileName = 'upload', opts: ReadOptions = {}): Promise<RawTable> {
+  try {
+    return await readChecked(buffer, fileName, opts)
+  }
+  catch (error) {
+    // A file that trips the spreadsheet library in an unforeseen way is still a bad upload, not a crash.
+    return failed(`'${fileName}' could not be read (${(error as Error).message})`)
+  }
+}
+
+async function readChecked(buffer: Buffer | Uint8Array, fileName: string, opts: ReadOptions): Promise<RawTable> {
   const limits = { ...DEFAULT_READ_LIMITS, ...opts }
   const data = Buffer.isBuffer(buffer) ? buffer : Buffer.from(buffer.buffer, buffer.byteOffset, buffer.byteLength)
   if (data.length === 0) return failed(`'${fileName}' is empty (0 bytes)`)
@@ -157,11 +171,16 @@ async function readXlsx(data: Buffer, fileName: string, limits: typeof DEFAULT_R
 
   const workbook = new ExcelJS.Workbook()
   try {
-    // exceljs' typings want its own Buffer flavour; a Node Buffer is what it reads.
-    await workbook.xlsx.load(data as unknown as ExcelJS.Buffer)
+    // exceljs' typings want its own Buffer flavour and omit maxRows / maxCols, which its parser honours:
+    // they stop a far-too-large sheet early. Parts we never read are skipped.
+    const options = { ignoreNodes: IGNORED_SHEET_NODES, maxRows: 2 * limits.maxRows + 10, maxCols: MAX_COLUMNS }
+    await workbook.xlsx.load(data as unknown as ExcelJS.Buffer, options as Partial<ExcelJS.XlsxReadOptions>)
   }
   catch (error) {
-    return failed(`'${fileName}' could not be read as an .xlsx workbook (${(error as Error).message})`)
+    const message = (error as Error).message
+    if (/Max row count/.test(message)) return failed(`'${fileName}' has more than ${formatCount(2 * limits.maxRows + 10)} rows in a sheet; the limit is ${formatCount(limits.maxRows)} parts per upload: split the file`)
+    if (/Max column count/.test(message)) return failed(`'${fileName}' has more than ${MAX_COLUMNS} columns in a row; a catalogue has about ${CATALOG_COLUMNS.length}`)
+    return failed(`'${fileName}' could not be read as an .xlsx workbook (${message})`)
   }
 
   const warnings = new Problems(limits.maxProblems)

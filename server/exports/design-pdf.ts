@@ -228,8 +228,7 @@ function waveformSection(report: DesignReport): Content[] {
   legend += `; time axis ${formatNumber((w.time.at(-1)! - w.time[0]!) * 1000, 2)} ms, quarter divisions.`
   return [
     heading(w.title ? `Waveform: ${w.title}` : 'Waveform'),
-    { svg: waveformSvg(w.time, traces), width: 500 },
-    { text: legend, style: 'small', margin: [0, 2, 0, 0] },
+    { stack: [{ svg: waveformSvg(w.time, traces), width: 500 }, { text: legend, style: 'small', margin: [0, 2, 0, 0] }], unbreakable: true },
   ]
 }
 

@@ -339,6 +339,7 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
   if (duty.kind === 'diode' && part.kind === 'switch-diode') {
     warnings.push(`the anti-parallel diode inside ${part.partNumber}: no extra package when the switch position uses the same part`)
   }
+  if (duty.kind === 'switch' && part.kind === 'switch') warnings.push('switch without anti-parallel diode: the diode position needs a part of its own')
   if (series > 1) warnings.push(`${series} in series: voltage sharing (snubbers or sharing resistors) needed`)
   if (parallel > 1 && !isCapacitor) warnings.push(`${parallel} in parallel: current sharing assumed at ${Math.round((policy.parallelCurrentSharing ?? 0.9) * 100)} % of each rating`)
 

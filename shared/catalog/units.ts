@@ -93,6 +93,8 @@ function expectation(expectedUnit: string): string {
 }
 
 const GROUP_SPACES = /[\s\u00A0\u2009\u202F']/
+const GROUPS_WITH_DOT = /[\s\u00A0\u2009\u202F'.]+/
+const GROUPS_WITH_COMMA = /[\s\u00A0\u2009\u202F',]+/
 
 /** Parses the numeric part of a cell; thousands separators must group digits by three. */
 export function parseNumberText(text: string, decimalSeparator: DecimalSeparator): { ok: true, value: number } | { ok: false, reason: string } {
@@ -117,7 +119,7 @@ export function parseNumberText(text: string, decimalSeparator: DecimalSeparator
   const fraction = decimalAt < 0 ? '' : s.slice(decimalAt + 1)
   if (!/^\d*$/.test(fraction)) return { ok: false, reason: `'${text}' is not a number` }
   if (fraction.includes(other)) return { ok: false, reason: `'${text}' is not a number` }
-  const groups = integerPart.split(new RegExp(`[\\s\\u00A0\\u2009\\u202F'${other === '.' ? '\\.' : ','}]+`))
+  const groups = integerPart.split(other === '.' ? GROUPS_WITH_DOT : GROUPS_WITH_COMMA)
   if (groups.length > 1) {
     const wellGrouped = /^\d{1,3}$/.test(groups[0]!) && groups.slice(1).every(g => /^\d{3}$/.test(g))
     if (!wellGrouped) {

@@ -5,7 +5,7 @@ import {
   CATALOG_COLUMNS, COLUMN_BY_KEY, PACKAGE_CONFIGURATIONS, PART_KINDS, TEMPLATE_EXAMPLE_PART_NUMBERS,
   type CatalogColumn, type PackageConfiguration, type PartKind,
 } from '../../catalog/columns'
-import { applyMapping, checkMapping, columnLetter, type MappedCell } from './mapping'
+import { checkMapping, columnLetter } from './mapping'
 import { parsePriceBreaks } from './prices'
 import type { CatalogPart, CellValue, ColumnKey, ColumnMapping, PriceBreak, RawTable, ValidationIssue } from './types'
 import { parseQuantity, unitScaleFromHeader, type DecimalSeparator } from './units'
@@ -139,7 +139,17 @@ export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerR
   }
 
   const unmappedReported = new Set<string>()
-  const rows = applyMapping(table, mapping)
+  // Column index and letter per mapped field, looked up directly in each row (no per-cell objects).
+  const indexOf: Partial<Record<ColumnKey, number>> = {}
+  const letterOf: Partial<Record<ColumnKey, string>> = {}
+  for (const column of CATALOG_COLUMNS) {
+    const index = mapping[column.key]
+    if (typeof index === 'number' && index >= 0) {
+      indexOf[column.key] = index
+      letterOf[column.key] = columnLetter(index)
+    }
+  }
+  const rows = table.rows
   const parts: CatalogPart[] = []
   const rowsWithErrors = new Set<number>()
   const seen = new Map<string, { rowNumber: number, partIndex: number | null }>()
@@ -147,34 +157,38 @@ export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerR
 
   for (const row of rows) {
     let rowHasError = false
-    const error = (field: ColumnKey, message: string, cell?: MappedCell) => {
+    const error = (field: ColumnKey, message: string, letterField: ColumnKey = field) => {
       rowHasError = true
-      push({ row: row.rowNumber, column: cell?.column ?? '', field, message, severity: 'error' })
+      push({ row: row.rowNumber, column: letterOf[letterField] ?? '', field, message, severity: 'error' })
+    }
+    const valueOf = (key: ColumnKey): CellValue | undefined => {
+      const index = indexOf[key]
+      return index === undefined ? undefined : (row.cells[index] ?? null)
     }
     const values: Partial<Record<ColumnKey, unknown>> = {}
 
     // Kind first: it decides which cells are required.
-    const kindCell = row.cells.kind
+    const kindCell = valueOf('kind')
     let kind: PartKind | null = null
-    if (!kindCell) {
+    if (kindCell === undefined) {
       rowHasError = true
       if (!unmappedReported.has('kind')) {
         unmappedReported.add('kind')
         push({ row: headerRow, column: '', field: 'kind', message: `the required column '${COLUMN_BY_KEY.kind.header}' is not mapped: every row needs a kind (${kindsText(PART_KINDS)})`, severity: 'error' })
       }
     }
-    else if (isBlank(kindCell.value)) error('kind', `${COLUMN_BY_KEY.kind.header} is empty; expected one of: ${PART_KINDS.join(', ')}`, kindCell)
+    else if (isBlank(kindCell)) error('kind', `${COLUMN_BY_KEY.kind.header} is empty; expected one of: ${PART_KINDS.join(', ')}`)
     else {
-      const parsed = parseEnumValue(COLUMN_BY_KEY.kind, kindCell.value)
+      const parsed = parseEnumValue(COLUMN_BY_KEY.kind, kindCell)
       if (parsed.ok) kind = parsed.value as PartKind
-      else error('kind', `${COLUMN_BY_KEY.kind.header}: ${parsed.reason}`, kindCell)
+      else error('kind', `${COLUMN_BY_KEY.kind.header}: ${parsed.reason}`)
     }
 
     for (const column of CATALOG_COLUMNS) {
       if (column.key === 'kind') continue
-      const cell = row.cells[column.key]
+      const cell = valueOf(column.key)
       const required = kind !== null && column.requiredFor.includes(kind)
-      if (!cell) {
+      if (cell === undefined) {
         if (required) {
           rowHasError = true
           const tag = `${column.key}:${kind}`
@@ -185,36 +199,36 @@ export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerR
         }
         continue
       }
-      if (isBlank(cell.value)) {
-        if (required) error(column.key, `${column.header} is required for ${kind} parts and is empty${column.unit && column.unit !== 'pcs' ? ` (unit ${column.unit})` : ''}`, cell)
+      if (isBlank(cell)) {
+        if (required) error(column.key, `${column.header} is required for ${kind} parts and is empty${column.unit && column.unit !== 'pcs' ? ` (unit ${column.unit})` : ''}`)
         continue
       }
-      const parsed = parseCell(column, cell.value, opts.decimalSeparator, scales[column.key] ?? 1)
+      const parsed = parseCell(column, cell, opts.decimalSeparator, scales[column.key] ?? 1)
       if (parsed.ok) values[column.key] = parsed.value
-      else error(column.key, `${column.header}: ${parsed.reason}`, cell)
+      else error(column.key, `${column.header}: ${parsed.reason}`)
     }
 
     // Checks across cells.
     const partNumber = values.partNumber as string | undefined
     if (partNumber && exampleNumbers.has(partNumber.toLowerCase())) {
-      error('partNumber', `'${partNumber}' is the template's example row: delete it before uploading`, row.cells.partNumber)
+      error('partNumber', `'${partNumber}' is the template's example row: delete it before uploading`)
     }
     let configuration = values.packageConfiguration as PackageConfiguration | undefined
     if (kind === 'capacitor') {
-      if (configuration && configuration !== 'single') error('packageConfiguration', `capacitors are single parts; leave ${COLUMN_BY_KEY.packageConfiguration.header} blank or write 'single'`, row.cells.packageConfiguration)
+      if (configuration && configuration !== 'single') error('packageConfiguration', `capacitors are single parts; leave ${COLUMN_BY_KEY.packageConfiguration.header} blank or write 'single'`)
       configuration = 'single'
     }
     else if (kind && configuration && !PACKAGE_CONFIGURATIONS[configuration].kinds.includes(kind)) {
-      error('packageConfiguration', `'${configuration}' is not a package for ${kind} parts; it fits ${kindsText(PACKAGE_CONFIGURATIONS[configuration].kinds)}`, row.cells.packageConfiguration)
+      error('packageConfiguration', `'${configuration}' is not a package for ${kind} parts; it fits ${kindsText(PACKAGE_CONFIGURATIONS[configuration].kinds)}`)
     }
     const breaks = values.priceBreaks as PriceBreak[] | undefined
     if (breaks && breaks.length > 0 && !values.currency) {
-      error('currency', `${COLUMN_BY_KEY.currency.header} is required when prices are given`, row.cells.currency ?? row.cells.priceBreaks)
+      error('currency', `${COLUMN_BY_KEY.currency.header} is required when prices are given`, letterOf.currency ? 'currency' : 'priceBreaks')
     }
     const rating = values.voltageRating as number | undefined
     const testVoltage = values.energyReferenceVoltage as number | undefined
     if (rating !== undefined && testVoltage !== undefined && testVoltage > rating) {
-      error('energyReferenceVoltage', `${COLUMN_BY_KEY.energyReferenceVoltage.header} ${formatNumber(testVoltage)} V is above the voltage rating ${formatNumber(rating)} V`, row.cells.energyReferenceVoltage)
+      error('energyReferenceVoltage', `${COLUMN_BY_KEY.energyReferenceVoltage.header} ${formatNumber(testVoltage)} V is above the voltage rating ${formatNumber(rating)} V`)
     }
 
     // Same manufacturer and part number twice: both rows are refused, each naming the other.
@@ -225,13 +239,13 @@ export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerR
       dedupeKey = `${manufacturer.toLowerCase().replace(/\s+/g, ' ')}\u0000${partNumber.toLowerCase().replace(/\s+/g, '')}`
       duplicateOf = seen.get(dedupeKey)
       if (duplicateOf) {
-        error('partNumber', `duplicate: ${manufacturer} ${partNumber} is also on row ${duplicateOf.rowNumber}`, row.cells.partNumber)
+        error('partNumber', `duplicate: ${manufacturer} ${partNumber} is also on row ${duplicateOf.rowNumber}`)
         if (duplicateOf.partIndex !== null) {
           parts[duplicateOf.partIndex] = undefined as unknown as CatalogPart
           rowsWithErrors.add(duplicateOf.rowNumber)
           duplicateOf.partIndex = null
         }
-        push({ row: duplicateOf.rowNumber, column: row.cells.partNumber?.column ?? '', field: 'partNumber', message: `duplicate: ${manufacturer} ${partNumber} is also on row ${row.rowNumber}`, severity: 'error' })
+        push({ row: duplicateOf.rowNumber, column: letterOf.partNumber ?? '', field: 'partNumber', message: `duplicate: ${manufacturer} ${partNumber} is also on row ${row.rowNumber}`, severity: 'error' })
       }
     }
 

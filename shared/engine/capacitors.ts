@@ -50,11 +50,13 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
   const sumSq = new Float64Array(J)
   const series = new Float64Array(J * points)
   const swing = new Float64Array(J)
-  const base = [0, 0, 0]
-  const frac = [0, 0, 0]
-  const cur = [0, 0, 0]
-  const order = [0, 1, 2]
-  const bounds = [0, 0, 0, 0, 1]
+  const base = new Int32Array(3)
+  const frac = new Float64Array(3)
+  const cur = new Float64Array(3)
+  const bounds = new Float64Array(5)
+  const nodeCurrent = new Float64Array(L)
+  // values[q·J + (j−1)]: current of capacitor j while the carrier is in interval q
+  const values = new Float64Array(4 * J)
   const dTheta = TWO_PI / points
 
   for (let k = 0; k < points; k++) {
@@ -62,59 +64,63 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
     for (let x = 0; x < 3; x++) {
       const tx = theta - x * SHIFT
       const r = ((1 + reference(tx)) * (L - 1)) / 2
-      const lo = Math.max(0, Math.min(Math.floor(r), L - 2))
+      let lo = Math.floor(r)
+      if (lo > L - 2) lo = L - 2
+      if (lo < 0) lo = 0
       base[x] = lo
       frac[x] = r - lo
       cur[x] = currentPeak * Math.sin(tx - phi)
     }
-    sort3(order, frac)
-    bounds[1] = frac[order[0]!]!
-    bounds[2] = frac[order[1]!]!
-    bounds[3] = frac[order[2]!]!
-    for (let j = 1; j <= J; j++) {
-      // Interval currents (c rising through the sorted duty fractions) and their average.
+    // Interval bounds: 0, the three duty fractions in ascending order, 1.
+    const f0 = frac[0]!
+    const f1 = frac[1]!
+    const f2 = frac[2]!
+    const lo1 = Math.min(f0, f1, f2)
+    const hi1 = Math.max(f0, f1, f2)
+    bounds[0] = 0
+    bounds[1] = lo1
+    // The median exactly (each phase is compared with its own fraction, so no rounding allowed).
+    bounds[2] = Math.max(Math.min(f0, f1), Math.min(Math.max(f0, f1), f2))
+    bounds[3] = hi1
+    bounds[4] = 1
+    for (let q = 0; q < 4; q++) {
+      // Carrier in (bounds[q], bounds[q+1]): a phase sits one level up while its fraction exceeds the carrier.
+      const top = bounds[q + 1]!
+      for (let x = 0; x < 3; x++) nodeCurrent[base[x]! + (frac[x]! >= top ? 1 : 0)]! += cur[x]!
+      let drawn = 0
+      for (let j = J; j >= 1; j--) {
+        drawn += nodeCurrent[j]!
+        values[q * J + j - 1] = -drawn
+      }
+      // Leave the scratch array all zero for the next interval.
+      for (let x = 0; x < 3; x++) nodeCurrent[base[x]!] = nodeCurrent[base[x]! + 1] = 0
+    }
+    for (let j = 0; j < J; j++) {
       let avg = 0
       let ms = 0
-      const values = [0, 0, 0, 0]
       for (let q = 0; q < 4; q++) {
         const len = bounds[q + 1]! - bounds[q]!
-        if (len <= 0) continue
-        let ic = 0
-        for (let x = 0; x < 3; x++) {
-          const level = base[x]! + (frac[x]! >= bounds[q + 1]! ? 1 : 0)
-          if (level >= j) ic -= cur[x]!
-        }
-        values[q] = ic
+        const ic = values[q * J + j]!
         avg += len * ic
         ms += len * ic * ic
       }
+      // Charge swing within the switching period: the carrier sweeps the intervals in order over T_sw/2.
       let acc = 0
       let hi = 0
       let lo = 0
       for (let q = 0; q < 4; q++) {
-        const len = bounds[q + 1]! - bounds[q]!
-        if (len <= 0) continue
-        acc += len * (values[q]! - avg)
+        acc += (bounds[q + 1]! - bounds[q]!) * (values[q * J + j]! - avg)
         if (acc > hi) hi = acc
         if (acc < lo) lo = acc
       }
-      const dq = ((hi - lo) / (2 * switchingHz))
-      if (dq > swing[j - 1]!) swing[j - 1] = dq
-      sum[j - 1]! += avg
-      sumSq[j - 1]! += ms
-      series[(j - 1) * points + k] = avg
+      const dq = (hi - lo) / (2 * switchingHz)
+      if (dq > swing[j]!) swing[j] = dq
+      sum[j]! += avg
+      sumSq[j]! += ms
+      series[j * points + k] = avg
     }
   }
   return Array.from({ length: J }, (_, j) => figures(sum[j]! / points, sumSq[j]! / points, series.subarray(j * points, (j + 1) * points), swing[j]!, fundamentalHz))
-}
-
-/** Orders the three phase indices by ascending duty fraction (no allocation in the hot loop). */
-function sort3(order: number[], key: number[]): void {
-  order[0] = 0; order[1] = 1; order[2] = 2
-  const swap = (a: number, b: number) => {
-    if (key[order[a]!]! > key[order[b]!]!) { const t = order[a]!; order[a] = order[b]!; order[b] = t }
-  }
-  swap(0, 1); swap(1, 2); swap(0, 1)
 }
 
 function figures(mean: number, meanSquare: number, averaged: Float64Array, chargeSwitching: number, fundamentalHz: number): CurrentFigures {

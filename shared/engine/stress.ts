@@ -126,7 +126,7 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
   const mf = p.switchingHz / p.fundamentalHz
   let samples = options.samples !== undefined
     ? nextPowerOfTwo(options.samples)
-    : nextPowerOfTwo(Math.max(4 * maxOrderWanted, 16 * mf, 4096))
+    : nextPowerOfTwo(Math.max(4 * maxOrderWanted, 4096))
   samples = Math.min(MAX_SAMPLES, Math.max(MIN_SAMPLES, samples))
   if (!isPowerOfTwo(samples)) throw new Error('samples must be a power of two')
   const thdMaxOrder = Math.min(maxOrderWanted, samples / 4)

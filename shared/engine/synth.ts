@@ -101,25 +101,55 @@ function pole(input: SynthesisInput, shift: number): Float64Array {
   for (let j = 0; j <= S; j++) m[j] = input.reference((TWO_PI * j) / S - shift)
   const { list, offset } = comparatorsFor(input.leg, input.stepVoltage)
   const dp = input.frequencyRatio / S
-  const u = new Float64Array(S + 1)
   out.fill(offset)
-  for (const c of list) {
-    for (let j = 0; j <= S; j++) u[j] = c.alpha * m[j]! + c.beta - triangle(j * dp + c.tau)
+  // Comparisons sharing a carrier share its samples and vertices.
+  const byCarrier = new Map<number, Comparator[]>()
+  for (const c of list) byCarrier.set(c.tau, [...(byCarrier.get(c.tau) ?? []), c])
+  const u = new Float64Array(S + 1)
+  const carrier = new Float64Array(S + 1)
+  const first = new Int32Array(S + 1)
+  const maxVertices = 2 * Math.ceil(input.frequencyRatio) + 4
+  const vertexZ = new Float64Array(maxVertices)
+  const vertexC = new Float64Array(maxVertices)
+  for (const [tau, comparisons] of byCarrier) {
+    for (let j = 0; j <= S; j++) carrier[j] = triangle(j * dp + tau)
+    // Carrier vertices (troughs at whole, peaks at half periods) inside each interval, as fractions z of it.
+    let count = 0
+    let v = (Math.floor(2 * tau) + 1) / 2
     for (let j = 0; j < S; j++) {
-      const p0 = j * dp + c.tau
-      const p1 = p0 + dp
-      let zPrev = 0
-      let uPrev = u[j]!
-      let area = 0
-      for (let v = (Math.floor(2 * p0) + 1) / 2; v < p1; v += 0.5) {
-        const z = (v - p0) / dp
-        const uv = c.alpha * (m[j]! + z * (m[j + 1]! - m[j]!)) + c.beta - triangle(v)
-        area += (z - zPrev) * positiveFraction(uPrev, uv)
-        zPrev = z
-        uPrev = uv
+      first[j] = count
+      const p0 = j * dp + tau
+      for (; v < p0 + dp && count < maxVertices; v += 0.5) {
+        vertexZ[count] = (v - p0) / dp
+        vertexC[count] = Math.round(2 * v) % 2 === 0 ? 0 : 1
+        count++
       }
-      area += (1 - zPrev) * positiveFraction(uPrev, u[j + 1]!)
-      out[j]! += c.weight * area
+    }
+    first[S] = count
+    for (const c of comparisons) {
+      for (let j = 0; j <= S; j++) u[j] = c.alpha * m[j]! + c.beta - carrier[j]!
+      for (let j = 0; j < S; j++) {
+        const from = first[j]!
+        const to = first[j + 1]!
+        let area: number
+        if (from === to) {
+          area = positiveFraction(u[j]!, u[j + 1]!)
+        }
+        else {
+          let zPrev = 0
+          let uPrev = u[j]!
+          area = 0
+          for (let k = from; k < to; k++) {
+            const z = vertexZ[k]!
+            const uv = c.alpha * (m[j]! + z * (m[j + 1]! - m[j]!)) + c.beta - vertexC[k]!
+            area += (z - zPrev) * positiveFraction(uPrev, uv)
+            zPrev = z
+            uPrev = uv
+          }
+          area += (1 - zPrev) * positiveFraction(uPrev, u[j + 1]!)
+        }
+        out[j]! += c.weight * area
+      }
     }
   }
   return out

@@ -55,6 +55,12 @@ describe('fonts', () => {
     await expect(loadFonts(async name => (name === 'Roboto-Medium.ttf' ? null : Buffer.from('x')))).rejects.toThrow(/Roboto-Medium\.ttf is missing/)
   })
 
+  it("accepts the Uint8Array a built server's asset storage returns", async () => {
+    const loaded = await loadFonts(async name => new Uint8Array(fonts[name === 'Roboto-Regular.ttf' ? 'normal' : name === 'Roboto-Medium.ttf' ? 'bold' : name === 'Roboto-Italic.ttf' ? 'italics' : 'bolditalics']))
+    expect(Buffer.isBuffer(loaded.bold)).toBe(true)
+    expect(loaded.bold.equals(fonts.bold)).toBe(true)
+  })
+
   it('refuses to render without font bytes, naming the style', async () => {
     await expect(bomToPdf(demoSnapshot(), { ...fonts, italics: Buffer.alloc(0) })).rejects.toThrow(/fonts\.italics/)
   })
@@ -88,6 +94,13 @@ describe('bomToPdf', () => {
     // characters outside Latin-1 survive (µ in a description, × in references)
     expect(text).toContain('500 µF')
     expect(text).toContain('machine S1 (×3)')
+  })
+
+  it('an empty BOM still renders (header, totals row, safety note)', async () => {
+    const empty = { ...demoSnapshot(), lines: [], positions: [], totals: { lines: 0, pieces: 0, extendedPrice: 0, unpricedLines: 0 } }
+    const pdf = await bomToPdf(empty, fonts)
+    expect(pageCount(pdf)).toBe(1)
+    if (hasPdfToText) expect(flat(pdfText(pdf))).toContain('Total, 0 lines')
   })
 
   it.skipIf(!hasPdfToText)('a 500-line BOM spans many pages and repeats the table header on page 2 [skipped when /usr/bin/pdftotext is missing]', async () => {

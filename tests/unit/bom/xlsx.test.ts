@@ -105,6 +105,20 @@ describe('bomToXlsx read back with exceljs', async () => {
   })
 })
 
+describe('bomToXlsx edge cases', () => {
+  it('an empty BOM still has its header, filter and zero totals', async () => {
+    const empty = { ...demoSnapshot(), lines: [], positions: [], totals: { lines: 0, pieces: 0, extendedPrice: 0, unpricedLines: 0 } }
+    const sheet = (await readBack(await bomToXlsx(empty))).getWorksheet('BOM')!
+    expect(sheet.getRow(1).getCell(3).value).toBe('Part number')
+    expect(sheet.getRow(3).getCell(10).result).toBe(0)
+  })
+
+  it('escapes "&" in the printed page header (it starts a control code there)', async () => {
+    const wb = await readBack(await bomToXlsx(demoSnapshot({ company: 'Morrow & Quill' })))
+    expect(wb.getWorksheet('BOM')!.headerFooter.oddHeader).toContain('&LMorrow && Quill&C')
+  })
+})
+
 describe('bomToXlsx against formula injection', async () => {
   const wb = await readBack(await bomToXlsx(hostileSnapshot(), { 'manual-1': { orderReference: '=2*3' } }))
 

@@ -1,6 +1,6 @@
 // The column definition drives the template, mapping and validation: check they agree.
 import { describe, expect, it } from 'vitest'
-import { buildTemplateRows, CATALOG_COLUMNS, isUnitsRow, PACKAGE_CONFIGURATIONS, PART_KINDS, unitsRowLabel } from '../../../catalog/columns'
+import { buildTemplateRows, CATALOG_COLUMNS, describeColumns, isUnitsRow, PACKAGE_CONFIGURATIONS, PART_KINDS, unitsRowLabel } from '../../../catalog/columns'
 import { suggestMapping } from '../../../shared/catalog/mapping'
 import { UNIT_SPECS } from '../../../shared/catalog/units'
 import { validateRows } from '../../../shared/catalog/validate'
@@ -33,6 +33,14 @@ describe('catalogue columns', () => {
     for (const row of t.examples) expect(row).toHaveLength(CATALOG_COLUMNS.length)
     expect(isUnitsRow(t.units)).toBe(true)
     expect(isUnitsRow(t.examples[0]!)).toBe(false)
+  })
+
+  it('describes every column for the guide sheet', () => {
+    const guide = describeColumns()
+    expect(guide).toHaveLength(CATALOG_COLUMNS.length)
+    expect(guide[0]).toMatchObject({ header: 'Part number', requiredFor: 'all' })
+    expect(guide.find(g => g.header === 'Turn-on energy Eon')).toMatchObject({ unit: 'J', requiredFor: 'switch-diode, switch', allowedValues: '0…100 J' })
+    expect(guide.find(g => g.header === 'Lifecycle')).toMatchObject({ requiredFor: 'none', allowedValues: 'active, nrnd, obsolete' })
   })
 
   it('example rows fill every required cell and validate (apart from being examples)', () => {

@@ -235,6 +235,13 @@ describe('commercial data', () => {
     expect(all.candidates.map(c => c.part.partNumber)).toEqual(['NRND', 'OLD'])
   })
 
+  it('warns that a switch without diode needs a separate diode', () => {
+    const [c] = matchPosition(twoLevel('switch'), [igbt({ kind: 'switch', packageConfiguration: 'single', currentRating: 600 })], policy).candidates
+    expect(c!.warnings).toContain('switch without anti-parallel diode: the diode position needs a part of its own')
+    expect(c!.sharedPackage).toBe(false)
+    expect(matchPosition(twoLevel('diode'), [igbt({ kind: 'switch', packageConfiguration: 'single' })], policy).candidates).toEqual([])
+  })
+
   it('sorts by cost per design among equals', () => {
     const parts = [igbt({ partNumber: 'DEAR', currentRating: 600 }), igbt({ partNumber: 'CHEAP', currentRating: 600, priceBreaks: [{ minQuantity: 1, unitPrice: 99 }] })]
     expect(matchPosition(twoLevel('switch'), parts, policy).candidates.map(c => c.part.partNumber)).toEqual(['CHEAP', 'DEAR'])

@@ -1,6 +1,7 @@
 // Reading uploads: .xlsx and .csv, and everything that must be refused with the cell or row named.
 // Fixtures are generated here (exceljs, a small zip writer), nothing binary is committed.
 import { execFileSync } from 'node:child_process'
+import fc from 'fast-check'
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
@@ -141,6 +142,13 @@ describe('readCatalogFile: .xlsx', () => {
     const ok = await readCatalogFile(buffer, 'big.xlsx', { maxRows: 51 })
     expect(ok.errors).toEqual([])
     expect(ok.rows).toHaveLength(51)
+  })
+
+  it('stops early on a sheet far past the row limit or absurdly wide', async () => {
+    const tall = await workbookBuffer([{ name: 'Parts', rows: [['Part number'], ...Array.from({ length: 150 }, (_, i) => [`P-${i}`])] }])
+    expect(messages((await readCatalogFile(tall, 'tall.xlsx', { maxRows: 50 })).errors)).toBe("'tall.xlsx' has more than 110 rows in a sheet; the limit is 50 parts per upload: split the file")
+    const wide = await workbookBuffer([{ name: 'Parts', rows: [Array.from({ length: 1001 }, (_, i) => `H${i}`)] }])
+    expect(messages((await readCatalogFile(wide, 'wide.xlsx')).errors)).toMatch(/has more than 1000 columns in a row/)
   })
 
   it('lists at most maxProblems problems and counts the rest', async () => {
@@ -318,6 +326,18 @@ describe('CSV parser', () => {
 
   it('keeps the last record without a final line break and empty cells', () => {
     expect(parseCsv('a;;c', ';')).toEqual({ ok: true, records: [{ rowNumber: 1, line: 1, cells: ['a', '', 'c'] }] })
+  })
+
+  it('reads back any table written with RFC 4180 quoting (fast-check)', () => {
+    const cell = fc.string({ unit: fc.constantFrom('a', 'Z', '1', ' ', ',', ';', '"', '\n', '\r\n', 'µ', 'Ω'), maxLength: 8 })
+    fc.assert(fc.property(fc.array(fc.array(cell, { minLength: 2, maxLength: 5 }), { minLength: 1, maxLength: 6 }), fc.constantFrom<',' | ';'>(',', ';'), (table, d) => {
+      const width = table[0]!.length
+      const rows = table.map(r => [...r, ...Array(width).fill('')].slice(0, width))
+      const text = rows.map(r => r.map(c => `"${c.replace(/"/g, '""')}"`).join(d)).join('\r\n')
+      const result = parseCsv(text, d)
+      expect(result.ok).toBe(true)
+      if (result.ok) expect(result.records.map(r => r.cells)).toEqual(rows)
+    }))
   })
 
   it('detects the delimiter from the first line, outside quotes', () => {

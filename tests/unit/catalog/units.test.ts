@@ -1,4 +1,5 @@
 // Cell values with units and SI prefixes. Expected values are worked by hand (SI prefix arithmetic).
+import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { parseNumberText, parseQuantity, unitFactor, unitScaleFromHeader, type QuantityOptions } from '../../../shared/catalog/units'
 
@@ -110,5 +111,30 @@ describe('number text and unit helpers', () => {
     expect(unitScaleFromHeader('Rth jc (K/W)', 'K/W')).toBe(1)
     expect(unitScaleFromHeader('VCES', 'V')).toBeNull()
     expect(unitScaleFromHeader('Ic (V)', 'A')).toBeNull()
+  })
+})
+
+describe('parseQuantity: properties (fast-check)', () => {
+  const prefixes: [string, number][] = [['', 1], ['k', 1e3], ['m', 1e-3], ['µ', 1e-6], ['M', 1e6]]
+
+  it('reads any decimal number with any SI prefix, with either decimal separator', () => {
+    fc.assert(fc.property(
+      fc.double({ min: -1e6, max: 1e6, noNaN: true, noDefaultInfinity: true }),
+      fc.constantFrom(...prefixes),
+      fc.constantFrom<'.' | ','>('.', ','),
+      (x, [prefix, factor], separator) => {
+        const text = x.toFixed(4).replace('.', separator)
+        const result = parseQuantity(`${text} ${prefix}V`, 'V', { decimalSeparator: separator })
+        expect(result.ok).toBe(true)
+        if (result.ok) expect(result.value).toBeCloseTo(Number(x.toFixed(4)) * factor, Math.max(0, 6 - Math.log10(factor)))
+      },
+    ))
+  })
+
+  it('reads thousands groups of any integer', () => {
+    fc.assert(fc.property(fc.integer({ min: 0, max: 1e9 }), fc.constantFrom(' ', '\u00A0', "'"), (n, sep) => {
+      const grouped = String(n).replace(/\B(?=(\d{3})+(?!\d))/g, sep)
+      expect(parseQuantity(`${grouped} A`, 'A', { decimalSeparator: '.' })).toEqual({ ok: true, value: n })
+    }))
   })
 })

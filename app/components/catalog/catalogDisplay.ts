@@ -1,0 +1,158 @@
+// How catalogue values read on screen: labels and units from catalog/columns.ts (the one column
+// definition), field groups for the part page, a field diff between part versions, import shapes.
+import {
+  CATALOG_COLUMNS, COLUMN_BY_KEY, LIFECYCLES, PACKAGE_CONFIGURATIONS, PART_KINDS, SEMICONDUCTOR_KINDS,
+  type CatalogColumn, type ColumnKey, type Lifecycle, type PartKind,
+} from '~~/catalog/columns'
+import type { MappingSuggestion, MatchReason } from '#shared/catalog/mapping'
+import type { CatalogPart, ColumnMapping, PriceBreak, TableProblem, ValidationIssue } from '#shared/catalog/types'
+import { formatSi } from '#shared/utils/si'
+
+export { CATALOG_COLUMNS, COLUMN_BY_KEY, LIFECYCLES, PART_KINDS }
+
+/** Upload limits the server enforces (server/services/catalog-import.ts UPLOAD_LIMITS). */
+export const UPLOAD_LIMITS = { maxBytes: 10 * 1024 * 1024, maxRows: 20_000 }
+
+/** The answer of upload, GET import and preview (server/services/catalog-import.ts describeImport). */
+export interface ImportDescription {
+  import: { id: number; filename: string; sizeBytes: number; status: string; sheetName: string; createdAt: string; catalogVersionId: number | null }
+  headers: string[]
+  headerRowNumber: number
+  suggestions: MappingSuggestion[]
+  unusedHeaders: { index: number; header: string; column: string }[]
+  mapping: ColumnMapping
+  decimalSeparator: '.' | ','
+  warnings: TableProblem[]
+  preview: { rowsRead: number; rowsWithErrors: number; validParts: number; issues: ValidationIssue[]; truncated: boolean; sample: CatalogPart[] }
+}
+
+export interface CommitSummary { catalogVersionId: number; number: number; added: number; updated: number; unchanged: number }
+
+export const kindLabels: Record<PartKind, string> = {
+  'switch-diode': 'Switch + diode',
+  'switch': 'Switch',
+  'diode': 'Diode',
+  'capacitor': 'Capacitor',
+}
+
+export const lifecycleLabels: Record<Lifecycle, string> = {
+  active: 'Active',
+  nrnd: 'Not for new designs',
+  obsolete: 'Obsolete',
+}
+
+export const lifecycleBadgeClass: Record<Lifecycle, string> = {
+  active: 'bg-teal-100 text-teal-900',
+  nrnd: 'bg-amber-100 text-amber-900',
+  obsolete: 'bg-rose-100 text-rose-900',
+}
+
+/** Spreadsheet column letter of a 0-based index (same rule as the server's). */
+export { columnLetter } from '#shared/catalog/mapping'
+
+/** Column header with its unit, e.g. "Voltage rating [V]". */
+export function labelWithUnit(column: CatalogColumn): string {
+  return column.unit && column.unit !== 'per piece' ? `${column.header} [${column.unit}]` : column.header
+}
+
+/** When a catalogue column must be filled, in words ("" when optional). */
+export function requiredText(column: CatalogColumn): string {
+  const kinds = column.requiredFor
+  if (kinds.length === 0) return ''
+  if (kinds.length === PART_KINDS.length) return 'required'
+  if (kinds.length === SEMICONDUCTOR_KINDS.length && SEMICONDUCTOR_KINDS.every(k => kinds.includes(k))) return 'required for semiconductors'
+  return `required for ${kinds.map(k => kindLabels[k].toLowerCase()).join(', ')}`
+}
+
+export const reasonLabels: Record<MatchReason, string> = {
+  label: 'same name as the template',
+  alias: 'a usual name for this column',
+  contains: 'header contains the name',
+  similar: 'similar name',
+  none: 'no matching header',
+}
+
+export function money(value: number | null | undefined, currency?: string | null): string {
+  if (value === null || value === undefined) return '—'
+  return `${value.toLocaleString('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 })}${currency ? ` ${currency}` : ''}`
+}
+
+export function formatPriceBreaksText(breaks: readonly PriceBreak[], currency?: string | null): string {
+  if (!breaks.length) return '—'
+  return breaks.map(b => `from ${b.minQuantity.toLocaleString('en-GB')} pcs: ${money(b.unitPrice, currency)}`).join('; ')
+}
+
+/** Units shown with an SI prefix ("1.2 kV", "2.1 mΩ", "45 mJ", "500 µF"). */
+const PREFIXED_UNITS = new Set(['V', 'A', 'Ω', 'J', 'F'])
+
+function plainNumber(value: number): string {
+  return Number(value.toPrecision(6)).toLocaleString('en-GB', { maximumFractionDigits: 6 })
+}
+
+/** One quantity in a column's unit as the UI shows it. */
+export function formatQuantity(value: number | null | undefined, unit: string): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—'
+  if (PREFIXED_UNITS.has(unit)) return formatSi(value, unit, 4)
+  if (unit === 'd') return `${plainNumber(value)} ${value === 1 ? 'day' : 'days'}`
+  if (unit === 'pcs') return `${plainNumber(value)} pcs`
+  return unit ? `${plainNumber(value)} ${unit}` : plainNumber(value)
+}
+
+/** A part's field as the UI shows it, with its unit from columns.ts. */
+export function formatField(key: ColumnKey, part: Partial<CatalogPart>): string {
+  const value = (part as Record<string, unknown>)[key]
+  const column = COLUMN_BY_KEY[key]
+  if (key === 'priceBreaks') return formatPriceBreaksText((value as PriceBreak[] | undefined) ?? [], part.currency)
+  if (value === undefined || value === null || value === '') return '—'
+  if (key === 'kind') return kindLabels[value as PartKind] ?? String(value)
+  if (key === 'lifecycle') return lifecycleLabels[value as Lifecycle] ?? String(value)
+  if (key === 'packageConfiguration') return PACKAGE_CONFIGURATIONS[value as keyof typeof PACKAGE_CONFIGURATIONS]?.label ?? String(value)
+  if (typeof value === 'number') return formatQuantity(value, column.unit)
+  return String(value)
+}
+
+/** The part page's groups of fields (every catalogue column appears in exactly one). */
+export const FIELD_GROUPS: { id: string; title: string; keys: ColumnKey[] }[] = [
+  { id: 'identity', title: 'Part', keys: ['partNumber', 'manufacturer', 'kind', 'packageConfiguration', 'technology', 'description', 'datasheetUrl'] },
+  { id: 'ratings', title: 'Ratings', keys: ['voltageRating', 'currentRating', 'junctionTemperatureMax'] },
+  { id: 'conduction', title: 'Conduction (on-state model v = V0 + r·i, hot)', keys: ['switchThresholdVoltage', 'switchSlopeResistance', 'diodeThresholdVoltage', 'diodeSlopeResistance'] },
+  { id: 'switching', title: 'Switching energies per event', keys: ['turnOnEnergy', 'turnOffEnergy', 'recoveryEnergy', 'energyReferenceVoltage', 'energyReferenceCurrent'] },
+  { id: 'thermal', title: 'Thermal', keys: ['rthJunctionCaseSwitch', 'rthJunctionCaseDiode', 'rthCaseHeatsink'] },
+  { id: 'capacitor', title: 'Capacitor', keys: ['capacitance', 'rippleCurrentRating', 'esr'] },
+  { id: 'commercial', title: 'Commercial', keys: ['priceBreaks', 'currency', 'minimumOrderQuantity', 'stock', 'leadTimeDays', 'lifecycle', 'supplier'] },
+]
+
+function hasValue(part: Partial<CatalogPart>, key: ColumnKey): boolean {
+  const v = (part as Record<string, unknown>)[key]
+  return Array.isArray(v) ? v.length > 0 : v !== undefined && v !== null && v !== ''
+}
+
+/** Groups that hold at least one value for this part (a capacitor has no switching energies). */
+export function groupsFor(part: Partial<CatalogPart>) {
+  return FIELD_GROUPS.filter(g => g.keys.some(k => hasValue(part, k)))
+}
+
+export interface FieldChange { key: ColumnKey; label: string; before: string; after: string }
+
+/** Fields that differ between an older and a newer version of a part, in column order. */
+export function diffParts(older: Partial<CatalogPart>, newer: Partial<CatalogPart>): FieldChange[] {
+  const changes: FieldChange[] = []
+  for (const column of CATALOG_COLUMNS) {
+    const a = (older as Record<string, unknown>)[column.key]
+    const b = (newer as Record<string, unknown>)[column.key]
+    if (JSON.stringify(a ?? null) === JSON.stringify(b ?? null)) continue
+    if (column.key === 'priceBreaks' && !(a as unknown[] | undefined)?.length && !(b as unknown[] | undefined)?.length) continue
+    changes.push({ key: column.key, label: column.header, before: formatField(column.key, older), after: formatField(column.key, newer) })
+  }
+  return changes
+}
+
+export function formatBytes(bytes: number): string {
+  if (bytes >= 1024 * 1024) return `${(bytes / 1024 / 1024).toFixed(1)} MB`
+  return `${Math.max(1, Math.ceil(bytes / 1024))} kB`
+}
+
+export function formatDate(value: string | Date | null | undefined): string {
+  if (!value) return '—'
+  return new Date(value).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })
+}

@@ -1,0 +1,61 @@
+import { and, eq } from 'drizzle-orm'
+import { z } from 'zod'
+import { idParam } from '#shared/schemas/auth'
+import type { DesignInput } from '#shared/engine'
+import { designReportPdf } from '~~/server/exports/design-pdf'
+import { pdfFonts, SAFETY_NOTE, topologySummary } from '~~/server/services/bom'
+import { loadDesign, previewDesign } from '~~/server/services/designs'
+
+// The printable design report: inputs, results, warnings, waveform and spectrum, safety note.
+export default defineEventHandler(async (event) => {
+  await requireRole(event, 'designs:read')
+  const { id } = paramsValid(event, idParam)
+  const { revision } = queryValid(event, z.object({ revision: z.coerce.number().int().positive().optional() }))
+  const design = await loadDesign(id)
+  const db = useDb()
+  const rev = revision ?? design.revision
+  const [row] = await db.select({ input: tables.designRevisions.input, name: tables.designRevisions.name, at: tables.designRevisions.createdAt, author: tables.users.name })
+    .from(tables.designRevisions).leftJoin(tables.users, eq(tables.users.id, tables.designRevisions.authorId))
+    .where(and(eq(tables.designRevisions.designId, id), eq(tables.designRevisions.revision, rev)))
+  if (!row) throw createError({ statusCode: 404, message: `Design ${id} has no revision ${rev}.` })
+  const input = row.input as DesignInput
+  const preview = previewDesign(input)
+  const twoSides = !!input.gridSide
+  const inputs: [string, string | number, string][] = []
+  for (const [label, c] of [['Machine side', input.machineSide], ['Grid side', input.gridSide]] as const) {
+    if (!c) continue
+    const p = twoSides ? `${label}: ` : ''
+    if (c.levels) inputs.push([`${p}levels`, c.levels, ''])
+    if (c.dcVoltage) inputs.push([`${p}DC voltage nominal`, c.dcVoltage, 'V'], [`${p}DC voltage worst case`, c.dcVoltageMax ?? c.dcVoltage, 'V'])
+    if (c.inputLineVoltageRms) inputs.push([`${p}input line voltage`, c.inputLineVoltageRms, 'V'])
+    inputs.push([`${p}modulation`, c.modulation, ''], [`${p}switching frequency`, c.switchingHz, 'Hz'])
+    if (c.overshootVoltage !== undefined) inputs.push([`${p}overshoot`, c.overshootVoltage, 'V'])
+  }
+  const machine = preview.result.converters[0]!
+  const extras = preview.extras.machine
+  const pdf = await designReportPdf({
+    designName: row.name,
+    revision: rev,
+    author: row.author ?? '—',
+    date: new Date(row.at).toISOString(),
+    topologySummary: topologySummary(input),
+    inputs,
+    operatingPoints: preview.result.converters.flatMap(c => c.points.map(pt => {
+      const conv = c.side === 'grid' ? input.gridSide! : input.machineSide
+      const op = conv.operatingPoints.find(o => o.name === pt.pointName)!
+      return { ...op, name: twoSides ? `${c.side}: ${op.name}` : op.name, modulationIndex: pt.modulationIndex, lineVoltageThd: pt.lineVoltageThd }
+    })),
+    devices: preview.result.converters.flatMap(c => c.envelope.devices.map(d => ({ ...d, ...(twoSides ? { converter: c.side } : {}) }))),
+    capacitors: preview.result.converters.flatMap(c => c.envelope.capacitors.map(d => ({ ...d, ...(twoSides ? { converter: c.side } : {}) }))),
+    warnings: [...preview.result.warnings, ...preview.result.converters.flatMap(c => c.warnings)],
+    waveform: extras?.waveform ? { title: extras.pointName, time: extras.waveform.time, lineVoltage: extras.waveform.lineVoltage, phaseCurrent: extras.waveform.phaseCurrent } : undefined,
+    spectrum: extras?.spectrum,
+    lineVoltageThd: extras?.thd ?? machine.points[0]?.lineVoltageThd,
+    safetyNote: SAFETY_NOTE,
+  }, await pdfFonts())
+  setResponseHeaders(event, {
+    'Content-Type': 'application/pdf',
+    'Content-Disposition': `attachment; filename="Design-${row.name.replace(/[^\w-]+/g, '_').slice(0, 40)}-rev${rev}.pdf"`,
+  })
+  return pdf
+})

@@ -1,0 +1,89 @@
+// Trade study: one duty through several topologies and level counts, side by side.
+import { evaluateDesign, EngineInputError, topologyById, type ConverterInput, type DesignInput, type TopologyId } from '#shared/engine'
+import { matchPosition } from '#shared/catalog/matching'
+import type { TradeStudyInput } from '#shared/schemas/trade-study'
+import { currentParts } from './catalog'
+import { designPositions, matchPolicy } from './parts'
+
+export const defaultCandidates: { topology: TopologyId; levels?: number }[] = [
+  { topology: 'two-level', levels: 2 },
+  { topology: 'diode-clamped', levels: 3 },
+  { topology: 't-type', levels: 3 },
+  { topology: 'anpc', levels: 3 },
+  { topology: 'flying-capacitor', levels: 3 },
+  { topology: 'diode-clamped', levels: 5 },
+  { topology: 'flying-capacitor', levels: 5 },
+  { topology: 'cascaded-h-bridge', levels: 5 },
+  { topology: 'cascaded-h-bridge', levels: 7 },
+  { topology: 'matrix' },
+]
+
+/** The converter a candidate needs for the duty: a cascaded H-bridge gets cells of V_dc/(N−1), so that its devices block what the diode-clamped leg's do. */
+export function candidateConverter(duty: TradeStudyInput, topology: TopologyId, levels?: number): ConverterInput {
+  const t = topologyById[topology]
+  const modulation = t.modulations.includes('space-vector') ? 'space-vector' : 'sine'
+  const n = levels ?? t.defaultLevels ?? 3
+  const perCell = (v: number | undefined) => (v === undefined ? undefined : v / (n - 1))
+  const maxLine = Math.max(...duty.operatingPoints.map(p => p.lineVoltageRms))
+  return {
+    topology,
+    levels: t.allowedLevels === 'ignored' ? undefined : n,
+    dcVoltage: t.supply === 'cell' ? perCell(duty.dcVoltage) : t.supply === 'dc-link' ? duty.dcVoltage : undefined,
+    dcVoltageMax: t.supply === 'cell' ? perCell(duty.dcVoltageMax) : t.supply === 'dc-link' ? duty.dcVoltageMax : undefined,
+    // Matrix: the grid voltage; by default one that keeps the transfer ratio at 0.8 of the 0.866 limit's headroom.
+    inputLineVoltageRms: t.supply === 'ac-input' ? (duty.inputLineVoltageRms ?? Math.ceil(maxLine / 0.8)) : undefined,
+    switchingHz: duty.switchingHz,
+    modulation,
+    overshootVoltage: duty.overshootVoltage,
+    operatingPoints: duty.operatingPoints,
+  }
+}
+
+export async function runTradeStudy(duty: TradeStudyInput) {
+  const parts = await currentParts()
+  const rows = (duty.candidates ?? defaultCandidates).map(({ topology, levels }) => {
+    const converter = candidateConverter(duty, topology, levels)
+    const input: DesignInput = { machineSide: converter, derating: duty.derating }
+    const label = `${topologyById[topology].label}${topologyById[topology].allowedLevels === 'ignored' ? '' : `, N = ${converter.levels}`}`
+    let result
+    try {
+      result = evaluateDesign(input)
+    } catch (err) {
+      if (err instanceof EngineInputError) return { topology, levels: converter.levels ?? null, label, input, error: `${err.field}: ${err.message}` }
+      throw err
+    }
+    const conv = result.converters[0]!
+    const first = conv.points[0]!
+    const switches = conv.envelope.devices.filter(d => d.kind === 'switch')
+    const policy = matchPolicy(input, result, { buildQuantity: 1, sparesPercent: 0, manualLines: [] })
+    let lossW: number | null = 0
+    let cost: number | null = 0
+    const unmatched: string[] = []
+    for (const { duty: d } of designPositions(input, result)) {
+      const best = matchPosition(d, parts, policy).candidates[0]
+      if (!best) { unmatched.push(d.positionName); continue }
+      lossW = lossW === null || best.losses === null ? null : lossW + best.losses.perConverter
+      cost = cost === null || best.costPerDesign === null ? null : cost + best.costPerDesign
+    }
+    return {
+      topology,
+      levels: converter.levels ?? null,
+      label,
+      input,
+      modulationIndex: Math.max(...conv.points.map(p => p.modulationIndex)),
+      switchesTotal: first.counts.switchesTotal,
+      diodesTotal: first.counts.diodesTotal,
+      clampDiodesTotal: first.counts.clampDiodesTotal,
+      devicesTotal: first.counts.switchesTotal + first.counts.diodesTotal + first.counts.clampDiodesTotal,
+      capacitors: conv.envelope.capacitors.reduce((s, c) => s + c.count, 0),
+      voltageClasses: switches.map(s => ({ position: s.name, required: s.requiredVoltageRating, voltageClass: s.voltageClass ?? null })),
+      highestVoltageClass: Math.max(...switches.map(s => s.voltageClass ?? Infinity)),
+      lineVoltageThd: first.lineVoltageThd,
+      semiconductorLossW: unmatched.length ? null : lossW,
+      semiconductorCost: unmatched.length ? null : cost,
+      unmatched,
+      warnings: [...conv.warnings, ...result.warnings],
+    }
+  })
+  return { rows }
+}
