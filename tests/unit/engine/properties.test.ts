@@ -69,8 +69,8 @@ describe('random valid inputs (first principles: bounds every stress must respec
         expect(r.warnings.some(w => w.startsWith('Over-modulation'))).toBe(over)
         if (!over) expect(Math.abs(r.lineVoltageFundamentalRms - input.lineVoltageRms)).toBeLessThanOrEqual(1e-5 * input.lineVoltageRms + 1e-9)
       }
-    }), { numRuns: 150 })
-  })
+    }), { numRuns: 120 })
+  }, 60_000)
 })
 
 type Corruption = { field: keyof StressInput; value: unknown; applies?: (i: StressInput) => boolean }
@@ -116,5 +116,5 @@ describe('random invalid inputs', () => {
       expect((caught as EngineInputError).field).toBe(c.field)
       expect((caught as EngineInputError).message).toContain(c.field === 'dcVoltageMax' ? 'dcVoltageMax' : String(c.field))
     }), { numRuns: 300 })
-  })
+  }, 60_000)
 })
