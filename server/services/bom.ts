@@ -1,5 +1,6 @@
 // Bills of materials: the live draft from a design's part assignments, and released snapshots that
 // never change afterwards (a new release is a new revision with the changes listed).
+import type { H3Event } from 'h3'
 import { desc, eq } from 'drizzle-orm'
 import { buildBomSnapshot, diffBoms, type BomBuildInput, type CapacitorFill, type PositionFill } from '#shared/bom/build'
 import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
@@ -158,6 +159,17 @@ function bomFileName(snapshot: BomSnapshot, format: 'xlsx' | 'pdf') {
 export async function bomFile(snapshot: BomSnapshot, format: 'xlsx' | 'pdf', purchase: BomPurchase = {}) {
   const content = format === 'xlsx' ? await bomToXlsx(snapshot, purchase) : await bomToPdf(snapshot, await pdfFonts(), purchase)
   return { filename: bomFileName(snapshot, format), content }
+}
+
+/** Answers a download of a released BOM. */
+export async function sendBomFile(event: H3Event, id: number, format: 'xlsx' | 'pdf') {
+  const bom = await loadBom(id)
+  const file = await bomFile(bom.snapshot as BomSnapshot, format, await purchaseOf(id))
+  setResponseHeaders(event, {
+    'Content-Type': format === 'pdf' ? 'application/pdf' : 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+    'Content-Disposition': `attachment; filename="${file.filename}"`,
+  })
+  return file.content
 }
 
 /** Releases the draft as an immutable snapshot and mails purchasing with both files attached. */

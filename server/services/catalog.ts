@@ -4,6 +4,15 @@ import { eq, inArray, isNotNull, sql } from 'drizzle-orm'
 import type { CatalogPart } from '#shared/catalog/types'
 
 const BATCH = 500
+/** JSON with sorted keys: jsonb does not keep key order, so a plain stringify would see every part as changed. */
+function canonical(value: unknown): string {
+  if (Array.isArray(value)) return `[${value.map(canonical).join(',')}]`
+  if (value && typeof value === 'object') {
+    return `{${Object.keys(value).filter(k => (value as Record<string, unknown>)[k] !== undefined).sort().map(k => `${JSON.stringify(k)}:${canonical((value as Record<string, unknown>)[k])}`).join(',')}}`
+  }
+  return JSON.stringify(value)
+}
+
 const key = (manufacturer: string, partNumber: string) => `${manufacturer.trim().toLowerCase()}\u0000${partNumber.trim().toLowerCase()}`
 
 /** Columns of part_versions that the parts browser filters and sorts on. */
@@ -46,7 +55,7 @@ export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userI
     const part = stripImportFields(raw)
     const found = byKey.get(key(part.manufacturer, part.partNumber))
     if (!found) fresh.push(part)
-    else if (JSON.stringify(found.data) !== JSON.stringify(part)) changed.push({ partId: found.id, part })
+    else if (canonical(found.data) !== canonical(part)) changed.push({ partId: found.id, part })
     else unchanged++
   }
   for (let i = 0; i < fresh.length; i += BATCH) {

@@ -1,5 +1,6 @@
 // Leg schematic hints for the UI: ordered positions with slots and the nodes they join. Data only.
 import { EngineInputError } from './errors'
+import type { CapacitorDef } from './model'
 import { topologyById } from './topologies'
 import type { DeviceKind, TopologyId } from './types'
 import { legFor } from './validate'
@@ -14,6 +15,7 @@ export interface LegLayoutItem {
   nodes: [string, string]
   /** the switch a diode is anti-parallel to: draw it beside that switch */
   antiParallelTo?: string
+  /** devices per phase at the position; capacitors: how many the drawn one stands for (cells per phase, or the whole shared DC-link string) */
   countPerPhase: number
 }
 
@@ -29,6 +31,12 @@ export interface LegLayout {
   items: LegLayoutItem[]
 }
 
+/** How many capacitors one drawn capacitor stands for: a cell's per phase, the shared DC-link string whole, a flying capacitor one. */
+function capacitorsDrawn(supply: string, c: CapacitorDef, cells = 1): number {
+  if (supply === 'cell') return cells
+  return c.kind === 'flying' ? 1 : c.countInConverter
+}
+
 /** Ordered device (and capacitor) positions of one phase leg for a level count. */
 export function legLayout(topology: TopologyId, levels?: number): LegLayout {
   const t = topologyById[topology]
@@ -40,7 +48,7 @@ export function legLayout(topology: TopologyId, levels?: number): LegLayout {
   const leg = legFor(t, n)
   const items: LegLayoutItem[] = [
     ...leg.positions.map(p => ({ name: p.name, kind: p.kind, row: p.row, column: p.column, nodes: p.nodes, ...(p.antiParallelTo ? { antiParallelTo: p.antiParallelTo } : {}), countPerPhase: p.countPerPhase })),
-    ...leg.def.capacitors.map(c => ({ name: c.name, kind: 'capacitor' as const, row: c.row, column: c.column, nodes: c.nodes, countPerPhase: c.kind === 'flying' ? 1 : c.countInConverter })),
+    ...leg.def.capacitors.map(c => ({ name: c.name, kind: 'capacitor' as const, row: c.row, column: c.column, nodes: c.nodes, countPerPhase: capacitorsDrawn(t.supply, c, leg.def.cellsPerPhase) })),
   ]
   const dcNodes = t.supply === 'dc-link'
     ? Array.from(new Set(leg.def.capacitors.flatMap(c => c.nodes))).filter(x => x.startsWith('dc')).sort((a, b) => Number(a.slice(2)) - Number(b.slice(2)))

@@ -44,7 +44,8 @@ export const routeTable: RouteCase[] = [
   { file: 'designs/[id]/parts.get.ts', method: 'GET', path: '/api/designs/1/parts', access: 'designs:read' },
   { file: 'designs/[id]/parts.put.ts', method: 'PUT', path: '/api/designs/1/parts', access: 'parts:assign', body: {} },
   { file: 'designs/[id]/parts.delete.ts', method: 'DELETE', path: '/api/designs/1/parts', access: 'parts:assign', body: {} },
-  { file: 'catalog/template.[format].get.ts', method: 'GET', path: '/api/catalog/template.csv', access: 'catalog:read' },
+  { file: 'catalog/template.csv.get.ts', method: 'GET', path: '/api/catalog/template.csv', access: 'catalog:read' },
+  { file: 'catalog/template.xlsx.get.ts', method: 'GET', path: '/api/catalog/template.xlsx', access: 'catalog:read' },
   { file: 'catalog/imports.get.ts', method: 'GET', path: '/api/catalog/imports', access: 'catalog:read' },
   { file: 'catalog/imports.post.ts', method: 'POST', path: '/api/catalog/imports', access: 'catalog:write', body: {} },
   { file: 'catalog/imports/[id].get.ts', method: 'GET', path: '/api/catalog/imports/999999', access: 'catalog:read' },
@@ -64,5 +65,6 @@ export const routeTable: RouteCase[] = [
   { file: 'boms/[id].get.ts', method: 'GET', path: '/api/boms/999999', access: 'bom:read' },
   { file: 'boms/[id].patch.ts', method: 'PATCH', path: '/api/boms/999999', access: 'bom:purchase', body: {} },
   { file: 'boms/[id]/lines/[key].put.ts', method: 'PUT', path: '/api/boms/999999/lines/x', access: 'bom:purchase', body: {} },
-  { file: 'boms/[id]/export.[format].get.ts', method: 'GET', path: '/api/boms/999999/export.xlsx', access: 'bom:read' },
+  { file: 'boms/[id]/export.xlsx.get.ts', method: 'GET', path: '/api/boms/999999/export.xlsx', access: 'bom:read' },
+  { file: 'boms/[id]/export.pdf.get.ts', method: 'GET', path: '/api/boms/999999/export.pdf', access: 'bom:read' },
 ]

@@ -71,9 +71,9 @@ describe('catalogue upload in Chromium', () => {
     expect((await firstIssue.locator('td').allTextContents()).map(t => t.trim())).toEqual(['2', 'Z', 'Lifecycle', expect.stringContaining("Lifecycle: unknown value 'approved'"), 'error'])
     const commit = page.getByRole('button', { name: 'Commit as new catalogue version' })
     expect(await commit.isDisabled()).toBe(true)
+    await screenshot(page, 'catalog-preview')
     await page.getByLabel('Filter issues').fill('checked')
     await expect.poll(() => issues.locator('tbody tr').count()).toBe(1)
-    await screenshot(page, 'catalog-preview')
 
     // Back to the mapping: the real lifecycle column is "Life cycle phase" (AA).
     await page.getByRole('button', { name: 'Back to the mapping' }).click()

@@ -82,8 +82,9 @@ export function formatPriceBreaksText(breaks: readonly PriceBreak[], currency?: 
   return breaks.map(b => `from ${b.minQuantity.toLocaleString('en-GB')} pcs: ${money(b.unitPrice, currency)}`).join('; ')
 }
 
-/** Units shown with an SI prefix ("1.2 kV", "2.1 mΩ", "45 mJ", "500 µF"). */
-const PREFIXED_UNITS = new Set(['V', 'A', 'Ω', 'J', 'F'])
+/** Units shown with an SI prefix ("2.1 mΩ", "45 mJ", "500 µF"); volts and amperes only from 1 k up ("0.9 V", "1.2 kV"). */
+const PREFIXED_UNITS = new Set(['Ω', 'J', 'F'])
+const KILO_UNITS = new Set(['V', 'A'])
 
 function plainNumber(value: number): string {
   return Number(value.toPrecision(6)).toLocaleString('en-GB', { maximumFractionDigits: 6 })
@@ -92,7 +93,7 @@ function plainNumber(value: number): string {
 /** One quantity in a column's unit as the UI shows it. */
 export function formatQuantity(value: number | null | undefined, unit: string): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—'
-  if (PREFIXED_UNITS.has(unit)) return formatSi(value, unit, 4)
+  if (PREFIXED_UNITS.has(unit) || (KILO_UNITS.has(unit) && Math.abs(value) >= 1000)) return formatSi(value, unit, 4)
   if (unit === 'd') return `${plainNumber(value)} ${value === 1 ? 'day' : 'days'}`
   if (unit === 'pcs') return `${plainNumber(value)} pcs`
   return unit ? `${plainNumber(value)} ${unit}` : plainNumber(value)

@@ -1,7 +1,8 @@
 // Direct 3×3 matrix converter: each output phase reaches each input phase through a bidirectional switch.
 import type { PositionDef, StateDef, TopologyDefinition } from '../model'
 
-const inputs = ['A', 'B', 'C'] as const
+// Input phases R, S, T (so that no position name reads like a DC rail).
+const inputs = ['R', 'S', 'T'] as const
 
 /**
  * One output phase ("leg") = three bidirectional switches, each two IGBTs in common-emitter

@@ -66,7 +66,21 @@ export function deviceKindLabel(kind: string): string {
   }
 }
 
+/** Short kind label for dense tables: the anti-parallel diode is "Diode". */
+export function deviceKindShort(kind: string): string {
+  return kind === 'diode' ? 'Diode' : deviceKindLabel(kind)
+}
+
+/** V, a standard voltage class: "1.7 kV", "600 V" */
+export const formatVoltageClass = (volts: number | null | undefined): string => formatSI(volts, 'V', 2)
+
 /** Same number to display precision: used to mark every cell that shares the column's worst value. */
 export function sameAtDisplayPrecision(a: number, b: number, digits = 3): boolean {
   return Number(a.toPrecision(digits)) === Number(b.toPrecision(digits))
+}
+
+/** ①, ② … ⑳ for operating point 0, 1 … 19; "#21" beyond. */
+export function pointMark(index: number): string {
+  if (index < 0) return '?'
+  return index < 20 ? String.fromCodePoint(0x2460 + index) : `#${index + 1}`
 }

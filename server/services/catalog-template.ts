@@ -1,11 +1,9 @@
 import ExcelJS from 'exceljs'
-import { z } from 'zod'
-import { buildTemplateRows, CATALOG_COLUMNS } from '../../../catalog/columns'
+import type { H3Event } from 'h3'
+import { buildTemplateRows, CATALOG_COLUMNS } from '../../catalog/columns'
 
 // The import template: header row, units row, one example per kind; .xlsx or .csv.
-export default defineEventHandler(async (event) => {
-  await requireRole(event, 'catalog:read')
-  const { format } = paramsValid(event, z.object({ format: z.enum(['xlsx', 'csv'], { message: "Use 'xlsx' or 'csv'" }) }))
+export async function sendTemplate(event: H3Event, format: 'xlsx' | 'csv') {
   const rows = buildTemplateRows()
   const workbook = new ExcelJS.Workbook()
   workbook.creator = 'Stratavolt'
@@ -25,4 +23,4 @@ export default defineEventHandler(async (event) => {
   }
   setResponseHeader(event, 'Content-Type', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet')
   return Buffer.from(await workbook.xlsx.writeBuffer())
-})
+}

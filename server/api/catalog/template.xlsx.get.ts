@@ -1,0 +1,6 @@
+import { sendTemplate } from '~~/server/services/catalog-template'
+
+export default defineEventHandler(async (event) => {
+  await requireRole(event, 'catalog:read')
+  return sendTemplate(event, 'xlsx')
+})
