@@ -225,7 +225,7 @@ export function capacitorStresses(ctx: CapacitorContext): CapacitorOutcome {
       const all = splitLinkCurrents(L, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz)
       for (const def of defs) {
         const f = all[(def.splitIndex ?? 1) - 1]!
-        const source = L === 2 ? 'J. W. Kolar, S. D. Round, IEE Proc. EPA 153(4) 2006' : 'first principles (switched DC-side currents); neutral-point current after Nabae, Takahashi, Akagi, IEEE TIA 1981'
+        const source = L === 2 ? 'J. W. Kolar, S. D. Round, IEE Proc. EPA 153(4) 2006' : 'first principles (switched DC-side currents, the method of Kolar & Round, IEE Proc. EPA 153(4) 2006, applied per DC node); checked against a time-domain simulation'
         result.push(build(def, f, `Mean square of the switched DC-side current of the three legs over each switching period (common carriers), minus its mean, ripple-free DC source; ${sizing}.`, source))
       }
       // Equal means ⇔ the capacitor voltages hold themselves; with N > 3 they generally cannot.

@@ -8,9 +8,9 @@ import { resolveStressInput } from './validate'
 
 /**
  * Common practice (ENGINEERING.md "Derating"; no single source): DC link at ≤ 65 % of the
- * semiconductor rating, peak current at or below the nominal current, capacitors at their rated
- * voltage (1.0: the rating already covers the worst-case DC link; ripple is added on top by the part's
- * own ripple rating) and ripple current at or below the rating; 25 °C junction margin, 80 °C heatsink.
+ * semiconductor rating, peak current at or below the nominal current, capacitors up to their rated
+ * voltage (1.0 rather than 0.9, because the capacitor voltage is already taken at the worst-case DC
+ * link) and ripple current at or below the rating; 25 °C junction margin, 80 °C heatsink.
  */
 export const defaultDerating: DeratingPolicy = {
   semiconductorVoltageUtilisation: 0.65,

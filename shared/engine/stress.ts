@@ -1,7 +1,6 @@
 // evaluateStress: one operating point of one converter → stresses of every device and capacitor position.
 import { capacitorStresses } from './capacitors'
 import { EngineInputError } from './errors'
-import { isPowerOfTwo } from './fft'
 import { DEFAULT_INTEGRATION_POINTS, integrateLeg } from './integrate'
 import { linearLimit, makeReference, SIX_STEP_INDEX } from './modulation'
 import { harmonicAmplitudes, synthesise, totalHarmonicDistortion } from './synth'
@@ -128,7 +127,6 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
     ? nextPowerOfTwo(options.samples)
     : nextPowerOfTwo(Math.max(4 * maxOrderWanted, 4096))
   samples = Math.min(MAX_SAMPLES, Math.max(MIN_SAMPLES, samples))
-  if (!isPowerOfTwo(samples)) throw new Error('samples must be a power of two')
   const thdMaxOrder = Math.min(maxOrderWanted, samples / 4)
   const synthesis = synthesise({ leg, reference, sixStep, frequencyRatio: mf, stepVoltage: scales.stepVoltage, samples })
   const amplitudes = harmonicAmplitudes(synthesis.line, thdMaxOrder)

@@ -28,9 +28,10 @@ async function assignedDesign() {
 function libreofficeCsv(xlsx: Buffer): string[][] {
   const dir = mkdtempSync(join(tmpdir(), 'sv-bom-'))
   writeFileSync(join(dir, 'bom.xlsx'), xlsx)
-  execFileSync('soffice', [`-env:UserInstallation=file://${dir}/profile`, '--headless', '--convert-to', 'csv:Text - txt - csv (StarCalc):44,34,76,1', '--outdir', dir, join(dir, 'bom.xlsx')], { stdio: 'ignore', timeout: 120000 })
+  execFileSync('soffice', [`-env:UserInstallation=file://${dir}/profile`, '--headless', '--convert-to', 'csv:Text - txt - csv (StarCalc):44,34,76,1,,0,false,true,false', '--outdir', dir, join(dir, 'bom.xlsx')], { stdio: 'ignore', timeout: 120000 })
   const csv = readdirSync(dir).filter(f => f.endsWith('.csv')).map(f => readFileSync(join(dir, f), 'utf8'))[0]!
-  return csv.trim().split('\n').map(l => l.split(','))
+  // cells as LibreOffice computed them (raw values, not as formatted); quoted cells may hold commas
+  return csv.trim().split('\n').map(l => (l.match(/("([^"]|"")*"|[^,]*)(,|$)/g) ?? []).map(c => c.replace(/,$/, '').replace(/^"|"$/g, '')))
 }
 
 describe('bill of materials', () => {

@@ -182,7 +182,7 @@ describe('catalogue import: untidy spreadsheet to catalogue version', () => {
     expect(r.body.preview.rowsWithErrors).toBe(0)
     const commit = await engineer.json('POST', `/api/catalog/imports/${r.body.import.id}/commit`, { mapping: r.body.mapping, decimalSeparator: r.body.decimalSeparator })
     expect(commit.status).toBe(200)
-    expect(commit.body).toMatchObject({ added: 0, updated: 1, unchanged: 2 })
+    expect(commit.body, JSON.stringify(commit.body)).toMatchObject({ added: 0, updated: 1, unchanged: 2 })
 
     const part = await engineer.json('GET', `/api/catalog/parts/${igbtPartId}`)
     expect(part.status).toBe(200)

@@ -15,6 +15,17 @@ export const demoEmail: Record<Role, string> = {
   'viewer': 'viewer@example.com',
 }
 
+/** fetch, tried once more when a kept-alive socket was closed by the server just as it was reused. */
+async function fetchWithRetry(url: string, init: RequestInit): Promise<Response> {
+  try {
+    return await fetch(url, init)
+  } catch (err) {
+    const code = (err as { cause?: { code?: string } }).cause?.code
+    if (code !== 'ECONNRESET' && code !== 'UND_ERR_SOCKET') throw err
+    return fetch(url, init)
+  }
+}
+
 export interface Client {
   cookie: string
   request: (method: string, path: string, body?: unknown, headers?: Record<string, string>) => Promise<Response>
@@ -32,7 +43,7 @@ export function client(cookie = ''): Client {
         if (typeof body === 'string' || body instanceof Uint8Array || body instanceof FormData) payload = body as BodyInit
         else { payload = JSON.stringify(body); h['content-type'] = 'application/json' }
       }
-      const r = await fetch(baseUrl + path, { method, headers: h, body: payload, redirect: 'manual' })
+      const r = await fetchWithRetry(baseUrl + path, { method, headers: h, body: payload, redirect: 'manual' })
       const set = r.headers.getSetCookie()
       if (set.length) c.cookie = set.map(s => s.split(';')[0]).join('; ')
       return r

@@ -38,6 +38,6 @@ export const matrix: TopologyDefinition = {
   supply: 'ac-input',
   structureSource: 'P. W. Wheeler et al., IEEE TIE 2002',
   currentSource: 'P. W. Wheeler et al., IEEE TIE 2002 (structure); equal input-phase shares of an indirect space-vector modulation (assumption)',
-  patternNote: 'Modelled as a virtual rectifier and a two-level virtual inverter on a ripple-free virtual DC link of 1.5·V̂_in,phase; input filter not sized.',
+  patternNote: 'Modelled as a virtual rectifier and a two-level virtual inverter on a ripple-free virtual DC link of 1.5·V̂_in,phase: linear up to a transfer ratio of 0.75 with a sinusoidal inverter reference, √3/2 with third-harmonic or space-vector modulation.',
   leg,
 }

@@ -46,3 +46,20 @@ describe('NPC positions, 0 ≤ φ ≤ π/2', () => {
     expect(c1!.capacitanceRequired!).toBeGreaterThan(0)
   })
 })
+
+describe('three-level legs sharing the NPC level pattern (first principles; Orfanoudakis et al., IET PEMD 2010 for the outer switch)', () => {
+  it.each([[0.9, 0.85], [0.6, -0.7]])('M=%f pf=%f: T-type and active NPC outer switches equal the NPC outer switch; T-type neutral path equals the NPC clamp path', (M, pf) => {
+    const npc = evaluateStress(inputAt('diode-clamped', M, pf))
+    const t = evaluateStress(inputAt('t-type', M, pf))
+    const a = evaluateStress(inputAt('anpc', M, pf))
+    for (const n of ['S1', 'D1', 'S4', 'D4']) {
+      expectClose(device(t.devices, n).currentRms, device(npc.devices, n).currentRms, 1e-12, `T-type ${n}`)
+      expectClose(device(a.devices, n).currentAvg, device(npc.devices, n).currentAvg, 1e-12, `ANPC ${n}`)
+    }
+    // T-type: S3 and D2 carry the neutral-point current out, as Dc1+ does in the NPC.
+    expectClose(device(t.devices, 'S3').currentAvg, device(npc.devices, 'Dc1+').currentAvg, 1e-12, 'T-type S3 = NPC Dc1+')
+    // ANPC: the neutral-path devices together carry what the NPC clamp diodes carry.
+    const anpcNeutral = ['S5', 'D5', 'S6', 'D6'].reduce((s, n) => s + device(a.devices, n).currentAvg, 0)
+    expectClose(anpcNeutral, device(npc.devices, 'Dc1+').currentAvg + device(npc.devices, 'Dc1-').currentAvg, 1e-9, 'neutral path')
+  })
+})

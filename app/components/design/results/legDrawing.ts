@@ -217,7 +217,8 @@ function drawStack(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
   const longest = Math.max(0, ...chains.map(ch => ch.items.length))
   const CHAIN_PITCH = Math.max(130, o.labelWidth + 16)
   const chainX = (k: number) => xS - 110 - k * CHAIN_PITCH
-  const chainLeft = longest ? chainX(longest - 1) - TERMINAL : xS
+  // Buses stay clear of the labels centred above the leftmost chain parts.
+  const chainLeft = longest ? Math.min(chainX(longest - 1) - TERMINAL, chainX(longest - 1) - o.labelWidth / 2 + 6) : xS
   const busStep = 24
   const busLeft = chainLeft - 24 - Math.max(0, innerTaps.length - 1) * busStep
   const busX = new Map(innerTaps.map((t, i) => [t, busLeft + i * busStep]))
@@ -397,7 +398,8 @@ function drawCells(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
   drawn.forEach((cell, idx) => {
     const elided = idx > 0 && cell - drawn[idx - 1]! > 1
     if (elided) {
-      c.note({ x: xCap, y: yc + 10, text: `⋮  cells ${drawn[idx - 1]! + 1}…${cell - 1} are identical`, anchor: 'middle', tone: 'caption' })
+      const from = drawn[idx - 1]! + 1
+      c.note({ x: xCap, y: yc + 10, text: from === cell - 1 ? `⋮  cell ${from} is identical` : `⋮  cells ${from}…${cell - 1} are identical`, anchor: 'middle', tone: 'caption' })
       yc += ELISION
     }
     const namesOnly = cell !== 1
@@ -501,14 +503,15 @@ function drawMatrix(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
   const xLast = x0 + (columns.length - 1) * PITCH
   c.wire([[x0, yOut], [xLast + 60, yOut]])
   c.terminal({ x: xLast + 60, y: yOut, text: 'out (output phase a)', anchor: 'start', dx: 10, dy: 4 })
-  c.note({ x: x0 - 40, y: yOut + 34, text: 'Output phases b and c repeat this leg: 9 bidirectional switches in the converter.', anchor: 'start', tone: 'caption' })
 
-  // 3×3 overview.
-  const ix = xEnd + 70
-  const iy = 0
+  // 3×3 overview under the detail, with the explanation beside it.
+  const ix = x0 + 10
+  const iy = yOut + 52
   c.inset = { x: ix, y: iy, inputs, outputs: ['a', 'b', 'c'], detailed: 0 }
   c.grow(ix - 30, iy - 14)
-  c.grow(ix + 3 * 34 + 20, iy + 3 * 34 + 40)
+  c.grow(ix + 3 * 34 + 20, iy + 3 * 34 + 34)
+  c.note({ x: ix + 160, y: iy + 44, text: 'Above: output phase a, one bidirectional switch per input phase.', anchor: 'start', tone: 'caption' })
+  c.note({ x: ix + 160, y: iy + 62, text: 'Output phases b and c repeat it: 9 bidirectional switches in all.', anchor: 'start', tone: 'caption' })
   return c.finish()
 }
 
