@@ -47,6 +47,9 @@ export const UNIT_SPECS: Readonly<Record<string, UnitSpec>> = {
   '°C': { noun: 'a temperature', examples: ['175 °C', '150 C'], spellings: [{ text: '°C' }, { text: '℃' }, { text: 'C', anyCase: true }, word('degC', 1, false), word('deg C', 1, false), word('celsius', 1, false)] },
   'd': { noun: 'a duration', examples: ['84 d', '12 weeks'], spellings: [{ text: 'd' }, word('day', 1, false), word('days', 1, false), word('wk', 7, false), word('wks', 7, false), word('week', 7, false), word('weeks', 7, false), word('w', 7, false)] },
   'W': { noun: 'a power', examples: ['250 W', '1.5 kW'], spellings: [withPrefixes('W', true), word('watt'), word('watts')] },
+  // Design-form quantities (not catalogue columns): stray inductance and current slope.
+  'H': { noun: 'an inductance', examples: ['60 nH', '0.06 µH'], spellings: [withPrefixes('H'), word('henry')] },
+  'A/s': { noun: 'a current slope', examples: ['2e9 A/s', '2 kA/µs'], spellings: [withPrefixes('A/s'), { text: 'A/µs', factor: 1e6, prefixes: true }, { text: 'A/us', factor: 1e6, prefixes: true }] },
   'Hz': { noun: 'a frequency', examples: ['4 kHz', '4000 Hz'], spellings: [withPrefixes('Hz', true), word('hertz')] },
   'pcs': { noun: 'a number of pieces', examples: ['100', '100 pcs'], spellings: [word('pcs', 1, false), word('pc', 1, false), word('pce', 1, false), word('pieces', 1, false), word('piece', 1, false), word('units', 1, false), word('ea', 1, false)] },
   '': { noun: 'a number', examples: ['12', '12.5'], spellings: [] },

@@ -35,6 +35,8 @@ describe('catalogue upload in Chromium', () => {
     if (dir) rmSync(dir, { recursive: true, force: true })
   })
 
+  let committedPrefix = ''
+
   it('component engineer: upload → fix mapping → bad rows explained → commit → part in the browser', async () => {
     const prefix = unique('PNB')
     const file = join(dir, `${prefix}-supplier.xlsx`)
@@ -89,6 +91,7 @@ describe('catalogue upload in Chromium', () => {
     const summary = page.getByTestId('commit-summary')
     await expect.poll(() => summary.textContent()).toMatch(/Committed as catalogue version \d+/)
     expect(await summary.textContent()).toContain('2 added · 0 updated · 0 unchanged')
+    committedPrefix = prefix
 
     // The parts browser finds the committed part; headers sort on the server and say so.
     await summary.getByRole('link', { name: 'Browse the parts' }).click()
@@ -109,6 +112,13 @@ describe('catalogue upload in Chromium', () => {
     await expect.poll(() => page.locator('tbody tr').first().getAttribute('data-part-number')).toBe(`${prefix}-HB`)
     expect(page.url()).toContain('sort=voltageRating')
     await screenshot(page, 'catalog-browser')
+    // Minimum ratings accept SI prefixes; a value that is not a voltage is explained beside the box.
+    await page.getByLabel('Min. voltage [V]').fill('1.5 kV')
+    await expect.poll(() => page.getByTestId('parts-total').textContent()).toBe('1')
+    await page.getByLabel('Min. voltage [V]').fill('lots')
+    await expect.poll(() => page.locator('#parts-min-voltage-error').textContent()).toContain('Enter a voltage')
+    await page.getByLabel('Min. voltage [V]').fill('')
+    await expect.poll(() => page.getByTestId('parts-total').textContent()).toBe('2')
 
     // The part page shows the grouped figures with units, its history, and the write controls.
     await row.getByRole('link', { name: `${prefix}-HB` }).click()
@@ -125,16 +135,45 @@ describe('catalogue upload in Chromium', () => {
     await screenshot(page, 'catalog-part')
   })
 
-  it('purchasing reads the catalogue without write controls', async () => {
+  it('purchasing reads parts, imports and versions without write controls; server-rendered pages hydrate cleanly', async () => {
     const page = await newPage(browser)
+    const hydrationMessages: string[] = []
+    page.on('console', (m) => { if (/hydration/i.test(m.text())) hydrationMessages.push(m.text()) })
     await signInPage(page, 'purchasing')
     await page.getByRole('link', { name: 'Parts catalogue' }).first().click()
     await page.waitForURL('**/catalog')
     await page.locator('table tbody tr').first().waitFor()
     expect(await page.getByRole('link', { name: 'Upload spreadsheet' }).count()).toBe(0)
-    expect(await page.getByRole('link', { name: 'Template (.xlsx)' }).count()).toBe(1)
+    expect(await page.getByRole('link', { name: 'Template (.xlsx)' }).getAttribute('href')).toBe('/api/catalog/template.xlsx')
     await page.locator('table tbody tr a').first().click()
     await page.getByRole('heading', { name: 'Version history' }).waitFor()
     expect(await page.getByRole('button', { name: 'Save changes' }).count()).toBe(0)
+
+    // Straight from the server: the URL's page size shows in the select, the order in aria-sort.
+    await page.goto('/catalog?pageSize=25&sort=stock&dir=desc')
+    expect(await page.getByLabel('Per page').first().inputValue()).toBe('25')
+    expect(await page.locator('th', { has: page.getByRole('button', { name: /Stock/ }) }).getAttribute('aria-sort')).toBe('descending')
+    await expect.poll(() => page.locator('table tbody tr').count()).toBe(25)
+
+    // The import committed by the engineer above: read-only, with the original file to download.
+    await page.goto('/catalog/imports')
+    const link = page.getByRole('link', { name: `${committedPrefix}-supplier.xlsx` })
+    const href = await link.getAttribute('href')
+    expect(href).toMatch(/^\/catalog\/imports\/\d+$/)
+    await page.goto(href!)
+    await expect.poll(() => page.getByTestId('committed-note').textContent()).toMatch(/Committed as catalogue version \d+/)
+    expect(await page.getByRole('link', { name: 'Download the original file' }).getAttribute('href')).toBe(`/api${href}/file`)
+    expect(await page.getByRole('button', { name: 'Commit as new catalogue version' }).count()).toBe(0)
+    await expect.poll(async () => {
+      await page.getByRole('button', { name: '2 · Map columns' }).click()
+      return page.getByRole('heading', { name: '2 · Map the columns' }).count()
+    }).toBe(1)
+    const kind = page.getByLabel('Kind', { exact: true })
+    expect(await kind.isDisabled()).toBe(true)
+    expect(await kind.inputValue()).toBe('2') // the engineer's fix: column C, "Part class"
+
+    await page.goto('/catalog/versions')
+    await expect.poll(() => page.locator('table').textContent()).toContain(`Import of ${committedPrefix}-supplier.xlsx`)
+    expect(hydrationMessages).toEqual([])
   })
 })

@@ -26,10 +26,14 @@ export function formatSI(value: number | null | undefined, unit: string, digits 
   return `${text.replace('-', '−')} ${prefix.symbol}${unit}`
 }
 
+/** Below this magnitude a voltage or current is numerical noise of the integration: shown as 0. */
+const NOISE_FLOOR = 1e-6
+const denoise = (v: number | null | undefined) => (typeof v === 'number' && Math.abs(v) < NOISE_FLOOR ? 0 : v)
+
 /** V */
-export const formatVoltage = (volts: number | null | undefined): string => formatSI(volts, 'V')
+export const formatVoltage = (volts: number | null | undefined): string => formatSI(denoise(volts), 'V')
 /** A */
-export const formatCurrent = (amperes: number | null | undefined): string => formatSI(amperes, 'A')
+export const formatCurrent = (amperes: number | null | undefined): string => formatSI(denoise(amperes), 'A')
 /** F, shown in µF / mF */
 export const formatCapacitance = (farads: number | null | undefined): string => formatSI(farads, 'F')
 /** Hz */
