@@ -5,10 +5,10 @@ import { isRole } from '#shared/roles'
 export default defineEventHandler(async (event) => {
   const { token, password } = await readValid(event, setPasswordSchema)
   const result = await setPasswordWithLink(token, password)
-  if (!result || !isRole(result.user.role)) {
+  const user = result?.user
+  if (!result || !user || !isRole(user.role)) {
     throw createError({ statusCode: 410, message: 'This link has expired or was already used. Ask for a new one.' })
   }
-  const { user } = result
   await audit(event, result.purpose === 'invite' ? 'invitation accepted' : 'password reset', { actorId: user.id, actorEmail: user.email })
   const sessionUser = { id: user.id, email: user.email, name: user.name, role: user.role }
   await replaceUserSession(event, { user: sessionUser, sessionVersion: user.sessionVersion })

@@ -50,8 +50,8 @@ export interface LegDrawing {
 }
 
 export interface DrawOptions {
-  /** px, widest label the component will write (names plus stresses) */
-  labelWidth: number
+  /** px, width of the label the component writes for a part (names plus stresses) */
+  labelWidth: (name: string, diodeName?: string) => number
 }
 
 /** px: symbol terminals sit this far from the part's centre. */
@@ -69,7 +69,7 @@ class Canvas {
   inset?: MatrixInset
   private box = { x0: Infinity, y0: Infinity, x1: -Infinity, y1: -Infinity }
 
-  constructor(private labelWidth: number) {}
+  constructor(private labelWidth: DrawOptions['labelWidth']) {}
 
   grow(x: number, y: number) {
     this.box.x0 = Math.min(this.box.x0, x)
@@ -90,7 +90,7 @@ class Canvas {
     this.parts.push(p)
     this.grow(p.x - 26, p.y - 26)
     this.grow(p.x + 26, p.y + 26)
-    const w = this.labelWidth
+    const w = this.labelWidth(p.name, p.diodeName)
     const h = lines * LINE
     const { x, y, anchor, valign } = p.label
     const left = anchor === 'start' ? x : anchor === 'end' ? x - w : x - w / 2
@@ -185,6 +185,9 @@ const partFor = (p: Parts, item: LegLayoutItem): Pick<PlacedPart, 'shape' | 'nam
   ...(item.kind === 'switch' && p.antiParallel.has(item.name) ? { diodeName: p.antiParallel.get(item.name)!.name } : {}),
 })
 const lineCount = (p: Pick<PlacedPart, 'diodeName'>) => (p.diodeName ? 2 : 1)
+/** px, widest label among the items (with their anti-parallel diodes) */
+const widest = (p: Parts, o: DrawOptions, items: LegLayoutItem[]) =>
+  Math.max(40, ...items.map(i => o.labelWidth(i.name, partFor(p, i).diodeName)))
 
 /**
  * Series string between the DC rails (two-level, diode-clamped, T-type, active NPC): the string on the right,
@@ -215,10 +218,11 @@ function drawStack(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
     return { row, y: yRow(row), items: ordered, tap }
   })
   const longest = Math.max(0, ...chains.map(ch => ch.items.length))
-  const CHAIN_PITCH = Math.max(130, o.labelWidth + 16)
-  const chainX = (k: number) => xS - 110 - k * CHAIN_PITCH
+  const CHAIN_PITCH = Math.max(120, widest(p, o, inner) + 16)
+  const chainX = (k: number) => xS - 100 - k * CHAIN_PITCH
   // Buses stay clear of the labels centred above the leftmost chain parts.
-  const chainLeft = longest ? Math.min(chainX(longest - 1) - TERMINAL, chainX(longest - 1) - o.labelWidth / 2 + 6) : xS
+  const leftmost = chains.filter(ch => ch.items.length === longest).map(ch => ch.items[0]!)
+  const chainLeft = longest ? Math.min(chainX(longest - 1) - TERMINAL, chainX(longest - 1) - widest(p, o, leftmost) / 2 + 6) : xS
   const busStep = 24
   const busLeft = chainLeft - 24 - Math.max(0, innerTaps.length - 1) * busStep
   const busX = new Map(innerTaps.map((t, i) => [t, busLeft + i * busStep]))
@@ -261,7 +265,7 @@ function drawStack(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
   const lower = string.find(s => s.nodes[0] === layout.outputNode)
   const outRow = upper && lower ? (upper.row + lower.row) / 2 : lastRow / 2
   const yOut = yRow(outRow)
-  const xOut = xS + 40 + o.labelWidth
+  const xOut = xS + 40 + widest(p, o, string)
   c.wire([[xS, yOut], [xOut, yOut]])
   c.dot(xS, yOut)
   c.terminal({ x: xOut, y: yOut, text: 'out', anchor: 'start', dx: 10, dy: 4 })
@@ -319,7 +323,7 @@ function drawLadder(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
   const right = p.switches.filter(s => s.row !== upperRow).sort((a, b) => a.column - b.column)
   const PITCH = 96
   const xP = 0
-  const xQ = Math.max(210, o.labelWidth + 70)
+  const xQ = Math.max(210, widest(p, o, p.capacitors) + 70)
   const xMid = (xP + xQ) / 2
   const y0 = 0
   const cells = Math.max(left.length, right.length)
@@ -387,8 +391,8 @@ function drawCells(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
   const xB = 0
   const xCap = xB + GAP
   const xA = xCap + GAP
-  const xL = xB - 40 - o.labelWidth
-  const xR = xA + 40 + o.labelWidth
+  const xL = xB - 40 - widest(p, o, legB)
+  const xR = xA + 40 + widest(p, o, legA)
   const CELL_H = 150
   const CELL_PITCH = 210
   const ELISION = 80
@@ -467,14 +471,14 @@ function drawCells(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
 function drawMatrix(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
   const c = new Canvas(o.labelWidth)
   const columns = Array.from(new Set(p.switches.map(s => s.column))).sort((a, b) => a - b)
-  const PITCH = Math.max(190, o.labelWidth + 70)
+  const PITCH = Math.max(160, widest(p, o, p.switches) + 64)
   const x0 = 0
   const yIn = (k: number) => k * 22
   const top = yIn(columns.length - 1)
   const y1 = top + 70
   const y2 = y1 + 84
   const yOut = y2 + 56
-  const xEnd = x0 + (columns.length - 1) * PITCH + 40 + o.labelWidth
+  const xEnd = x0 + (columns.length - 1) * PITCH + 40 + widest(p, o, p.switches)
   const inputs: string[] = []
 
   columns.forEach((col, k) => {
@@ -518,7 +522,7 @@ function drawMatrix(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
 /** Anything without a known shape: parts on their layout slots, no wiring. */
 function drawGrid(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
   const c = new Canvas(o.labelWidth)
-  const DX = o.labelWidth + 90
+  const DX = widest(p, o, [...p.switches, ...p.loneDiodes, ...p.capacitors]) + 90
   const all = [...p.switches, ...p.loneDiodes, ...p.capacitors]
   for (const item of all) {
     const part = partFor(p, item)

@@ -43,7 +43,8 @@ export default defineEventHandler(async (event) => {
     operatingPoints: preview.result.converters.flatMap(c => c.points.map(pt => {
       const conv = c.side === 'grid' ? input.gridSide! : input.machineSide
       const op = conv.operatingPoints.find(o => o.name === pt.pointName)!
-      return { ...op, name: twoSides ? `${c.side}: ${op.name}` : op.name, modulationIndex: pt.modulationIndex, lineVoltageThd: pt.lineVoltageThd }
+      const name = op.name ?? pt.pointName
+      return { ...op, name: twoSides ? `${c.side}: ${name}` : name, modulationIndex: pt.modulationIndex, lineVoltageThd: pt.lineVoltageThd }
     })),
     devices: preview.result.converters.flatMap(c => c.envelope.devices.map(d => ({ ...d, ...(twoSides ? { converter: c.side } : {}) }))),
     capacitors: preview.result.converters.flatMap(c => c.envelope.capacitors.map(d => ({ ...d, ...(twoSides ? { converter: c.side } : {}) }))),
