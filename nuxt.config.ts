@@ -6,7 +6,7 @@ export default defineNuxtConfig({
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils'],
   css: ['~/assets/css/tailwind.css'],
   // components are named by their file name, whatever feature folder holds them
-  components: [{ path: '~/components', pathPrefix: false }],
+  components: [{ path: '~/components', pathPrefix: false, extensions: ['.vue'] }],
   app: {
     head: {
       title: 'Stratavolt',

@@ -77,3 +77,23 @@ describe('POST /api/v1/stress', () => {
     expect(JSON.stringify(r.body.components.schemas.StressInput)).toContain('dcVoltageMax')
   })
 })
+
+describe('POST /api/v1/stress with random bad input', () => {
+  it('answers every invalid body with 4xx naming a field, never 5xx (fast-check)', async () => {
+    const fc = await import('fast-check')
+    const api = await signInAs('viewer')
+    const valid = { ...base, topology: 'diode-clamped', levels: 3, dcVoltage: 650 }
+    const fields = Object.keys(valid) as (keyof typeof valid)[]
+    const junk = fc.oneof(fc.constant(null), fc.string({ maxLength: 6 }), fc.double({ noNaN: false }), fc.integer({ min: -1e6, max: 1e6 }), fc.boolean(), fc.constant([]), fc.constant({}))
+    await fc.assert(fc.asyncProperty(fc.constantFrom(...fields), junk, async (field, value) => {
+      const body = { ...valid, [field]: value }
+      const r = await api.json('POST', '/api/v1/stress', body)
+      expect(r.status).toBeLessThan(500)
+      if (r.status >= 400) {
+        expect([400, 422]).toContain(r.status)
+        expect(r.body.data.issues.length).toBeGreaterThan(0)
+        expect(typeof r.body.data.issues[0].path).toBe('string')
+      }
+    }), { numRuns: 60, seed: 20261202 })
+  })
+})

@@ -49,9 +49,23 @@ describe('catalogue upload in Chromium', () => {
     await page.getByRole('link', { name: 'Upload spreadsheet' }).click()
     await page.waitForURL('**/catalog/import')
 
-    // Step 1: a normal file input inside the drop zone.
+    // Step 1: a normal file input inside the drop zone. A file with a formula is refused, the cell named.
     await expect.poll(() => page.getByTestId('drop-zone').textContent()).toContain('20,000 rows')
+    const withFormula = new ExcelJS.Workbook()
+    await withFormula.xlsx.load(await untidyWorkbook(`${prefix}-F`) as unknown as ExcelJS.Buffer)
+    withFormula.worksheets[0]!.getCell('E3').value = { formula: 'E2*0.65', result: 1100 }
+    const formulaFile = join(dir, `${prefix}-formula.xlsx`)
+    writeFileSync(formulaFile, Buffer.from(await withFormula.xlsx.writeBuffer()))
+    await page.getByLabel('Spreadsheet file').setInputFiles(formulaFile)
+    await page.getByRole('button', { name: 'Upload and check' }).click()
+    const problems = page.getByTestId('import-problems')
+    await expect.poll(() => problems.textContent()).toContain('Nothing was saved')
+    expect((await problems.locator('tbody tr').first().locator('td').allTextContents()).map(t => t.trim()))
+      .toEqual(['3', 'E', 'E3', expect.stringContaining('cell E3 holds a formula (=E2*0.65)')])
+    await screenshot(page, 'catalog-upload-refused')
+
     await page.getByLabel('Spreadsheet file').setInputFiles(file)
+    expect(await problems.count()).toBe(0)
     await page.getByRole('button', { name: 'Upload and check' }).click()
 
     // Step 2: the kind column was not recognised; the last check says so beside it.
