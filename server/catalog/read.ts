@@ -67,6 +67,19 @@ function startsWith(buffer: Buffer, bytes: number[]): boolean {
   return bytes.every((b, i) => buffer[i] === b)
 }
 
+/** True when a sheet's first filled row has headers for both part number and manufacturer. */
+function looksLikePartsSheet(sheet: ExcelJS.Worksheet): boolean {
+  let headers: string[] | null = null
+  sheet.eachRow({ includeEmpty: false }, (row) => {
+    if (headers) return
+    const values = Array.isArray(row.values) ? row.values.slice(1) : []
+    headers = values.map(v => (v === null || v === undefined ? '' : String(typeof v === 'object' && 'text' in (v as object) ? (v as { text: unknown }).text : v)))
+  })
+  if (!headers) return false
+  const { mapping } = suggestMapping(headers)
+  return mapping.partNumber != null && mapping.manufacturer != null
+}
+
 /** Tells spreadsheets from other files by their first bytes. */
 function sniff(buffer: Buffer): Sniffed {
   if (startsWith(buffer, [0x50, 0x4b, 0x03, 0x04]) || startsWith(buffer, [0x50, 0x4b, 0x05, 0x06])) return 'zip'
@@ -190,6 +203,11 @@ async function readXlsx(data: Buffer, fileName: string, limits: typeof DEFAULT_R
   if (visible.length === 0) return failed(`'${fileName}' has no visible worksheet`)
   const sheet = visible.find(s => PREFERRED_SHEET.test(s.name.trim())) ?? visible.find(s => LIKELY_SHEET.test(s.name)) ?? visible[0]!
   const others = sheets.filter(s => s !== sheet)
+  // A catalogue split over several sheets would import half of it: refuse, naming the sheets.
+  const alsoParts = visible.filter(s => s !== sheet && looksLikePartsSheet(s))
+  if (alsoParts.length > 0 && looksLikePartsSheet(sheet)) {
+    return failed(`'${fileName}' has parts on several sheets ('${sheet.name}', ${alsoParts.map(s => `'${s.name}'`).join(', ')}): put them on one sheet, or upload each sheet as its own file`, 'xlsx', { sheetName: sheet.name })
+  }
   if (others.length > 0) {
     warnings.add({ message: `read the sheet '${sheet.name}'; not read: ${others.map(s => `'${s.name}'${s.state !== 'visible' && s.state !== undefined ? ' (hidden)' : ''}`).join(', ')}` })
   }

@@ -282,9 +282,13 @@ describe('catalogue import: files that cannot be imported', () => {
     expect((await partsMatching(engineer, prefix)).total).toBe(0)
   })
 
-  // PRODUCT flow 5 lists "several sheets" among refused files; the server today reads one sheet and only
-  // warns (see the report): a catalogue split over two parts sheets would be half-imported on commit.
-  it.todo('refuses (422) a workbook whose parts are spread over several sheets')
+  it('refuses (422) a workbook whose parts are spread over several visible sheets', async () => {
+    const buffer = await xlsx([
+      { name: 'Parts', rows: [header, ...good] },
+      { name: 'More parts', rows: [header, ...good] },
+    ])
+    await expectRefused(buffer, 'split.xlsx', /parts on several sheets \('Parts', 'More parts'\)/)
+  })
 })
 
 describe('catalogue template downloads', () => {

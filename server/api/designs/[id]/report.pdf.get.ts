@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { z } from 'zod'
 import { idParam } from '#shared/schemas/auth'
+import { legSchematicSvg } from '#shared/drawing/leg-svg'
 import type { DesignInput } from '#shared/engine'
 import { designReportPdf } from '~~/server/exports/design-pdf'
 import { pdfFonts, SAFETY_NOTE, topologySummary } from '~~/server/services/bom'
@@ -49,6 +50,8 @@ export default defineEventHandler(async (event) => {
     devices: preview.result.converters.flatMap(c => c.envelope.devices.map(d => ({ ...d, ...(twoSides ? { converter: c.side } : {}) }))),
     capacitors: preview.result.converters.flatMap(c => c.envelope.capacitors.map(d => ({ ...d, ...(twoSides ? { converter: c.side } : {}) }))),
     warnings: [...preview.result.warnings, ...preview.result.converters.flatMap(c => c.warnings)],
+    // One drawing: a back-to-back grid side is the same kind of leg; its figures are in the tables.
+    schematicSvg: legSchematicSvg(preview.layouts.machine!, { devices: machine.envelope.devices, capacitors: machine.envelope.capacitors }, twoSides ? { title: 'Machine side' } : {}),
     waveform: extras?.waveform ? { title: extras.pointName, time: extras.waveform.time, lineVoltage: extras.waveform.lineVoltage, phaseCurrent: extras.waveform.phaseCurrent } : undefined,
     spectrum: extras?.spectrum,
     lineVoltageThd: extras?.thd ?? machine.points[0]?.lineVoltageThd,

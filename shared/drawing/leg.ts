@@ -1,6 +1,6 @@
 // Geometry of the leg schematic: turns the engine's layout hints (slots and nodes) into SVG primitives.
-// Pure drawing: no stresses, no engineering; the component adds the text.
-import type { LegLayout, LegLayoutItem } from '#shared/engine'
+// Pure drawing: no stresses, no engineering; the page component and the printed report add the text.
+import type { LegLayout, LegLayoutItem } from '../engine'
 
 /** Clockwise degrees; the symbol's first node (collector / cathode / +) is at the top at 0. */
 export type Rotation = 0 | 90 | 180 | 270
@@ -57,7 +57,103 @@ export interface DrawOptions {
 /** px: symbol terminals sit this far from the part's centre. */
 export const TERMINAL = 30
 const ROW = 70
-const LINE = 14
+/** px, pitch of a part's label lines (one line per position: the switch, then its anti-parallel diode) */
+export const LABEL_LINE = 14
+
+/**
+ * Part symbols in the part's own frame (px): first node (collector / cathode / +) at (0, −TERMINAL), second at
+ * (0, +TERMINAL), before the part's rotation. One copy for the page and the printed report, so they draw alike.
+ */
+export const SYMBOL = {
+  /** px, stroke width of a part; wires are a little lighter */
+  stroke: 1.5,
+  switch: {
+    /** pointer target (page only) */
+    hitBox: { x: -26, y: -30, w: 26, h: 60 },
+    collector: 'M0 -30 V-13 L-9 -7',
+    /** drawn 1 px heavier than the leads */
+    channel: 'M-9 -12 V12',
+    emitter: 'M-9 7 L0 13 V30',
+    gate: 'M-14 -10 V10 M-14 8 H-23',
+    /** filled emitter arrow */
+    arrow: 'M0 13 L-6.5 12.6 L-3.2 8 Z',
+  },
+  /** the diode drawn beside a switch, joined to its collector and emitter leads */
+  antiParallelDiode: {
+    hitBox: { x: 3, y: -24, w: 22, h: 48 },
+    leads: 'M0 -20 H15 V-6 M0 20 H15 V6',
+    bar: 'M9 -6 H21',
+    triangle: 'M15 -6 L9 6 H21 Z',
+    joints: [{ x: 0, y: -20 }, { x: 0, y: 20 }],
+    jointRadius: 2.2,
+  },
+  /** lone or clamp diode, cathode at the top */
+  diode: {
+    hitBox: { x: -13, y: -30, w: 26, h: 60 },
+    leads: 'M0 -30 V-8 M0 8 V30 M-8 -8 H8',
+    triangle: 'M0 -8 L-8 8 H8 Z',
+  },
+  capacitor: {
+    hitBox: { x: -17, y: -30, w: 34, h: 60 },
+    leads: 'M0 -30 V-5 M0 5 V30',
+    /** drawn 1.2 px heavier than the leads */
+    plates: 'M-14 -5 H14 M-14 5 H14',
+  },
+} as const
+
+/** px: wire stroke, junction dot and open terminal circle. */
+export const WIRE = { stroke: 1.4, dash: '5 4', dotRadius: 2.8, terminalRadius: 4 } as const
+
+/** Cell frame of a cascaded H-bridge: corner radius, dash and where its label sits (px from the top-left corner). */
+export const FRAME = { radius: 8, dash: '4 3', labelDx: 10, labelDy: 15 } as const
+
+/** One line of a part's label: the position name (with its series count) and its stress, or no stress. */
+export interface LabelLine { name: string; stress: string }
+
+/** A placed part's label lines: its own position, then its anti-parallel diode; repeated cells show names only. */
+export function labelLines(
+  p: Pick<PlacedPart, 'name' | 'diodeName' | 'namesOnly'>,
+  nameText: (name: string) => string,
+  stressText: (name: string) => string,
+): LabelLine[] {
+  const names = p.diodeName ? [p.name, p.diodeName] : [p.name]
+  return names.map(n => ({ name: nameText(n), stress: p.namesOnly ? '' : stressText(n) }))
+}
+
+/** px, the gap between a label's name and its stress */
+export const LABEL_GAP = 5
+
+/** px, estimated label width: names in 11 px semibold, stresses in 10.5 px (narrow digits, spaces, dots). */
+export function labelWidthOf(lines: LabelLine[]): number {
+  return Math.ceil(Math.max(...lines.map(l => l.name.length * 6.8 + (l.stress ? LABEL_GAP + l.stress.length * 4.8 : 0))) + 4)
+}
+
+/** Baseline y (px) of each label line of a part. */
+export function labelBaselines(label: LabelSpot, lines: number): number[] {
+  const first = label.valign === 'middle' ? label.y - ((lines - 1) * LABEL_LINE) / 2 + 4 : label.y - (lines - 1) * LABEL_LINE - 3
+  return Array.from({ length: lines }, (_, k) => first + k * LABEL_LINE)
+}
+
+/** px, grid pitch of the matrix converter's 3×3 overview */
+const INSET_PITCH = 34
+
+/** The matrix overview's lines, crosspoint boxes and labels, relative to the inset's corner (px). */
+export function insetGeometry(inset: MatrixInset) {
+  const span = 3 * INSET_PITCH
+  return {
+    title: { x: 0, y: -2, text: '3×3 overview' },
+    inputs: inset.inputs.map((text, k) => ({ d: `M0 ${20 + k * INSET_PITCH} H${span + 10}`, label: { x: -6, y: 24 + k * INSET_PITCH, text } })),
+    outputs: inset.outputs.map((text, j) => {
+      const x = 22 + j * INSET_PITCH
+      return {
+        d: `M${x} 8 V${span + 12}`,
+        detailed: j === inset.detailed,
+        label: { x, y: span + 26, text },
+        crosspoints: inset.inputs.map((_, k) => ({ x: x - 6, y: 20 + k * INSET_PITCH - 6, size: 12, radius: 2 })),
+      }
+    }),
+  }
+}
 
 class Canvas {
   wires: Wire[] = []
@@ -91,7 +187,7 @@ class Canvas {
     this.grow(p.x - 26, p.y - 26)
     this.grow(p.x + 26, p.y + 26)
     const w = this.labelWidth(p.name, p.diodeName)
-    const h = lines * LINE
+    const h = lines * LABEL_LINE
     const { x, y, anchor, valign } = p.label
     const left = anchor === 'start' ? x : anchor === 'end' ? x - w : x - w / 2
     const top = valign === 'middle' ? y - h / 2 : y - h
@@ -513,7 +609,7 @@ function drawMatrix(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
   const iy = yOut + 52
   c.inset = { x: ix, y: iy, inputs, outputs: ['a', 'b', 'c'], detailed: 0 }
   c.grow(ix - 30, iy - 14)
-  c.grow(ix + 3 * 34 + 20, iy + 3 * 34 + 34)
+  c.grow(ix + 3 * INSET_PITCH + 20, iy + 3 * INSET_PITCH + 34)
   c.note({ x: ix + 160, y: iy + 44, text: 'Above: output phase a, one bidirectional switch per input phase.', anchor: 'start', tone: 'caption' })
   c.note({ x: ix + 160, y: iy + 62, text: 'Output phases b and c repeat it: 9 bidirectional switches in all.', anchor: 'start', tone: 'caption' })
   return c.finish()
