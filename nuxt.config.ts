@@ -1,12 +1,9 @@
 // Nuxt configuration: one app, its server routes and the shared engine.
 export default defineNuxtConfig({
-  compatibilityDate: '2026-11-01',
-  devtools: { enabled: false },
-  telemetry: false,
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils'],
-  css: ['~/assets/css/tailwind.css'],
   // components are named by their file name, whatever feature folder holds them
   components: [{ path: '~/components', pathPrefix: false, extensions: ['.vue'] }],
+  devtools: { enabled: false },
   app: {
     head: {
       title: 'Stratavolt',
@@ -15,6 +12,7 @@ export default defineNuxtConfig({
       meta: [{ name: 'viewport', content: 'width=device-width, initial-scale=1' }],
     },
   },
+  css: ['~/assets/css/tailwind.css'],
   runtimeConfig: {
     databaseUrl: '',
     mailboxDir: '',
@@ -34,6 +32,7 @@ export default defineNuxtConfig({
     s3SecretAccessKey: '',
     session: { maxAge: 60 * 60 * 12, cookie: { sameSite: 'lax' } },
   },
+  compatibilityDate: '2026-11-01',
   nitro: {
     serverAssets: [
       { baseName: 'migrations', dir: '../drizzle' },
@@ -42,4 +41,5 @@ export default defineNuxtConfig({
     ],
   },
   typescript: { strict: true },
+  telemetry: false,
 })

@@ -60,15 +60,15 @@ export const PACKAGE_CONFIGURATIONS: Record<PackageConfiguration, PackageConfigu
 
 export type ColumnType = 'text' | 'number' | 'integer' | 'enum' | 'url' | 'priceBreaks'
 
-export type ColumnKey =
-  | 'partNumber' | 'manufacturer' | 'kind' | 'packageConfiguration' | 'technology'
-  | 'voltageRating' | 'currentRating'
-  | 'switchThresholdVoltage' | 'switchSlopeResistance' | 'diodeThresholdVoltage' | 'diodeSlopeResistance'
-  | 'turnOnEnergy' | 'turnOffEnergy' | 'recoveryEnergy' | 'energyReferenceVoltage' | 'energyReferenceCurrent'
-  | 'rthJunctionCaseSwitch' | 'rthJunctionCaseDiode' | 'rthCaseHeatsink' | 'junctionTemperatureMax'
-  | 'capacitance' | 'rippleCurrentRating' | 'esr'
-  | 'priceBreaks' | 'currency' | 'minimumOrderQuantity' | 'stock' | 'leadTimeDays' | 'lifecycle'
-  | 'supplier' | 'datasheetUrl' | 'description'
+export type ColumnKey
+  = | 'partNumber' | 'manufacturer' | 'kind' | 'packageConfiguration' | 'technology'
+    | 'voltageRating' | 'currentRating'
+    | 'switchThresholdVoltage' | 'switchSlopeResistance' | 'diodeThresholdVoltage' | 'diodeSlopeResistance'
+    | 'turnOnEnergy' | 'turnOffEnergy' | 'recoveryEnergy' | 'energyReferenceVoltage' | 'energyReferenceCurrent'
+    | 'rthJunctionCaseSwitch' | 'rthJunctionCaseDiode' | 'rthCaseHeatsink' | 'junctionTemperatureMax'
+    | 'capacitance' | 'rippleCurrentRating' | 'esr'
+    | 'priceBreaks' | 'currency' | 'minimumOrderQuantity' | 'stock' | 'leadTimeDays' | 'lifecycle'
+    | 'supplier' | 'datasheetUrl' | 'description'
 
 export type ExampleValue = string | number
 
@@ -103,7 +103,7 @@ const ALL = PART_KINDS
 export const CATALOG_COLUMNS: readonly CatalogColumn[] = [
   {
     key: 'partNumber', header: 'Part number', unit: '', type: 'text', requiredFor: ALL,
-    description: "Manufacturer's part number, exactly as ordered.",
+    description: 'Manufacturer\'s part number, exactly as ordered.',
     examples: { 'switch-diode': 'EXAMPLE-HB12-450', 'switch': 'EXAMPLE-SW17-300', 'diode': 'EXAMPLE-D33-800', 'capacitor': 'EXAMPLE-CF11-500U' },
     aliases: ['part no', 'part #', 'pn', 'mpn', 'manufacturer part number', 'mfr part number', 'order code', 'ordering code', 'article', 'article number', 'item', 'type designation', 'part'],
   },
@@ -121,7 +121,7 @@ export const CATALOG_COLUMNS: readonly CatalogColumn[] = [
       'switch only': 'switch', 'igbt only': 'switch', 'rectifier diode': 'diode', 'clamp diode': 'diode', 'fwd': 'diode',
       'cap': 'capacitor', 'dc-link capacitor': 'capacitor', 'dc link capacitor': 'capacitor',
     },
-    description: "'switch-diode' = switch with anti-parallel diode (IGBT with free-wheeling diode, MOSFET with body or co-packed diode); 'switch' = switch without diode; 'diode'; 'capacitor'.",
+    description: '\'switch-diode\' = switch with anti-parallel diode (IGBT with free-wheeling diode, MOSFET with body or co-packed diode); \'switch\' = switch without diode; \'diode\'; \'capacitor\'.',
     examples: { 'switch-diode': 'switch-diode', 'switch': 'switch', 'diode': 'diode', 'capacitor': 'capacitor' },
     aliases: ['part kind', 'device kind', 'device type', 'component type', 'part type', 'category', 'type'],
   },
@@ -292,7 +292,7 @@ export const CATALOG_COLUMNS: readonly CatalogColumn[] = [
       'not recommended for new designs': 'nrnd', 'eol': 'nrnd', 'end of life': 'nrnd', 'last time buy': 'nrnd',
       'discontinued': 'obsolete', 'obs': 'obsolete',
     },
-    description: "'active', 'nrnd' (not for new designs) or 'obsolete'; blank = active.",
+    description: '\'active\', \'nrnd\' (not for new designs) or \'obsolete\'; blank = active.',
     examples: { 'switch-diode': 'active', 'switch': 'nrnd', 'diode': 'active', 'capacitor': 'active' },
     aliases: ['life cycle', 'lifecycle status', 'status', 'part status', 'product status'],
   },

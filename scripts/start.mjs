@@ -38,7 +38,8 @@ try {
   log(`demo company: ${demoAccounts.company}; every demo account's password: ${demoAccounts.password}`)
   for (const a of demoAccounts.accounts) log(`  ${a.role.padEnd(19)} ${a.email}`)
   log('stop with Ctrl+C; `npm run stop` stops PostgreSQL and the fake SMTP server too')
-} catch (err) {
+}
+catch (err) {
   console.error(`[stratavolt] start failed: ${err.message}`)
   process.exit(1)
 }

@@ -1,7 +1,7 @@
 // `npm test`: the same set-up as start against a fresh test database, then every test
 // (unit, API against the built server and real PostgreSQL, browser in Debian's Chromium).
 // Ends by printing "N passed, N failed" on a line of its own.
-import { spawn, spawnSync } from 'node:child_process'
+import { spawn } from 'node:child_process'
 import { existsSync, readFileSync, rmSync } from 'node:fs'
 import { join } from 'node:path'
 import {
@@ -21,12 +21,13 @@ function summarise(code) {
     passed = r.numPassedTests; failed = r.numFailedTests; skipped = r.numPendingTests + (r.numTodoTests ?? 0)
     // A file that failed to load counts as a failure even if it held no test.
     failed += r.testResults.filter(f => f.status === 'failed' && f.assertionResults.length === 0).length
-  } else if (code !== 0) failed = 1
+  }
+  else if (code !== 0) failed = 1
   console.log(`\n${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ''}`)
   return failed === 0 && code === 0 ? 0 : 1
 }
 
-let exitCode = 1
+let exitCode
 try {
   ensureNodeModules()
   ensureDebianPackages(['chromium'], () => existsSync('/usr/bin/chromium'))
@@ -54,7 +55,7 @@ try {
   log('running the tests…')
   rmSync(resultsFile, { force: true })
   const args = ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${resultsFile}`, ...process.argv.slice(2)]
-  const code = await new Promise(res => {
+  const code = await new Promise((res) => {
     const child = spawn('npx', args, {
       cwd: root,
       stdio: 'inherit',
@@ -63,10 +64,12 @@ try {
     child.on('exit', c => res(c ?? 1))
   })
   exitCode = summarise(code)
-} catch (err) {
+}
+catch (err) {
   console.error(`[stratavolt] test set-up failed: ${err.stack ?? err.message}`)
   exitCode = summarise(1)
-} finally {
+}
+finally {
   stopDetached('test-server')
   stopDetached('test-smtp')
 }

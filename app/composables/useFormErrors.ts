@@ -10,7 +10,7 @@ export function useFormErrors() {
     message.value = ''
   }
 
-  function setIssues(issues: { path: string; message: string }[]) {
+  function setIssues(issues: { path: string, message: string }[]) {
     for (const i of issues) if (!errors.value[i.path]) errors.value[i.path] = i.message
   }
 
@@ -22,7 +22,7 @@ export function useFormErrors() {
   }
 
   function fromResponse(err: unknown) {
-    const e = err as { data?: { message?: string; statusMessage?: string; data?: { issues?: { path: string; message: string }[] } } }
+    const e = err as { data?: { message?: string, statusMessage?: string, data?: { issues?: { path: string, message: string }[] } } }
     const issues = e.data?.data?.issues
     if (issues?.length) setIssues(issues)
     message.value = e.data?.message ?? e.data?.statusMessage ?? 'Something went wrong. Please try again.'

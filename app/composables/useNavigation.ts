@@ -1,6 +1,6 @@
 import { can, type Permission } from '#shared/roles'
 
-export interface NavItem { to: string; label: string; permission: Permission }
+export interface NavItem { to: string, label: string, permission: Permission }
 
 // Navigation by role: an entry shows only when the role has its permission.
 const items: NavItem[] = [

@@ -9,7 +9,13 @@ export const operatingPointPresets: Record<string, (rated: OperatingPoint) => Op
   'Low-frequency start': r => ({ ...r, name: 'Low-frequency start', lineVoltageRms: Math.round(r.lineVoltageRms * 0.1), fundamentalHz: Math.max(1, r.fundamentalHz * 0.1), phaseCurrentRms: Math.round(r.phaseCurrentRms * 1.5), powerFactor: 0.3 }),
 }
 
-export function blankDesign(): { name: string; description: string; input: DesignInput } {
+export interface DesignDraft {
+  name: string
+  description: string
+  input: DesignInput
+}
+
+export function blankDesign(): DesignDraft {
   return {
     name: '',
     description: '',
@@ -28,7 +34,7 @@ export function blankDesign(): { name: string; description: string; input: Desig
   }
 }
 
-interface FieldIssue { path: string; message: string }
+interface FieldIssue { path: string, message: string }
 
 export const useDesignStore = defineStore('design', () => {
   const id = ref<number | null>(null)
@@ -77,12 +83,14 @@ export const useDesignStore = defineStore('design', () => {
       preview.value = r
       evaluationError.value = ''
       fieldErrors.value = {}
-    } catch (err) {
+    }
+    catch (err) {
       if (mine !== sequence) return
-      const e = err as { data?: { message?: string; data?: { issues?: FieldIssue[] } } }
+      const e = err as { data?: { message?: string, data?: { issues?: FieldIssue[] } } }
       evaluationError.value = e.data?.message ?? 'The results could not be computed.'
       issuesToFields(e.data?.data?.issues)
-    } finally {
+    }
+    finally {
       if (mine === sequence) evaluating.value = false
     }
   }
@@ -94,14 +102,15 @@ export const useDesignStore = defineStore('design', () => {
     try {
       const body = { name: name.value, description: description.value, input: toRaw(input.value) }
       const saved = id.value
-        ? await $fetch<{ id: number; revision: number }>(`/api/designs/${id.value}`, { method: 'PUT', body: { ...body, revision: revision.value } })
-        : await $fetch<{ id: number; revision: number }>('/api/designs', { method: 'POST', body })
+        ? await $fetch<{ id: number, revision: number }>(`/api/designs/${id.value}`, { method: 'PUT', body: { ...body, revision: revision.value } })
+        : await $fetch<{ id: number, revision: number }>('/api/designs', { method: 'POST', body })
       id.value = saved.id
       revision.value = saved.revision
       dirty.value = false
       return saved.id
-    } catch (err) {
-      const e = err as { statusCode?: number; data?: { message?: string; data?: { issues?: FieldIssue[]; currentRevision?: number } } }
+    }
+    catch (err) {
+      const e = err as { statusCode?: number, data?: { message?: string, data?: { issues?: FieldIssue[], currentRevision?: number } } }
       saveError.value = e.data?.message ?? 'Saving failed.'
       if (e.statusCode === 409 && e.data?.data?.currentRevision) conflict.value = { currentRevision: e.data.data.currentRevision }
       const issues = e.data?.data?.issues
@@ -110,7 +119,8 @@ export const useDesignStore = defineStore('design', () => {
         if (issues.some(i => i.path === 'name')) fieldErrors.value.name = issues.find(i => i.path === 'name')!.message
       }
       return null
-    } finally {
+    }
+    finally {
       saving.value = false
     }
   }

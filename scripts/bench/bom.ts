@@ -8,7 +8,7 @@ import { bomToXlsx } from '../../server/exports/bom-xlsx'
 import { loadFontsFromNodeModules } from '../../server/exports/pdf'
 import { largeInput, snapshotHeader } from '../../tests/unit/bom/fixtures'
 
-export interface BomBenchFigure { name: string; p50Ms: number; p99Ms: number; runs: number; target?: string }
+export interface BomBenchFigure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
 
 const round = (ms: number) => Math.round(ms * 10) / 10
 

@@ -3,7 +3,7 @@
 import { performance } from 'node:perf_hooks'
 import { evaluateDesign, evaluateStress, topologies, type ConverterInput, type StressInput, type TopologyDefinition } from '../../shared/engine/index'
 
-export interface EngineBenchFigure { name: string; p50Ms: number; p99Ms: number; runs: number; target?: string }
+export interface EngineBenchFigure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
 
 /** Times `f` over `runs` calls after a warm-up (JIT), p50 and p99 in ms. */
 function measure(name: string, runs: number, f: () => void, target?: string): EngineBenchFigure {

@@ -3,7 +3,7 @@ import { runBomBench } from './bom'
 import { runCatalogBench } from './catalog'
 import { runEngineBench } from './engine'
 
-interface Figure { name: string; p50Ms: number; p99Ms: number; runs: number; target?: string }
+interface Figure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
 
 const suites: [string, () => Promise<Figure[]>][] = [
   ['engine', runEngineBench],

@@ -2,7 +2,7 @@ import { and, desc, eq, isNull, ne, sql } from 'drizzle-orm'
 import { can } from '#shared/roles'
 import demo from '../db/demo-accounts.json'
 
-interface Task { title: string; text: string; items?: { to: string; label: string }[]; action?: { to: string; label: string } }
+interface Task { title: string, text: string, items?: { to: string, label: string }[], action?: { to: string, label: string } }
 
 // What this person has to do today, by role.
 export default defineEventHandler(async (event) => {

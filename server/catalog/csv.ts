@@ -11,9 +11,9 @@ export interface CsvRecord {
   cells: string[]
 }
 
-export type CsvParseResult =
-  | { ok: true, records: CsvRecord[] }
-  | { ok: false, row: number, line: number, message: string }
+export type CsvParseResult
+  = | { ok: true, records: CsvRecord[] }
+    | { ok: false, row: number, line: number, message: string }
 
 /** Picks the delimiter that splits the first line (outside quotes) most often; ',' on a tie. */
 export function detectDelimiter(text: string): CsvDelimiter {

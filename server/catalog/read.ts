@@ -47,10 +47,12 @@ class Problems {
   constructor(limit: number) {
     this.limit = limit
   }
+
   add(problem: TableProblem) {
     if (this.list.length < this.limit) this.list.push(problem)
     else this.dropped++
   }
+
   finish(what: string): TableProblem[] {
     if (this.dropped > 0) this.list.push({ message: `… and ${formatCount(this.dropped)} more ${what} not listed` })
     return this.list
@@ -237,7 +239,7 @@ async function readXlsx(data: Buffer, fileName: string, limits: typeof DEFAULT_R
         if (cell.type === ExcelJS.ValueType.Merge) return
       }
       const value = cell.value
-      let out: CellValue = null
+      let out: CellValue
       if (value === null || value === undefined) out = null
       else if (typeof value === 'number') out = value
       else if (typeof value === 'string') out = value
@@ -315,7 +317,7 @@ function buildTable(allRows: Row[], sheetName: string, format: RawTable['format'
   let dataRows = nonEmpty.slice(1)
   if (dataRows[0] && isUnitsRow(dataRows[0].cells)) dataRows = dataRows.slice(1)
 
-  const dataWidth = Math.max(lastHeader + 1, ...dataRows.map(r => {
+  const dataWidth = Math.max(lastHeader + 1, ...dataRows.map((r) => {
     let w = r.cells.length
     while (w > 0 && (r.cells[w - 1] === null || String(r.cells[w - 1]).trim() === '')) w--
     return w

@@ -21,9 +21,9 @@ export interface ZipLimits {
   maxEntries?: number
 }
 
-export type ZipInspection =
-  | { ok: true, entries: ZipEntry[], totalUncompressedBytes: number, totalCompressedBytes: number }
-  | { ok: false, reason: string, bomb?: boolean }
+export type ZipInspection
+  = | { ok: true, entries: ZipEntry[], totalUncompressedBytes: number, totalCompressedBytes: number }
+    | { ok: false, reason: string, bomb?: boolean }
 
 const EOCD = 0x06054b50
 const EOCD64_LOCATOR = 0x07064b50

@@ -1,7 +1,7 @@
 // The demo company's designs (invented duties, plausible figures).
 import type { DesignInput } from '#shared/engine/types'
 
-export const demoDesigns: { name: string; description: string; owner: string; input: DesignInput }[] = [
+export const demoDesigns: { name: string, description: string, owner: string, input: DesignInput }[] = [
   {
     name: 'Pump drive 690 V / 400 kW',
     description: 'Three-level NPC for a 690 V water-pump motor; regenerative stop.',

@@ -53,7 +53,8 @@ export async function seedDemo(db: Db) {
     }
     try {
       await releaseBom(pump.id, { id: engineer[0]!.id, name: engineer[0]!.name })
-    } catch (err) {
+    }
+    catch (err) {
       console.error('[seed] the demo BOM could not be released:', err instanceof Error ? err.message : err)
     }
   }

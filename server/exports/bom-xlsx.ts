@@ -5,7 +5,7 @@ import ExcelJS from 'exceljs'
 import type { BomLine, BomPurchase, BomSnapshot } from '../../shared/bom/types'
 import { neutraliseFormula } from '../../shared/bom/formula-safety'
 
-type CellValue = string | number | null | { formula: string; result: number }
+type CellValue = string | number | null | { formula: string, result: number }
 
 interface Column {
   header: string
@@ -86,7 +86,7 @@ function styleHeader(row: ExcelJS.Row): void {
   row.font = { bold: true }
   row.alignment = { vertical: 'bottom', wrapText: true }
   row.height = 30
-  row.eachCell(cell => {
+  row.eachCell((cell) => {
     cell.fill = { type: 'pattern', pattern: 'solid', fgColor: { argb: 'FFE5E7EB' } }
     cell.border = { bottom: { style: 'thin' } }
   })
@@ -136,12 +136,12 @@ function addBomSheet(workbook: ExcelJS.Workbook, snapshot: BomSnapshot, purchase
   totalsRow.getCell(letterOf('quantityOrder')).value = sumOf('quantityOrder', snapshot.lines.map(l => l.quantityOrder))
   totalsRow.getCell(letterOf('currency')).value = text(snapshot.currency)
   totalsRow.getCell(letterOf('extendedPrice')).value = sumInCurrency('extendedPrice', snapshot.lines.map(l => l.unitPrice === null ? null : l.unitPrice * l.quantityOrder))
-  totalsRow.getCell(letterOf('quotedExtended')).value = sumInCurrency('quotedExtended', snapshot.lines.map(l => {
+  totalsRow.getCell(letterOf('quotedExtended')).value = sumInCurrency('quotedExtended', snapshot.lines.map((l) => {
     const quoted = purchase[l.key]?.quotedUnitPrice
     return quoted == null ? null : quoted * l.quantityOrder
   }))
   totalsRow.font = { bold: true }
-  totalsRow.eachCell(cell => { cell.border = { top: { style: 'thin' } } })
+  totalsRow.eachCell((cell) => { cell.border = { top: { style: 'thin' } } })
   const excluded = [
     snapshot.totals.unpricedLines > 0 ? `${snapshot.totals.unpricedLines} unpriced line(s)` : '',
     (snapshot.totals.otherCurrencyLines ?? 0) > 0 ? `${snapshot.totals.otherCurrencyLines} line(s) in another currency` : '',

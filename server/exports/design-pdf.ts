@@ -91,7 +91,7 @@ export interface DesignReport {
     phaseCurrent?: number[]
   }
   /** line-voltage spectrum: harmonic order, Hz, V peak */
-  spectrum?: { order: number; frequency?: number; amplitude: number }[]
+  spectrum?: { order: number, frequency?: number, amplitude: number }[]
   /** fraction (0.31 = 31 %) */
   lineVoltageThd?: number
   safetyNote: string
@@ -187,7 +187,7 @@ function decimate(count: number): number[] {
 }
 
 /** A plain line chart (no text inside: labels are PDF text beside it, so the fonts stay ours). */
-interface Trace { values: number[]; colour: string; dashed?: boolean }
+interface Trace { values: number[], colour: string, dashed?: boolean }
 
 export function waveformSvg(time: number[], traces: Trace[], width = 500, height = 160): string {
   const picks = decimate(time.length)
@@ -203,7 +203,7 @@ export function waveformSvg(time: number[], traces: Trace[], width = 500, height
   for (const trace of traces) {
     // each trace scaled to its own peak, centred on the zero line
     const peak = picks.reduce((m, i) => Math.max(m, Math.abs(trace.values[i] ?? 0)), 1e-12)
-    const points = picks.map(i => {
+    const points = picks.map((i) => {
       const x = ((time[i]! - t0) / span) * width
       const y = height / 2 - ((trace.values[i] ?? 0) / peak) * (height / 2 - pad)
       return `${x.toFixed(1)},${y.toFixed(1)}`
@@ -264,7 +264,8 @@ function documentFor(report: DesignReport, schematic: 'draw' | { failed: string 
       content.push({ text: 'One phase leg and the DC link; position names as in the tables below.', style: 'small', margin: [0, 0, 0, 3] })
       // Text inside the SVG cannot name our fonts (pdfmake resolves them by path); the warning is expected.
       content.push({ svg: selfContainedSvg(report.schematicSvg), fit: svgFit(report.schematicSvg, 515, 260), options: { warningCallback: () => {} } } as unknown as Content)
-    } else {
+    }
+    else {
       content.push({ text: `The schematic could not be drawn: ${schematic.failed}`, italics: true })
     }
   }
@@ -294,7 +295,8 @@ export async function designReportPdf(report: DesignReport, fonts: PdfFonts): Pr
   check(report)
   try {
     return await renderPdf(documentFor(report, 'draw'), fonts)
-  } catch (error) {
+  }
+  catch (error) {
     if (!report.schematicSvg) throw error
     return renderPdf(documentFor(report, { failed: error instanceof Error ? error.message : String(error) }), fonts)
   }

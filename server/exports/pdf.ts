@@ -46,7 +46,8 @@ export async function loadFontsFromNodeModules(): Promise<PdfFonts> {
   let dir: string
   try {
     dir = join(dirname(createRequire(import.meta.url).resolve('pdfmake/package.json')), 'fonts', 'Roboto')
-  } catch {
+  }
+  catch {
     dir = join(process.cwd(), 'node_modules', 'pdfmake', 'fonts', 'Roboto')
   }
   return loadFonts(name => readFile(join(dir, name)))
@@ -70,7 +71,7 @@ export async function renderPdf(doc: TDocumentDefinitions, fonts: PdfFonts): Pro
     vfs.writeFileSync(name, fonts[style])
     descriptor[style] = name
   }
-  pdfmake.setFonts({ Roboto: descriptor as unknown as { normal: string; bold: string; italics: string; bolditalics: string } })
+  pdfmake.setFonts({ Roboto: descriptor as unknown as { normal: string, bold: string, italics: string, bolditalics: string } })
   // No downloads and no local files: everything the document needs is in the definition.
   pdfmake.setUrlAccessPolicy(() => false)
   pdfmake.setLocalAccessPolicy(() => false)
@@ -96,7 +97,7 @@ const GREY = '#e5e7eb'
 
 /** Thin horizontal rules, header shaded: readable when printed in black and white. */
 export const TABLE_LAYOUT = {
-  hLineWidth: (i: number, node: { table: { body: unknown[]; headerRows?: number } }) => (i === 0 || i === (node.table.headerRows ?? 0) || i === node.table.body.length ? 0.8 : 0.3),
+  hLineWidth: (i: number, node: { table: { body: unknown[], headerRows?: number } }) => (i === 0 || i === (node.table.headerRows ?? 0) || i === node.table.body.length ? 0.8 : 0.3),
   vLineWidth: () => 0,
   hLineColor: () => '#6b7280',
   fillColor: (row: number, node: { table: { headerRows?: number } }) => (row < (node.table.headerRows ?? 0) ? GREY : null),
@@ -145,7 +146,6 @@ export const PDF_STYLES = {
   h2: { fontSize: 10.5, bold: true, margin: [0, 12, 0, 4] },
   small: { fontSize: 7 },
 } as const
-
 
 /** A section heading; with `keepHeadingsWithContent` it never ends a page on its own. */
 export function heading(text: string): Content {

@@ -11,7 +11,7 @@ export default defineEventHandler((event) => {
     'Cross-Origin-Opener-Policy': 'same-origin',
     ...(import.meta.dev
       ? {}
-      : { 'Content-Security-Policy': "default-src 'self'; script-src 'self' 'unsafe-inline'; style-src 'self' 'unsafe-inline'; img-src 'self' data: blob:; font-src 'self' data:; connect-src 'self'; object-src 'none'; frame-ancestors 'none'; base-uri 'self'; form-action 'self'" }),
+      : { 'Content-Security-Policy': 'default-src \'self\'; script-src \'self\' \'unsafe-inline\'; style-src \'self\' \'unsafe-inline\'; img-src \'self\' data: blob:; font-src \'self\' data:; connect-src \'self\'; object-src \'none\'; frame-ancestors \'none\'; base-uri \'self\'; form-action \'self\'' }),
   })
   const method = event.method
   if (method === 'GET' || method === 'HEAD' || method === 'OPTIONS') return
@@ -20,7 +20,8 @@ export default defineEventHandler((event) => {
   if (origin && origin !== 'null') {
     const host = getRequestHost(event, { xForwardedHost: false })
     let originHost = ''
-    try { originHost = new URL(origin).host } catch { /* unparsable origin is refused below */ }
+    try { originHost = new URL(origin).host }
+    catch { /* unparsable origin is refused below */ }
     if (originHost !== host) throw createError({ statusCode: 403, message: 'Cross-site request refused.' })
   }
   const length = Number(getHeader(event, 'content-length') ?? 0)

@@ -8,7 +8,8 @@ export default defineNitroPlugin(() => {
   const storage = useStorage()
   if (c.s3Bucket) {
     storage.mount('uploads', s3Driver({ bucket: c.s3Bucket, endpoint: c.s3Endpoint, region: c.s3Region, accessKeyId: c.s3AccessKeyId, secretAccessKey: c.s3SecretAccessKey }))
-  } else {
+  }
+  else {
     storage.mount('uploads', fsDriver({ base: c.uploadDir || join(process.cwd(), '.data', 'uploads') }))
   }
 })

@@ -37,7 +37,7 @@ function describePart(p: PositionMatch) {
 }
 
 /** The BOM input from the assignments: semiconductors per position, capacitor banks, hand-added lines. */
-export function bomInputFrom(positions: PositionMatch[], settings: BomSettings, design: DesignInput): { input: BomBuildInput; missing: string[] } {
+export function bomInputFrom(positions: PositionMatch[], settings: BomSettings, design: DesignInput): { input: BomBuildInput, missing: string[] } {
   const missing: string[] = []
   const covered = coveredDiodes(positions, design)
   const fills: PositionFill[] = []
@@ -173,7 +173,7 @@ export async function sendBomFile(event: H3Event, id: number, format: 'xlsx' | '
 }
 
 /** Releases the draft as an immutable snapshot and mails purchasing with both files attached. */
-export async function releaseBom(designId: number, user: { id: number; name: string }) {
+export async function releaseBom(designId: number, user: { id: number, name: string }) {
   const { snapshot, missing } = await draftBom(designId, user.name)
   if (missing.length) {
     throw createError({ statusCode: 422, message: `Assign a part to every position before releasing: ${missing.slice(0, 8).join(', ')}${missing.length > 8 ? ` and ${missing.length - 8} more` : ''}.`, data: { missing } })
@@ -206,4 +206,3 @@ export async function loadBom(id: number) {
   if (!row) throw createError({ statusCode: 404, message: 'No such bill of materials.' })
   return row
 }
-

@@ -38,19 +38,20 @@ function stripImportFields(part: CatalogPart): CatalogPart {
   return rest
 }
 
-export interface CommitSummary { catalogVersionId: number; number: number; added: number; updated: number; unchanged: number }
+export interface CommitSummary { catalogVersionId: number, number: number, added: number, updated: number, unchanged: number }
 
 /** Writes the parts as a new catalogue version (inside the caller's transaction). */
-export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userId: number | null; importId?: number; note: string; approve: boolean }): Promise<CommitSummary> {
+export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userId: number | null, importId?: number, note: string, approve: boolean }): Promise<CommitSummary> {
   const [{ next }] = await tx.select({ next: sql<number>`coalesce(max(${tables.catalogVersions.number}), 0) + 1` }).from(tables.catalogVersions) as [{ next: number }]
   const [version] = await tx.insert(tables.catalogVersions).values({ number: next, importId: meta.importId ?? null, note: meta.note, createdBy: meta.userId }).returning()
   const existing = await tx.select({ id: tables.parts.id, manufacturer: tables.parts.manufacturer, partNumber: tables.parts.partNumber, currentVersionId: tables.parts.currentVersionId, data: tables.partVersions.data })
     .from(tables.parts).leftJoin(tables.partVersions, eq(tables.partVersions.id, tables.parts.currentVersionId))
   const byKey = new Map(existing.map(p => [key(p.manufacturer, p.partNumber), p]))
 
-  let added = 0; let updated = 0; let unchanged = 0
+  let added = 0
+  let unchanged = 0
   const fresh: CatalogPart[] = []
-  const changed: { partId: number; part: CatalogPart }[] = []
+  const changed: { partId: number, part: CatalogPart }[] = []
   for (const raw of incoming) {
     const part = stripImportFields(raw)
     const found = byKey.get(key(part.manufacturer, part.partNumber))
@@ -64,7 +65,7 @@ export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userI
     slice.forEach((p, j) => changed.push({ partId: rows[j]!.id, part: p }))
     added += slice.length
   }
-  updated = changed.length - added
+  const updated = changed.length - added
   for (let i = 0; i < changed.length; i += BATCH) {
     const slice = changed.slice(i, i + BATCH)
     const versions = await tx.insert(tables.partVersions)
@@ -80,7 +81,7 @@ export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userI
 }
 
 let generation = 0
-let cache: { generation: number; parts: (CatalogPart & { partVersionId: number; approved: boolean })[] } | null = null
+let cache: { generation: number, parts: (CatalogPart & { partVersionId: number, approved: boolean })[] } | null = null
 
 export function bumpCatalogGeneration() {
   generation++
@@ -103,4 +104,3 @@ export async function partVersionsById(ids: number[]) {
   const rows = await useDb().select({ id: tables.partVersions.id, data: tables.partVersions.data }).from(tables.partVersions).where(inArray(tables.partVersions.id, ids))
   return new Map(rows.map(r => [r.id, { ...(r.data as CatalogPart), partVersionId: r.id }]))
 }
-

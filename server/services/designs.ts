@@ -24,14 +24,14 @@ export async function loadDesign(id: number) {
   return design
 }
 
-export async function createDesign(tx: Tx, fields: { name: string; description: string; input: DesignInput; ownerId: number }) {
+export async function createDesign(tx: Tx, fields: { name: string, description: string, input: DesignInput, ownerId: number }) {
   const [design] = await tx.insert(tables.designs).values({ ...fields, ...summarise(fields.input), revision: 1 }).returning()
   await tx.insert(tables.designRevisions).values({ designId: design!.id, revision: 1, name: fields.name, input: fields.input, authorId: fields.ownerId })
   return design!
 }
 
 /** Saves a new revision unless someone else saved since `fromRevision` (409 then, nothing written). */
-export async function saveRevision(id: number, fromRevision: number, fields: { name: string; description: string; input: DesignInput }, authorId: number) {
+export async function saveRevision(id: number, fromRevision: number, fields: { name: string, description: string, input: DesignInput }, authorId: number) {
   return useDb().transaction(async (tx) => {
     const [updated] = await tx.update(tables.designs)
       .set({ ...fields, ...summarise(fields.input), revision: fromRevision + 1, updatedAt: new Date() })

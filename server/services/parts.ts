@@ -42,7 +42,7 @@ export interface PositionMatch {
   position: string
   label: string
   duty: PositionDuty
-  candidates: (Candidate & { partVersionId: number; approved: boolean })[]
+  candidates: (Candidate & { partVersionId: number, approved: boolean })[]
   nothingFits: string | null
   assigned: null | {
     partVersionId: number

@@ -2,10 +2,11 @@
 import { evaluateDesign, EngineInputError, topologyById, type ConverterInput, type DesignInput, type TopologyId } from '#shared/engine'
 import { matchPosition } from '#shared/catalog/matching'
 import type { TradeStudyInput } from '#shared/schemas/trade-study'
+import type { TradeStudyRow } from '#shared/types/trade-study'
 import { currentParts } from './catalog'
 import { designPositions, matchPolicy } from './parts'
 
-export const defaultCandidates: { topology: TopologyId; levels?: number }[] = [
+export const defaultCandidates: { topology: TopologyId, levels?: number }[] = [
   { topology: 'two-level', levels: 2 },
   { topology: 'diode-clamped', levels: 3 },
   { topology: 't-type', levels: 3 },
@@ -39,7 +40,7 @@ export function candidateConverter(duty: TradeStudyInput, topology: TopologyId, 
   }
 }
 
-export async function runTradeStudy(duty: TradeStudyInput) {
+export async function runTradeStudy(duty: TradeStudyInput): Promise<{ rows: TradeStudyRow[] }> {
   const parts = await currentParts()
   const rows = (duty.candidates ?? defaultCandidates).map(({ topology, levels }) => {
     const converter = candidateConverter(duty, topology, levels)
@@ -48,7 +49,8 @@ export async function runTradeStudy(duty: TradeStudyInput) {
     let result
     try {
       result = evaluateDesign(input)
-    } catch (err) {
+    }
+    catch (err) {
       if (err instanceof EngineInputError) return { topology, levels: converter.levels ?? null, label, input, error: `${err.field}: ${err.message}` }
       throw err
     }

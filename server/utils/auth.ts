@@ -37,13 +37,15 @@ export async function currentUser(event: H3Event): Promise<CurrentUser | null> {
   const header = getHeader(event, 'authorization')
   if (header?.startsWith('Bearer ') && event.path.startsWith('/api/v1/')) {
     user = await userFromBearer(event, header.slice(7).trim())
-  } else {
+  }
+  else {
     const session = await getUserSession(event)
     if (session.user) {
       const [row] = await useDb().select().from(tables.users).where(eq(tables.users.id, session.user.id))
       if (row && !row.disabled && row.sessionVersion === session.sessionVersion && isRole(row.role)) {
         user = { id: row.id, email: row.email, name: row.name, role: row.role }
-      } else {
+      }
+      else {
         await clearUserSession(event)
       }
     }

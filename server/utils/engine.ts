@@ -4,7 +4,8 @@ import { EngineInputError } from '#shared/engine'
 export function withEngine<T>(compute: () => T, fieldPrefix = ''): T {
   try {
     return compute()
-  } catch (err) {
+  }
+  catch (err) {
     if (err instanceof EngineInputError) {
       const path = fieldPrefix ? `${fieldPrefix}.${err.field}` : err.field
       throw createError({ statusCode: 422, message: `Invalid field: ${path} — ${err.message}`, data: { issues: [{ path, message: err.message }] } })

@@ -4,7 +4,7 @@ export interface OutgoingMail {
   to: string | string[]
   subject: string
   text: string
-  attachments?: { filename: string; content: Buffer; contentType?: string }[]
+  attachments?: { filename: string, content: Buffer, contentType?: string }[]
 }
 
 let transport: Transporter | undefined
@@ -31,7 +31,8 @@ export async function sendMail(mail: OutgoingMail): Promise<boolean> {
     const info = await useTransport().sendMail({ from: useRuntimeConfig().mailFrom, ...mail, to })
     await useDb().insert(tables.sentMail).values({ to, subject: mail.subject, messageId: info.messageId, attachments: names, status: 'sent' })
     return true
-  } catch (err) {
+  }
+  catch (err) {
     const message = err instanceof Error ? err.message : String(err)
     console.error('[mail] sending failed:', message)
     await useDb().insert(tables.sentMail).values({ to, subject: mail.subject, attachments: names, status: 'failed', error: message })

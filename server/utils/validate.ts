@@ -21,7 +21,8 @@ export async function readValid<T extends z.ZodType>(event: H3Event, schema: T, 
   let body: unknown
   try {
     body = await readBody(event)
-  } catch {
+  }
+  catch {
     throw createError({ statusCode: 400, message: 'The request body is not valid JSON.' })
   }
   if (body === undefined || body === null || typeof body !== 'object' || Array.isArray(body)) {

@@ -135,7 +135,8 @@ function checkPartData(part: BomPartData, at: string, issues: BomInputIssue[]): 
   if (typeof part.manufacturer !== 'string' || part.manufacturer.trim() === '') issues.push({ field: `${at}.manufacturer`, message: 'a manufacturer is required' })
   if (!Array.isArray(part.unitPriceBreaks)) {
     issues.push({ field: `${at}.unitPriceBreaks`, message: 'must be a list of { quantity, price } (empty when there is no price)' })
-  } else {
+  }
+  else {
     part.unitPriceBreaks.forEach((b, i) => {
       if (!validWholeNumber(b?.quantity, 1)) issues.push({ field: `${at}.unitPriceBreaks.${i}.quantity`, message: `must be a whole number of pieces ≥ 1, got ${String(b?.quantity)}` })
       if (typeof b?.price !== 'number' || !Number.isFinite(b.price) || b.price < 0) issues.push({ field: `${at}.unitPriceBreaks.${i}.price`, message: `must be a price ≥ 0, got ${String(b?.price)}` })
@@ -175,7 +176,7 @@ function checkInput(input: BomBuildInput): void {
     }
   })
   // Sum-then-divide needs one package size per part.
-  const perPackageOf = new Map<string, { perPackage: number; index: number }>()
+  const perPackageOf = new Map<string, { perPackage: number, index: number }>()
   ;(Array.isArray(input.positions) ? input.positions : []).forEach((fill, i) => {
     if (typeof fill.partNumber !== 'string' || typeof fill.manufacturer !== 'string') return
     const key = bomLineKey(fill.manufacturer, fill.partNumber)

@@ -53,9 +53,9 @@ export interface BomSnapshot {
   currency: string
   lines: BomLine[]
   /** pieces = sum of quantityOrder; extendedPrice sums the priced lines in `currency` only */
-  totals: { lines: number; pieces: number; extendedPrice: number; unpricedLines: number; otherCurrencyLines?: number }
+  totals: { lines: number, pieces: number, extendedPrice: number, unpricedLines: number, otherCurrencyLines?: number }
   /** per position: what fills it (for the positions table in the PDF) */
-  positions: { side: string; position: string; partNumber: string; manufacturer: string; perConverter: number; seriesCount: number; parallelCount: number }[]
+  positions: { side: string, position: string, partNumber: string, manufacturer: string, perConverter: number, seriesCount: number, parallelCount: number }[]
   /** summary rows of the design for the summary sheet: [label, value, unit] */
   designSummary: [string, string | number, string][]
   safetyNote: string

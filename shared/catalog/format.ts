@@ -7,7 +7,7 @@ import type { CatalogPart, CellValue } from './types'
 
 /** One template row for a part, in CATALOG_COLUMNS order. Numbers stay numbers (in the units row's unit). */
 export function partToRow(part: CatalogPart): CellValue[] {
-  return CATALOG_COLUMNS.map(column => {
+  return CATALOG_COLUMNS.map((column) => {
     if (column.key === 'priceBreaks') return part.priceBreaks.length > 0 ? formatPriceBreaks(part.priceBreaks) : null
     if (column.key === 'packageConfiguration' && part.kind === 'capacitor') return null
     const value = (part as unknown as Record<string, unknown>)[column.key]

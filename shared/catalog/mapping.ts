@@ -202,7 +202,7 @@ export function applyMapping(table: Pick<RawTable, 'rows'>, mapping: ColumnMappi
   const entries = (Object.entries(mapping) as [ColumnKey, number | null | undefined][])
     .filter((e): e is [ColumnKey, number] => typeof e[1] === 'number' && e[1] >= 0)
     .map(([key, index]) => ({ key, index, column: columnLetter(index) }))
-  return table.rows.map(row => {
+  return table.rows.map((row) => {
     const cells: Partial<Record<ColumnKey, MappedCell>> = {}
     for (const { key, index, column } of entries) cells[key] = { value: row.cells[index] ?? null, column }
     return { rowNumber: row.rowNumber, cells }

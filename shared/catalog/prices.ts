@@ -3,7 +3,7 @@
 import type { PriceBreak } from './types'
 import { parseNumberText, type DecimalSeparator } from './units'
 
-export const PRICE_BREAK_FORMAT = "quantity:price pairs separated by ';', e.g. '1:12.50; 100:10.80; 500:9.90'"
+export const PRICE_BREAK_FORMAT = 'quantity:price pairs separated by \';\', e.g. \'1:12.50; 100:10.80; 500:9.90\''
 
 export type PriceBreaksResult = { ok: true, breaks: PriceBreak[] } | { ok: false, reason: string }
 

@@ -30,7 +30,7 @@ interface UnitSpec {
 }
 
 const SI_PREFIXES: Readonly<Record<string, number>> = {
-  'p': 1e-12, 'n': 1e-9, 'u': 1e-6, 'µ': 1e-6, 'μ': 1e-6, 'm': 1e-3, 'k': 1e3, 'K': 1e3, 'M': 1e6, 'G': 1e9,
+  p: 1e-12, n: 1e-9, u: 1e-6, µ: 1e-6, μ: 1e-6, m: 1e-3, k: 1e3, K: 1e3, M: 1e6, G: 1e9,
 }
 
 const withPrefixes = (text: string, anyCase = false): UnitSpelling => ({ text, anyCase, prefixes: true })

@@ -7,9 +7,9 @@ import { drawLeg, FRAME, insetGeometry, LABEL_GAP, labelBaselines, labelLines, l
 /** Worst-case stresses per position (the engine's DeviceEnvelope and CapacitorEnvelope fit as they are). */
 export interface LegStresses {
   /** blockingVoltage in V (steady state), currentRms in A; seriesCount: unit devices in series at the position */
-  devices: { name: string; blockingVoltage: number; currentRms: number; seriesCount?: number }[]
+  devices: { name: string, blockingVoltage: number, currentRms: number, seriesCount?: number }[]
   /** voltage in V (DC), rippleCurrentRms in A */
-  capacitors?: { name: string; voltage: number; rippleCurrentRms: number }[]
+  capacitors?: { name: string, voltage: number, rippleCurrentRms: number }[]
 }
 
 export interface LegSvgOptions {

@@ -27,13 +27,13 @@ export interface PlacedPart {
   namesOnly?: boolean
 }
 
-export interface Wire { d: string; dashed?: boolean }
-export interface Terminal { x: number; y: number; text: string; anchor: 'start' | 'middle' | 'end'; dx: number; dy: number }
-export interface Note { x: number; y: number; text: string; anchor: 'start' | 'middle' | 'end'; tone: 'rail' | 'caption' | 'cell' }
-export interface Frame { x: number; y: number; w: number; h: number; label: string }
+export interface Wire { d: string, dashed?: boolean }
+export interface Terminal { x: number, y: number, text: string, anchor: 'start' | 'middle' | 'end', dx: number, dy: number }
+export interface Note { x: number, y: number, text: string, anchor: 'start' | 'middle' | 'end', tone: 'rail' | 'caption' | 'cell' }
+export interface Frame { x: number, y: number, w: number, h: number, label: string }
 
 /** Small 3×3 overview of the matrix converter: which crosspoints the detail shows. */
-export interface MatrixInset { x: number; y: number; inputs: string[]; outputs: string[]; detailed: number }
+export interface MatrixInset { x: number, y: number, inputs: string[], outputs: string[], detailed: number }
 
 export interface LegDrawing {
   minX: number
@@ -41,7 +41,7 @@ export interface LegDrawing {
   width: number
   height: number
   wires: Wire[]
-  dots: { x: number; y: number }[]
+  dots: { x: number, y: number }[]
   terminals: Terminal[]
   parts: PlacedPart[]
   notes: Note[]
@@ -108,7 +108,7 @@ export const WIRE = { stroke: 1.4, dash: '5 4', dotRadius: 2.8, terminalRadius: 
 export const FRAME = { radius: 8, dash: '4 3', labelDx: 10, labelDy: 15 } as const
 
 /** One line of a part's label: the position name (with its series count) and its stress, or no stress. */
-export interface LabelLine { name: string; stress: string }
+export interface LabelLine { name: string, stress: string }
 
 /** A placed part's label lines: its own position, then its anti-parallel diode; repeated cells show names only. */
 export function labelLines(
@@ -157,7 +157,7 @@ export function insetGeometry(inset: MatrixInset) {
 
 class Canvas {
   wires: Wire[] = []
-  dots: { x: number; y: number }[] = []
+  dots: { x: number, y: number }[] = []
   terminals: Terminal[] = []
   parts: PlacedPart[] = []
   notes: Note[] = []
@@ -372,7 +372,7 @@ function drawStack(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
     const s = busSpan.get(tap) ?? [yy, yy]
     busSpan.set(tap, [Math.min(s[0], yy), Math.max(s[1], yy)])
   }
-  const busJoins: { tap: string; y: number }[] = []
+  const busJoins: { tap: string, y: number }[] = []
   for (const ch of chains) {
     let from = ch.tap
     let xPrev = busX.get(ch.tap) ?? xC
@@ -537,7 +537,8 @@ function drawCells(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
     if (idx === 0) {
       c.wire([[xA, yMid], [xR, yMid]])
       c.terminal({ x: xR, y: yMid, text: 'out', anchor: 'start', dx: 10, dy: 4 })
-    } else {
+    }
+    else {
       c.wire([[xA, yMid], [xR, yMid], [xR, prevGap!]])
     }
     const yGap = yN + 30
@@ -550,7 +551,8 @@ function drawCells(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
         c.wire([[xR, yGap], [xR, yGap + CELL_PITCH - CELL_H + ELISION - 30]], true)
         prevGap = yGap + CELL_PITCH - CELL_H + ELISION - 30
       }
-    } else {
+    }
+    else {
       c.wire([[xB, yMid], [xL, yMid], [xL, yMid + 44]])
       c.terminal({ x: xL, y: yMid + 44, text: 'star point', anchor: 'start', dx: 10, dy: 4 })
     }

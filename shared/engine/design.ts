@@ -54,7 +54,7 @@ export function voltageClassFor(required: number): number | undefined {
 }
 
 type PointResult = StressResult & { pointName: string }
-interface PointInput { pointName: string; at: string; input: StressInput }
+interface PointInput { pointName: string, at: string, input: StressInput }
 
 /** The single-point inputs of a converter, named and checked for shape; field paths for errors. */
 function pointInputs(conv: ConverterInput, path: string, rippleTarget: number | undefined): PointInput[] {
@@ -171,7 +171,7 @@ function gridInput(machine: ConverterInput, grid: ConverterInput): ConverterInpu
   return { ...grid, levels: grid.levels ?? machine.levels, dcVoltage: grid.dcVoltage ?? machine.dcVoltage, dcVoltageMax: grid.dcVoltageMax ?? machine.dcVoltageMax }
 }
 
-function designPreamble(input: DesignInput): { derating: DeratingPolicy; rippleTarget: number | undefined; grid?: ConverterInput } {
+function designPreamble(input: DesignInput): { derating: DeratingPolicy, rippleTarget: number | undefined, grid?: ConverterInput } {
   if (typeof input !== 'object' || input === null) throw new EngineInputError('input', 'design input must be an object')
   const derating = resolveDerating(input.derating)
   const rippleTarget = input.capacitorRippleTarget

@@ -1,6 +1,6 @@
 // A small in-place radix-2 FFT (complex, iterative) for the line-voltage spectrum.
 
-const twiddles = new Map<number, { cos: Float64Array; sin: Float64Array }>()
+const twiddles = new Map<number, { cos: Float64Array, sin: Float64Array }>()
 
 function tableFor(n: number) {
   let t = twiddles.get(n)

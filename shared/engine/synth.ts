@@ -18,7 +18,7 @@ interface Comparator {
  * the matrix converter as a two-level virtual inverter on its virtual DC link. `stepVoltage` is the
  * voltage one comparison switches (V).
  */
-function comparatorsFor(leg: CompiledLeg, stepVoltage: number): { list: Comparator[]; offset: number } {
+function comparatorsFor(leg: CompiledLeg, stepVoltage: number): { list: Comparator[], offset: number } {
   const L = leg.def.modelLevels
   switch (leg.def.carrier) {
     case 'phase-disposition':

@@ -1,14 +1,14 @@
 // Public types of the stress engine. SI units throughout: V, A, Hz, H, F, W, °C.
 // The API (POST /api/v1/stress), the UI and the reports all read these shapes.
 
-export type TopologyId =
-  | 'two-level'
-  | 'diode-clamped'
-  | 't-type'
-  | 'anpc'
-  | 'flying-capacitor'
-  | 'cascaded-h-bridge'
-  | 'matrix'
+export type TopologyId
+  = | 'two-level'
+    | 'diode-clamped'
+    | 't-type'
+    | 'anpc'
+    | 'flying-capacitor'
+    | 'cascaded-h-bridge'
+    | 'matrix'
 
 export type Modulation = 'sine' | 'third-harmonic' | 'space-vector' | 'six-step'
 
@@ -138,7 +138,7 @@ export interface StressResult {
   notes?: string[]
   /** Highest harmonic order included in lineVoltageThd. */
   thdMaxOrder?: number
-  counts: { switchesPerPhase: number; diodesPerPhase: number; clampDiodesPerPhase: number; capacitors: number; switchesTotal: number; diodesTotal: number; clampDiodesTotal: number }
+  counts: { switchesPerPhase: number, diodesPerPhase: number, clampDiodesPerPhase: number, capacitors: number, switchesTotal: number, diodesTotal: number, clampDiodesTotal: number }
   /** Only when requested (includeWaveform): one fundamental period. */
   waveform?: Waveform
   spectrum?: SpectrumLine[]
@@ -187,7 +187,7 @@ export interface DesignInput {
 
 export interface DeviceEnvelope extends DeviceStress {
   /** name of the operating point that set each worst value */
-  worstPoint: { blockingVoltage: string; currentAvg: string; currentRms: string; currentPeak: string }
+  worstPoint: { blockingVoltage: string, currentAvg: string, currentRms: string, currentPeak: string }
   /** V, required part voltage class after derating */
   requiredVoltageRating: number
   /** A, required part current rating after derating */
@@ -200,13 +200,13 @@ export interface CapacitorEnvelope extends CapacitorStress {
   requiredVoltageRating: number
   requiredRippleRating: number
   /** name of the operating point that set each worst value */
-  worstPoint?: { voltage: string; rippleCurrentRms: string; capacitanceRequired: string }
+  worstPoint?: { voltage: string, rippleCurrentRms: string, capacitanceRequired: string }
 }
 
 export interface ConverterResult {
   side: 'machine' | 'grid'
   points: (StressResult & { pointName: string })[]
-  envelope: { devices: DeviceEnvelope[]; capacitors: CapacitorEnvelope[] }
+  envelope: { devices: DeviceEnvelope[], capacitors: CapacitorEnvelope[] }
   warnings: string[]
 }
 

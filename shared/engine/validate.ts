@@ -48,7 +48,7 @@ export function legFor(topology: TopologyDefinition, levels: number): CompiledLe
   return leg
 }
 
-type NumberRule = { required?: boolean; min?: number; max?: number; positive?: boolean; unit: string }
+type NumberRule = { required?: boolean, min?: number, max?: number, positive?: boolean, unit: string }
 
 function num(input: Record<string, unknown>, field: string, rule: NumberRule): number | undefined {
   const v = input[field]

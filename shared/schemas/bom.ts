@@ -9,4 +9,4 @@ export const purchaseLineSchema = z.object({
   orderReference: z.string().trim().max(80).nullable().optional(),
 }).refine(v => Object.values(v).some(x => x !== undefined), { message: 'Give supplier, quotedUnitPrice or orderReference' })
 
-export const exportFormat = z.object({ format: z.enum(['xlsx', 'pdf'], { message: "Use 'xlsx' or 'pdf'" }) })
+export const exportFormat = z.object({ format: z.enum(['xlsx', 'pdf'], { message: 'Use \'xlsx\' or \'pdf\'' }) })

@@ -3,7 +3,7 @@ import { CATALOG_COLUMNS, LIFECYCLES, PART_KINDS } from '../../catalog/columns'
 
 const columnKeys = CATALOG_COLUMNS.map(c => c.key) as [string, ...string[]]
 
-export const decimalSeparatorSchema = z.enum(['.', ','], { message: "Choose '.' or ','" })
+export const decimalSeparatorSchema = z.enum(['.', ','], { message: 'Choose \'.\' or \',\'' })
 
 export const importMappingSchema = z.object({
   mapping: z.record(z.enum(columnKeys, { message: 'Not a catalogue column' }), z.number().int().min(0).nullable()),

@@ -1,7 +1,7 @@
 import { z } from 'zod'
 
 export const assignmentSchema = z.object({
-  side: z.enum(['machine', 'grid'], { message: "Use 'machine' or 'grid'" }),
+  side: z.enum(['machine', 'grid'], { message: 'Use \'machine\' or \'grid\'' }),
   position: z.string().trim().min(1, 'Name the position').max(40),
   partVersionId: z.number().int().positive('Choose a part'),
   seriesCount: z.number().int().min(1).max(32).default(1),

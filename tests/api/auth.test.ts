@@ -95,7 +95,7 @@ describe('hardening', () => {
     const r = await fetch(`${baseUrl}/sign-in`)
     expect(r.headers.get('x-content-type-options')).toBe('nosniff')
     expect(r.headers.get('x-frame-options')).toBe('DENY')
-    expect(r.headers.get('content-security-policy')).toContain("frame-ancestors 'none'")
+    expect(r.headers.get('content-security-policy')).toContain('frame-ancestors \'none\'')
   })
 
   it('sets a same-site, http-only session cookie', async () => {

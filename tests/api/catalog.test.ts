@@ -29,7 +29,7 @@ function untidyRows(prefix: string, igbtPrice = '1:182.00; 10:169.50') {
   ]
 }
 
-async function xlsx(sheets: { name: string; rows: unknown[][]; state?: 'visible' | 'hidden' }[], prepare?: (wb: ExcelJS.Workbook) => void) {
+async function xlsx(sheets: { name: string, rows: unknown[][], state?: 'visible' | 'hidden' }[], prepare?: (wb: ExcelJS.Workbook) => void) {
   const wb = new ExcelJS.Workbook()
   for (const s of sheets) {
     const ws = wb.addWorksheet(s.name, s.state ? { state: s.state } : undefined)
@@ -49,7 +49,7 @@ function upload(c: Client, buffer: Buffer, filename: string, decimalSeparator?: 
 async function partsMatching(c: Client, q: string, extra = '') {
   const r = await c.json('GET', `/api/catalog/parts?q=${encodeURIComponent(q)}${extra}`)
   expect(r.status).toBe(200)
-  return r.body as { rows: any[]; total: number; page: number; pageSize: number }
+  return r.body as { rows: any[], total: number, page: number, pageSize: number }
 }
 
 describe('catalogue import: untidy spreadsheet to catalogue version', () => {
@@ -236,7 +236,7 @@ describe('catalogue import: files that cannot be imported', () => {
     const imports = (await engineer.json('GET', '/api/catalog/imports')).body as any[]
     expect(imports.some(i => i.filename === filename)).toBe(false)
     expect((await partsMatching(engineer, prefix)).total).toBe(0)
-    return r.body.data.problems as { row?: number; column?: string; message: string }[]
+    return r.body.data.problems as { row?: number, column?: string, message: string }[]
   }
 
   it('refuses files that are not spreadsheets', async () => {

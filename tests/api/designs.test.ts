@@ -67,7 +67,7 @@ describe('designs', () => {
     const labels = r.body.rows.map((x: { topology: string }) => x.topology)
     expect(labels).toEqual(expect.arrayContaining(['two-level', 'diode-clamped', 't-type', 'anpc', 'flying-capacitor', 'cascaded-h-bridge', 'matrix']))
     const two = r.body.rows.find((x: { topology: string }) => x.topology === 'two-level')
-    const npc = r.body.rows.find((x: { topology: string; levels: number }) => x.topology === 'diode-clamped' && x.levels === 3)
+    const npc = r.body.rows.find((x: { topology: string, levels: number }) => x.topology === 'diode-clamped' && x.levels === 3)
     // Rodriguez, Lai, Peng (IEEE TIE 2002): the NPC leg has twice the switches of the two-level leg, each at half the voltage.
     expect(npc.switchesTotal).toBe(2 * two.switchesTotal)
     expect(npc.highestVoltageClass).toBeLessThan(two.highestVoltageClass)

@@ -19,7 +19,8 @@ export const demoEmail: Record<Role, string> = {
 async function fetchWithRetry(url: string, init: RequestInit): Promise<Response> {
   try {
     return await fetch(url, init)
-  } catch (err) {
+  }
+  catch (err) {
     const code = (err as { cause?: { code?: string } }).cause?.code
     if (code !== 'ECONNRESET' && code !== 'UND_ERR_SOCKET') throw err
     return fetch(url, init)
@@ -29,7 +30,7 @@ async function fetchWithRetry(url: string, init: RequestInit): Promise<Response>
 export interface Client {
   cookie: string
   request: (method: string, path: string, body?: unknown, headers?: Record<string, string>) => Promise<Response>
-  json: <T = any>(method: string, path: string, body?: unknown) => Promise<{ status: number; body: T }>
+  json: <T = any>(method: string, path: string, body?: unknown) => Promise<{ status: number, body: T }>
 }
 
 export function client(cookie = ''): Client {
@@ -52,7 +53,8 @@ export function client(cookie = ''): Client {
       const r = await c.request(method, path, body)
       const text = await r.text()
       let parsed: unknown = text
-      try { parsed = JSON.parse(text) } catch { /* not JSON */ }
+      try { parsed = JSON.parse(text) }
+      catch { /* not JSON */ }
       return { status: r.status, body: parsed as any }
     },
   }
@@ -68,14 +70,15 @@ export async function signIn(email: string, password = demoPassword): Promise<Cl
 
 export const signInAs = (role: Role) => signIn(demoEmail[role])
 
-export interface StoredMail { id: string; to: string[]; subject: string; text: string; attachments: { filename: string; contentType: string; size: number; contentBase64: string }[] }
+export interface StoredMail { id: string, to: string[], subject: string, text: string, attachments: { filename: string, contentType: string, size: number, contentBase64: string }[] }
 
 /** Waits for a message to `to` whose subject contains `subject` in the fake SMTP server's mailbox. */
 export async function waitForMail(to: string, subject: string, timeoutMs = 10000): Promise<StoredMail> {
   const start = Date.now()
   while (Date.now() - start < timeoutMs) {
     let names: string[] = []
-    try { names = readdirSync(mailboxDir).filter(n => n.endsWith('.json')).sort().reverse() } catch { /* not yet */ }
+    try { names = readdirSync(mailboxDir).filter(n => n.endsWith('.json')).sort().reverse() }
+    catch { /* not yet */ }
     for (const n of names) {
       const m = JSON.parse(readFileSync(join(mailboxDir, n), 'utf8')) as StoredMail
       if (m.to.includes(to) && m.subject.includes(subject)) return m

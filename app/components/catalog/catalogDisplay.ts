@@ -15,18 +15,18 @@ export const UPLOAD_LIMITS = { maxBytes: 10 * 1024 * 1024, maxRows: 20_000 }
 
 /** The answer of upload, GET import and preview (server/services/catalog-import.ts describeImport). */
 export interface ImportDescription {
-  import: { id: number; filename: string; sizeBytes: number; status: string; sheetName: string; createdAt: string; catalogVersionId: number | null }
+  import: { id: number, filename: string, sizeBytes: number, status: string, sheetName: string, createdAt: string, catalogVersionId: number | null }
   headers: string[]
   headerRowNumber: number
   suggestions: MappingSuggestion[]
-  unusedHeaders: { index: number; header: string; column: string }[]
+  unusedHeaders: { index: number, header: string, column: string }[]
   mapping: ColumnMapping
   decimalSeparator: '.' | ','
   warnings: TableProblem[]
-  preview: { rowsRead: number; rowsWithErrors: number; validParts: number; issues: ValidationIssue[]; truncated: boolean; sample: CatalogPart[] }
+  preview: { rowsRead: number, rowsWithErrors: number, validParts: number, issues: ValidationIssue[], truncated: boolean, sample: CatalogPart[] }
 }
 
-export interface CommitSummary { catalogVersionId: number; number: number; added: number; updated: number; unchanged: number }
+export interface CommitSummary { catalogVersionId: number, number: number, added: number, updated: number, unchanged: number }
 
 export const kindLabels: Record<PartKind, string> = {
   'switch-diode': 'Switch + diode',
@@ -113,7 +113,7 @@ export function formatField(key: ColumnKey, part: Partial<CatalogPart>): string 
 }
 
 /** The part page's groups of fields (every catalogue column appears in exactly one). */
-export const FIELD_GROUPS: { id: string; title: string; keys: ColumnKey[] }[] = [
+export const FIELD_GROUPS: { id: string, title: string, keys: ColumnKey[] }[] = [
   { id: 'identity', title: 'Part', keys: ['partNumber', 'manufacturer', 'kind', 'packageConfiguration', 'technology', 'description', 'datasheetUrl'] },
   { id: 'ratings', title: 'Ratings', keys: ['voltageRating', 'currentRating', 'junctionTemperatureMax'] },
   { id: 'conduction', title: 'Conduction (on-state model v = V0 + r·i, hot)', keys: ['switchThresholdVoltage', 'switchSlopeResistance', 'diodeThresholdVoltage', 'diodeSlopeResistance'] },
@@ -133,7 +133,7 @@ export function groupsFor(part: Partial<CatalogPart>) {
   return FIELD_GROUPS.filter(g => g.keys.some(k => hasValue(part, k)))
 }
 
-export interface FieldChange { key: ColumnKey; label: string; before: string; after: string }
+export interface FieldChange { key: ColumnKey, label: string, before: string, after: string }
 
 /** Fields that differ between an older and a newer version of a part, in column order. */
 export function diffParts(older: Partial<CatalogPart>, newer: Partial<CatalogPart>): FieldChange[] {

@@ -1,7 +1,6 @@
 import { loadDesign } from '~~/server/services/designs'
-import { and } from 'drizzle-orm'
+import { and, desc, eq } from 'drizzle-orm'
 import { z } from 'zod'
-import { desc, eq } from 'drizzle-orm'
 import { idParam } from '#shared/schemas/auth'
 
 // A design with its revision history; ?revision=N reads an earlier revision's inputs.

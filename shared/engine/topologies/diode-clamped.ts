@@ -44,11 +44,15 @@ function leg(N: number) {
     const on = range(N - l, 2 * N - 2 - l).map(k => `S${k}`)
     const top = l === N - 1
     const bottom = l === 0
-    const positive = top ? range(1, N - 1).map(upper)
-      : bottom ? range(N, 2 * N - 2).map(k => `D${k}`)
+    const positive = top
+      ? range(1, N - 1).map(upper)
+      : bottom
+        ? range(N, 2 * N - 2).map(k => `D${k}`)
         : [`Dc${l}+`, ...range(N - l, N - 1).map(upper)]
-    const negative = top ? range(1, N - 1).map(k => `D${k}`)
-      : bottom ? range(N, 2 * N - 2).map(k => `S${k}`)
+    const negative = top
+      ? range(1, N - 1).map(k => `D${k}`)
+      : bottom
+        ? range(N, 2 * N - 2).map(k => `S${k}`)
         : [...range(N, 2 * N - 2 - l).map(k => `S${k}`), `Dc${l}-`]
     return { name: `L${l}`, level: l, on, nodeVoltages, positive, negative }
   })

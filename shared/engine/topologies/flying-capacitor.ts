@@ -36,8 +36,10 @@ function leg(N: number) {
     for (const j of range(1, C)) {
       const upperOn = ((bits >> (j - 1)) & 1) === 1
       // The capacitor after cell j fixes P(j) − Q(j) = C − j; the on switch ties one side to the previous node.
-      if (upperOn) { q = p - (C - j) } else { p = q + (C - j) }
-      if (j < C) { v[P(j)] = p; v[Q(j)] = q } else v.out = p
+      if (upperOn) { q = p - (C - j) }
+      else { p = q + (C - j) }
+      if (j < C) { v[P(j)] = p; v[Q(j)] = q }
+      else v.out = p
       on.push(upperOn ? `S${j}` : `S${comp(j)}`)
       positive.push(upperOn ? `S${j}` : `D${comp(j)}`)
       negative.push(upperOn ? `D${j}` : `S${comp(j)}`)

@@ -184,7 +184,8 @@ describe('currencies, warnings and bad input', () => {
         manualLines: [{ description: '', quantityPerUnit: 0 }],
       })
       expect.unreachable('should have thrown')
-    } catch (e) {
+    }
+    catch (e) {
       expect(e).toBeInstanceOf(BomInputError)
       expect((e as BomInputError).issues.map(i => i.field)).toEqual([
         'buildQuantity', 'sparesPercent', 'positions.0.unitPriceBreaks.0.quantity', 'positions.0.unitPriceBreaks.0.price',

@@ -64,21 +64,21 @@ describe('diffBoms', () => {
 
 describe('neutraliseFormula (OWASP CSV injection guidance)', () => {
   it.each([
-    ['=1+1', "'=1+1"],
-    ['+49 30 123', "'+49 30 123"],
-    ['-2+3', "'-2+3"],
-    ['@SUM(A1:A2)', "'@SUM(A1:A2)"],
-    ['\t=1', "'\t=1"],
-    ['\r=1', "'\r=1"],
+    ['=1+1', '\'=1+1'],
+    ['+49 30 123', '\'+49 30 123'],
+    ['-2+3', '\'-2+3'],
+    ['@SUM(A1:A2)', '\'@SUM(A1:A2)'],
+    ['\t=1', '\'\t=1'],
+    ['\r=1', '\'\r=1'],
     ['=HYPERLINK("http://example.invalid","x")', '\'=HYPERLINK("http://example.invalid","x")'],
-    ['  =1+1', "'  =1+1"],
-    ['\n=1+1', "'\n=1+1"],
-    ['＝1+1', "'＝1+1"],
+    ['  =1+1', '\'  =1+1'],
+    ['\n=1+1', '\'\n=1+1'],
+    ['＝1+1', '\'＝1+1'],
   ])('%j → %j', (input, expected) => {
     expect(neutraliseFormula(input)).toBe(expected)
   })
 
-  it.each(['IGBT 1200 V', 'ORS-IG12-150', 'a=b', '1200', '', "'already quoted"])('leaves %j alone', text => {
+  it.each(['IGBT 1200 V', 'ORS-IG12-150', 'a=b', '1200', '', '\'already quoted'])('leaves %j alone', (text) => {
     expect(neutraliseFormula(text)).toBe(text)
   })
 })

@@ -24,7 +24,8 @@ function pdfText(pdf: Buffer, first?: number, last?: number): string {
     writeFileSync(file, pdf)
     const range = first ? ['-f', String(first), '-l', String(last ?? first)] : []
     return execFileSync(PDFTOTEXT, [...range, '-enc', 'UTF-8', file, '-'], { encoding: 'utf8' })
-  } finally {
+  }
+  finally {
     rmSync(dir, { recursive: true, force: true })
   }
 }
@@ -55,7 +56,7 @@ describe('fonts', () => {
     await expect(loadFonts(async name => (name === 'Roboto-Medium.ttf' ? null : Buffer.from('x')))).rejects.toThrow(/Roboto-Medium\.ttf is missing/)
   })
 
-  it("accepts the Uint8Array a built server's asset storage returns", async () => {
+  it('accepts the Uint8Array a built server\'s asset storage returns', async () => {
     const loaded = await loadFonts(async name => new Uint8Array(fonts[name === 'Roboto-Regular.ttf' ? 'normal' : name === 'Roboto-Medium.ttf' ? 'bold' : name === 'Roboto-Italic.ttf' ? 'italics' : 'bolditalics']))
     expect(Buffer.isBuffer(loaded.bold)).toBe(true)
     expect(loaded.bold.equals(fonts.bold)).toBe(true)
@@ -170,7 +171,8 @@ describe('designReportPdf', () => {
       const pdf = await designReportPdf(report({ schematicSvg: svg }), fonts)
       expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-')
       expect(requests).toBe(0)
-    } finally {
+    }
+    finally {
       server.close()
     }
     expect(selfContainedSvg('<svg><use href="#a"/><image href="http://x/y.png"/><a xlink:href=\'http://x\'>t</a></svg>')).toBe('<svg><use href="#a"/><a>t</a></svg>')

@@ -125,17 +125,18 @@ describe('bomToXlsx against formula injection', async () => {
   it('no cell that came from text is a formula, and each starts with an apostrophe', () => {
     const hostile: string[] = []
     for (const sheet of wb.worksheets) {
-      sheet.eachRow(row => row.eachCell(cell => {
+      sheet.eachRow(row => row.eachCell((cell) => {
         if (cell.type === ExcelJS.ValueType.Formula) {
           // only the formulas the export writes itself: products and sums of cell ranges
           expect(cell.formula).toMatch(/^(?:[A-Z]+\d+\*[A-Z]+\d+|SUM\([A-Z]+\d+:[A-Z]+\d+\)|SUMIF\([A-Z]+\d+:[A-Z]+\d+,"EUR",[A-Z]+\d+:[A-Z]+\d+\))$/)
-        } else if (typeof cell.value === 'string' && /^'?[=+\-@]/.test(cell.value)) hostile.push(cell.value)
+        }
+        else if (typeof cell.value === 'string' && /^'?[=+\-@]/.test(cell.value)) hostile.push(cell.value)
       }))
     }
     expect(hostile.length).toBeGreaterThanOrEqual(8)
-    for (const text of hostile) expect(text.startsWith("'"), text).toBe(true)
+    for (const text of hostile) expect(text.startsWith('\''), text).toBe(true)
     expect(hostile).toContain('\'=HYPERLINK("http://example.invalid/x","click")')
-    expect(hostile).toContain("'=2*3")
+    expect(hostile).toContain('\'=2*3')
   })
 })
 
@@ -154,7 +155,7 @@ function libreOfficeCsv(workbooks: Record<string, Buffer>): Record<string, strin
 <item oor:path="/org.openoffice.Office.Calc/Formula/Load"><prop oor:name="OOXMLRecalcMode" oor:op="fuse"><value>0</value></prop></item>
 </oor:items>
 `)
-    const files = Object.keys(workbooks).map(name => {
+    const files = Object.keys(workbooks).map((name) => {
       const file = join(dir, `${name}.xlsx`)
       writeFileSync(file, workbooks[name]!)
       return file
@@ -162,7 +163,8 @@ function libreOfficeCsv(workbooks: Record<string, Buffer>): Record<string, strin
     // CSV: comma, double quotes, UTF-8 (76), from row 1; the first sheet ("BOM") is converted.
     execFileSync(SOFFICE, [`-env:UserInstallation=file://${profile}`, '--headless', '--convert-to', 'csv:Text - txt - csv (StarCalc):44,34,76,1', '--outdir', dir, ...files], { timeout: 120_000, stdio: 'pipe' })
     return Object.fromEntries(Object.keys(workbooks).map(name => [name, readFileSync(join(dir, `${name}.csv`), 'utf8')]))
-  } finally {
+  }
+  finally {
     rmSync(dir, { recursive: true, force: true })
     rmSync(profile, { recursive: true, force: true })
   }
@@ -172,7 +174,7 @@ function libreOfficeCsv(workbooks: Record<string, Buffer>): Record<string, strin
 async function withPoisonedResults(bytes: Buffer): Promise<Buffer> {
   const wb = await readBack(bytes)
   let formulas = 0
-  wb.getWorksheet('BOM')!.eachRow(row => row.eachCell(cell => {
+  wb.getWorksheet('BOM')!.eachRow(row => row.eachCell((cell) => {
     if (cell.type === ExcelJS.ValueType.Formula) { cell.value = { formula: cell.formula, result: -1 }; formulas++ }
   }))
   expect(formulas).toBeGreaterThan(0)
@@ -229,13 +231,17 @@ function parseCsv(text: string): string[][] {
   for (let i = 0; i < text.length; i++) {
     const ch = text[i]!
     if (quoted) {
-      if (ch === '"' && text[i + 1] === '"') { field += '"'; i++ } else if (ch === '"') quoted = false
+      if (ch === '"' && text[i + 1] === '"') { field += '"'; i++ }
+      else if (ch === '"') quoted = false
       else field += ch
-    } else if (ch === '"') quoted = true
-    else if (ch === ',') { row.push(field); field = '' } else if (ch === '\n' || ch === '\r') {
+    }
+    else if (ch === '"') quoted = true
+    else if (ch === ',') { row.push(field); field = '' }
+    else if (ch === '\n' || ch === '\r') {
       if (ch === '\r' && text[i + 1] === '\n') i++
       row.push(field); rows.push(row); row = []; field = ''
-    } else field += ch
+    }
+    else field += ch
   }
   if (field !== '' || row.length > 0) { row.push(field); rows.push(row) }
   return rows
@@ -243,7 +249,7 @@ function parseCsv(text: string): string[][] {
 
 /** Numbers as LibreOffice formats them in CSV ("5,008.50", "5008.5", "1,320.00 USD"). */
 function parseNumber(text: string): number {
-  const n = Number(text.replace(/[^0-9.\-]/g, ''))
+  const n = Number(text.replace(/[^0-9.-]/g, ''))
   if (text.trim() === '' || Number.isNaN(n)) throw new Error(`not a number: ${JSON.stringify(text)}`)
   return n
 }

@@ -178,7 +178,7 @@ describe('modules: packages per converter', () => {
   it('counts packages per design for back-to-back converters and prices the build quantity', () => {
     const duty = { ...twoLevel('switch'), converters: 2 }
     const [c] = matchPosition(duty, [igbt({ currentRating: 600 })], { ...policy, buildQuantity: 10 })
-    .candidates
+      .candidates
     expect(c!.packagesPerDesign).toBe(6)
     // 6 × 10 = 60 pieces: the 10-piece break applies
     expect(c!.orderQuantity).toBe(60)
@@ -270,7 +270,7 @@ describe('whyNothingFits', () => {
   it('is null when something fits and says when a kind is missing altogether', () => {
     expect(whyNothingFits({ ...duty, requiredCurrentRating: 250 }, catalogue, policy)).toBeNull()
     const cap: PositionDuty = { ...duty, kind: 'capacitor', positionName: 'C1', requiredRippleRating: 50, capacitanceRequired: 1e-3 }
-    expect(whyNothingFits(cap, catalogue, policy)).toBe("C1: the catalogue has no part that can serve as a capacitor (kinds 'capacitor').")
+    expect(whyNothingFits(cap, catalogue, policy)).toBe('C1: the catalogue has no part that can serve as a capacitor (kinds \'capacitor\').')
   })
 
   it('explains a capacitor bank that cannot reach the capacitance', () => {

@@ -37,7 +37,7 @@ describe('readCatalogFile: .xlsx', () => {
   })
 
   it('refuses a formula, naming the cell', async () => {
-    const buffer = await workbookBuffer([{ name: 'Parts', rows: templateSheet([exampleRow(0, 'P-1'), exampleRow(0, 'P-2')]) }], wb => {
+    const buffer = await workbookBuffer([{ name: 'Parts', rows: templateSheet([exampleRow(0, 'P-1'), exampleRow(0, 'P-2')]) }], (wb) => {
       wb.getWorksheet('Parts')!.getCell('F4').value = { formula: 'F3*1.5', result: 1800 }
     })
     const table = await readCatalogFile(buffer, 'f.xlsx')
@@ -47,7 +47,7 @@ describe('readCatalogFile: .xlsx', () => {
   })
 
   it('refuses merged cells, naming the range', async () => {
-    const buffer = await workbookBuffer([{ name: 'Parts', rows: templateSheet([exampleRow(0, 'P-1'), exampleRow(0, 'P-2'), exampleRow(0, 'P-3')]) }], wb => {
+    const buffer = await workbookBuffer([{ name: 'Parts', rows: templateSheet([exampleRow(0, 'P-1'), exampleRow(0, 'P-2'), exampleRow(0, 'P-3')]) }], (wb) => {
       wb.getWorksheet('Parts')!.mergeCells('B3:B5')
     })
     const table = await readCatalogFile(buffer, 'm.xlsx')
@@ -57,7 +57,7 @@ describe('readCatalogFile: .xlsx', () => {
 
   it('refuses hidden rows and warns about hidden columns', async () => {
     const rows = templateSheet([exampleRow(0, 'P-1'), exampleRow(0, 'P-2'), exampleRow(0, 'P-3'), exampleRow(0, 'P-4'), exampleRow(0, 'P-5')])
-    const buffer = await workbookBuffer([{ name: 'Parts', rows }], wb => {
+    const buffer = await workbookBuffer([{ name: 'Parts', rows }], (wb) => {
       const ws = wb.getWorksheet('Parts')!
       ws.getRow(4).hidden = true
       ws.getRow(5).hidden = true
@@ -81,7 +81,7 @@ describe('readCatalogFile: .xlsx', () => {
     const table = await readCatalogFile(buffer, 's.xlsx')
     expect(table.sheetName).toBe('Parts (new)')
     expect(table.rows[0]!.cells[0]).toBe('D-9')
-    expect(messages(table.warnings)).toBe("read the sheet 'Parts (new)'; not read: 'Read me', 'Parts' (hidden)")
+    expect(messages(table.warnings)).toBe('read the sheet \'Parts (new)\'; not read: \'Read me\', \'Parts\' (hidden)')
   })
 
   it('reads the first visible sheet when none is named like a parts list', async () => {
@@ -102,9 +102,9 @@ describe('readCatalogFile: .xlsx', () => {
 
   it('refuses an empty sheet and a header-only sheet', async () => {
     const empty = await readCatalogFile(await workbookBuffer([{ name: 'Parts', rows: [] }]), 'e.xlsx')
-    expect(messages(empty.errors)).toBe("the sheet 'Parts' is empty")
+    expect(messages(empty.errors)).toBe('the sheet \'Parts\' is empty')
     const headerOnly = await readCatalogFile(await workbookBuffer([{ name: 'Parts', rows: templateSheet([]) }]), 'h.xlsx')
-    expect(messages(headerOnly.errors)).toBe("the sheet 'Parts' has a header row (row 1) but no parts below it")
+    expect(messages(headerOnly.errors)).toBe('the sheet \'Parts\' has a header row (row 1) but no parts below it')
     expect(headerOnly.headers).toHaveLength(buildTemplateRows().header.length)
   })
 
@@ -146,13 +146,13 @@ describe('readCatalogFile: .xlsx', () => {
 
   it('stops early on a sheet far past the row limit or absurdly wide', async () => {
     const tall = await workbookBuffer([{ name: 'Parts', rows: [['Part number'], ...Array.from({ length: 150 }, (_, i) => [`P-${i}`])] }])
-    expect(messages((await readCatalogFile(tall, 'tall.xlsx', { maxRows: 50 })).errors)).toBe("'tall.xlsx' has more than 110 rows in a sheet; the limit is 50 parts per upload: split the file")
+    expect(messages((await readCatalogFile(tall, 'tall.xlsx', { maxRows: 50 })).errors)).toBe('\'tall.xlsx\' has more than 110 rows in a sheet; the limit is 50 parts per upload: split the file')
     const wide = await workbookBuffer([{ name: 'Parts', rows: [Array.from({ length: 1001 }, (_, i) => `H${i}`)] }])
     expect(messages((await readCatalogFile(wide, 'wide.xlsx')).errors)).toMatch(/has more than 1000 columns in a row/)
   })
 
   it('lists at most maxProblems problems and counts the rest', async () => {
-    const buffer = await workbookBuffer([{ name: 'Parts', rows: templateSheet(Array.from({ length: 12 }, (_, i) => exampleRow(0, `P-${i}`))) }], wb => {
+    const buffer = await workbookBuffer([{ name: 'Parts', rows: templateSheet(Array.from({ length: 12 }, (_, i) => exampleRow(0, `P-${i}`))) }], (wb) => {
       const ws = wb.getWorksheet('Parts')!
       for (let r = 3; r <= 14; r++) ws.getCell(`F${r}`).value = { formula: '1+1', result: 2 }
     })
@@ -193,11 +193,11 @@ describe('readCatalogFile: files that are not spreadsheets', () => {
   })
 
   it('refuses an empty file and an oversized one', async () => {
-    expect(messages((await readCatalogFile(Buffer.alloc(0), 'empty.csv')).errors)).toBe("'empty.csv' is empty (0 bytes)")
-    expect(messages((await readCatalogFile(Buffer.from('\uFEFF  \n\n'), 'blank.csv')).errors)).toBe("'blank.csv' is empty (no text)")
+    expect(messages((await readCatalogFile(Buffer.alloc(0), 'empty.csv')).errors)).toBe('\'empty.csv\' is empty (0 bytes)')
+    expect(messages((await readCatalogFile(Buffer.from('\uFEFF  \n\n'), 'blank.csv')).errors)).toBe('\'blank.csv\' is empty (no text)')
     const big = Buffer.alloc(6 * 1024 * 1024, 0x41)
-    expect(messages((await readCatalogFile(big, 'big.csv')).errors)).toBe("'big.csv' is 6.0 MB; uploads are limited to 5.0 MB")
-    expect(messages((await readCatalogFile(Buffer.alloc(3000, 0x41), 'x.csv', { maxBytes: 2048 })).errors)).toBe("'x.csv' is 3 kB; uploads are limited to 2 kB")
+    expect(messages((await readCatalogFile(big, 'big.csv')).errors)).toBe('\'big.csv\' is 6.0 MB; uploads are limited to 5.0 MB')
+    expect(messages((await readCatalogFile(Buffer.alloc(3000, 0x41), 'x.csv', { maxBytes: 2048 })).errors)).toBe('\'x.csv\' is 3 kB; uploads are limited to 2 kB')
   })
 })
 
@@ -244,7 +244,7 @@ describe('zip bombs', () => {
 
 describe('readCatalogFile: .csv', () => {
   const header = buildTemplateRows().header
-  const csvLine = (cells: (string | number | null)[], d: string) => cells.map(c => {
+  const csvLine = (cells: (string | number | null)[], d: string) => cells.map((c) => {
     const s = c === null ? '' : String(c)
     return /[",;\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s
   }).join(d)
@@ -351,7 +351,7 @@ describe('CSV parser', () => {
 describe('LibreOffice-saved workbook', () => {
   const soffice = ['/usr/bin/soffice', '/usr/bin/libreoffice', '/usr/lib/libreoffice/program/soffice'].find(p => existsSync(p))
 
-  it('reads an .xlsx that LibreOffice converted from CSV', async ctx => {
+  it('reads an .xlsx that LibreOffice converted from CSV', async (ctx) => {
     ctx.skip(!soffice, 'LibreOffice is not installed here (looked for /usr/bin/soffice and /usr/bin/libreoffice); the full test script installs libreoffice-calc')
     const dir = mkdtempSync(join(tmpdir(), 'stratavolt-lo-'))
     try {

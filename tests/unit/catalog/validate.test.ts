@@ -130,7 +130,7 @@ describe('validateRows: every bad cell explained', () => {
     const result = validate([row(0, 'U1'), row(0, 'U2'), row(2, 'U3')], { decimalSeparator: '.' }, partial)
     const unmapped = result.issues.filter(i => i.field === 'turnOnEnergy')
     expect(unmapped).toHaveLength(1)
-    expect(unmapped[0]).toMatchObject({ row: 1, column: '', message: "'Turn-on energy Eon' is required for switch-diode parts but no uploaded column is mapped to it" })
+    expect(unmapped[0]).toMatchObject({ row: 1, column: '', message: '\'Turn-on energy Eon\' is required for switch-diode parts but no uploaded column is mapped to it' })
     expect(result.parts.map(p => p.partNumber)).toEqual(['U3'])
   })
 

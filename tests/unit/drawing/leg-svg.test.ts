@@ -14,7 +14,7 @@ import { evaluateStress, legLayout, type LegLayout, type StressInput, type Stres
 import { designReportPdf, loadFontsFromNodeModules, type DesignReport } from '../../../server/exports/design-pdf'
 
 interface Parsed {
-  elements: { name: string; attributes: Record<string, string> }[]
+  elements: { name: string, attributes: Record<string, string> }[]
   /** text of each <text> element, its tspans joined by a space */
   texts: string[]
   title: string
@@ -75,7 +75,7 @@ function inputFor(topology: TopologyId, levels: number): StressInput {
  * Every topology and several level counts, with the blocking voltage the S1 label must show at the worst-case
  * link (1200 V; cascaded cells 650 V; matrix 400 V input), each from its published source.
  */
-const CASES: { topology: TopologyId; levels?: number; first: string; blocking: string; source: string }[] = [
+const CASES: { topology: TopologyId, levels?: number, first: string, blocking: string, source: string }[] = [
   { topology: 'two-level', levels: 2, first: 'S1', blocking: '1.2 kV', source: 'full DC link per switch; Mohan, Undeland, Robbins, Power Electronics, 3rd ed., ch. 8' },
   { topology: 'diode-clamped', levels: 3, first: 'S1', blocking: '600 V', source: 'V_dc/2 per switch; Nabae, Takahashi, Akagi, IEEE TIA 1981' },
   { topology: 'diode-clamped', levels: 5, first: 'S1', blocking: '300 V', source: 'V_dc/(N−1) per switch; Rodríguez, Lai, Peng, IEEE TIE 2002' },
@@ -89,7 +89,7 @@ const CASES: { topology: TopologyId; levels?: number; first: string; blocking: s
   { topology: 'matrix', first: 'SR+', blocking: '566 V', source: '√2 · 400 V input line peak; Wheeler et al., IEEE TIE 2002' },
 ]
 
-function render(topology: TopologyId, levels?: number, title?: string): { layout: LegLayout; result: StressResult; svg: string } {
+function render(topology: TopologyId, levels?: number, title?: string): { layout: LegLayout, result: StressResult, svg: string } {
   const layout = legLayout(topology, levels)
   const result = evaluateStress(inputFor(topology, layout.levels))
   const svg = legSchematicSvg(layout, { devices: result.devices, capacitors: result.capacitors }, title ? { title } : {})
@@ -208,7 +208,8 @@ function pdfText(pdf: Buffer): string {
     const file = join(dir, 'report.pdf')
     writeFileSync(file, pdf)
     return execFileSync(PDFTOTEXT, ['-enc', 'UTF-8', file, '-'], { encoding: 'utf8' })
-  } finally {
+  }
+  finally {
     rmSync(dir, { recursive: true, force: true })
   }
 }

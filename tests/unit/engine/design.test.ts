@@ -135,7 +135,7 @@ describe('design input errors name the field path', () => {
     { what: 'derating', input: { machineSide: machine(), derating: { semiconductorVoltageUtilisation: 1.5 } }, field: 'derating.semiconductorVoltageUtilisation' },
     { what: 'ripple target', input: { machineSide: machine(), capacitorRippleTarget: 0 }, field: 'capacitorRippleTarget' },
     { what: 'grid point', input: { machineSide: machine(), gridSide: { topology: 'two-level', switchingHz: 4000, modulation: 'sine', operatingPoints: [{ name: 'g', lineVoltageRms: 400, phaseCurrentRms: 10, powerFactor: 0.9, fundamentalHz: 0 }] } }, field: 'gridSide.operatingPoints.0.fundamentalHz' },
-  ] as { what: string; input: DesignInput; field: string }[])('$what → $field', ({ input, field }) => {
+  ] as { what: string, input: DesignInput, field: string }[])('$what → $field', ({ input, field }) => {
     expect(fieldOf(() => evaluateDesign(input))).toBe(field)
   })
 

@@ -1,6 +1,7 @@
 // Leg layout data for the schematic: one item per position, in the order of the results.
 import { describe, expect, it } from 'vitest'
-import { EngineInputError, evaluateStress, legLayout, topologies } from '../../../shared/engine'
+import type { EngineInputError } from '../../../shared/engine'
+import { evaluateStress, legLayout, topologies } from '../../../shared/engine'
 import { inputAt } from './helpers'
 
 const cases = topologies.flatMap(t => (t.allowedLevels === 'ignored' ? [undefined] : t.allowedLevels).map(N => ({ id: t.id, N })))

@@ -1,6 +1,7 @@
 // 3×3 matrix converter: blocking voltage, device count and the output-voltage limit (Wheeler et al., IEEE TIE 2002).
 import { describe, expect, it } from 'vitest'
-import { EngineInputError, evaluateStress, type Modulation, type StressInput } from '../../../shared/engine'
+import type { EngineInputError, Modulation, StressInput } from '../../../shared/engine'
+import { evaluateStress } from '../../../shared/engine'
 import { expectClose } from './helpers'
 
 const WHEELER = 'Wheeler et al., IEEE TIE 2002'

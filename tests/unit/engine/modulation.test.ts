@@ -13,7 +13,7 @@ describe('linear range and over-modulation', () => {
     { modulation: 'third-harmonic', M: 1.16, over: true },
     { modulation: 'space-vector', M: 1.15, over: false },
     { modulation: 'space-vector', M: 1.25, over: true },
-  ] as { modulation: Modulation; M: number; over: boolean }[])(`$modulation M=$M: linear limit 1 (sine) or 2/√3 (injection) (${HL}; ENGINEERING.md)`, ({ modulation, M, over }) => {
+  ] as { modulation: Modulation, M: number, over: boolean }[])(`$modulation M=$M: linear limit 1 (sine) or 2/√3 (injection) (${HL}; ENGINEERING.md)`, ({ modulation, M, over }) => {
     for (const topology of ['two-level', 'diode-clamped', 'flying-capacitor', 'cascaded-h-bridge'] as const) {
       const input = inputAt(topology, M, 0.9, { modulation, levels: topology === 'two-level' ? 2 : 5 })
       const r = evaluateStress(input)

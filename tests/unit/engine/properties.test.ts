@@ -73,7 +73,7 @@ describe('random valid inputs (first principles: bounds every stress must respec
   }, 60_000)
 })
 
-type Corruption = { field: keyof StressInput; value: unknown; applies?: (i: StressInput) => boolean }
+type Corruption = { field: keyof StressInput, value: unknown, applies?: (i: StressInput) => boolean }
 const corruptions: Corruption[] = [
   { field: 'topology', value: 'nine-phase' },
   { field: 'modulation', value: 'hysteresis' },

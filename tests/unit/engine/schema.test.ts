@@ -4,7 +4,7 @@ import { z } from 'zod'
 import { designInputSchema, stressInputSchema } from '../../../shared/schemas/stress'
 
 const body = { topology: 'diode-clamped', levels: 3, dcVoltage: 1100, dcVoltageMax: 1200, lineVoltageRms: 690, phaseCurrentRms: 250, powerFactor: -0.9, fundamentalHz: 50, switchingHz: 3000, modulation: 'space-vector', overshootVoltage: 80, includeWaveform: true }
-const issues = (r: { success: boolean; error?: z.ZodError }) => (r.error?.issues ?? []).map(i => ({ path: i.path.join('.'), message: i.message }))
+const issues = (r: { success: boolean, error?: z.ZodError }) => (r.error?.issues ?? []).map(i => ({ path: i.path.join('.'), message: i.message }))
 
 describe('stressInputSchema', () => {
   it('accepts every PRODUCT.md field and the optional extras', () => {

@@ -1,6 +1,6 @@
 // Display formatting for result numbers: SI prefixes, three significant digits. No engineering here.
 
-const PREFIXES: { symbol: string; factor: number }[] = [
+const PREFIXES: { symbol: string, factor: number }[] = [
   { symbol: 'G', factor: 1e9 },
   { symbol: 'M', factor: 1e6 },
   { symbol: 'k', factor: 1e3 },

@@ -41,7 +41,7 @@ export default defineEventHandler(async (event) => {
     date: new Date(row.at).toISOString(),
     topologySummary: topologySummary(input),
     inputs,
-    operatingPoints: preview.result.converters.flatMap(c => c.points.map(pt => {
+    operatingPoints: preview.result.converters.flatMap(c => c.points.map((pt) => {
       const conv = c.side === 'grid' ? input.gridSide! : input.machineSide
       const op = conv.operatingPoints.find(o => o.name === pt.pointName)!
       const name = op.name ?? pt.pointName
