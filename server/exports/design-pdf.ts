@@ -258,12 +258,15 @@ function documentFor(report: DesignReport, schematic: 'draw' | { failed: string 
   if (report.topologySummary) content.push({ text: report.topologySummary, margin: [0, 0, 0, 6] })
   content.push(heading('Inputs'), inputsTable(report))
   if (report.schematicSvg) {
-    content.push(heading('Schematic'))
+    // A tall leg (many levels) gets a page of its own so that its labels stay readable.
+    const [w, h] = svgFit(report.schematicSvg, 10_000, 10_000)
+    const tall = (515 * h) / w > 300
+    content.push(tall ? { ...heading('Schematic'), pageBreak: 'before' } as Content : heading('Schematic'))
     if (schematic === 'draw') {
       // The caption in regular weight sets the font that any text inside the SVG falls back to.
       content.push({ text: 'One phase leg and the DC link; position names as in the tables below.', style: 'small', margin: [0, 0, 0, 3] })
       // Text inside the SVG cannot name our fonts (pdfmake resolves them by path); the warning is expected.
-      content.push({ svg: selfContainedSvg(report.schematicSvg), fit: svgFit(report.schematicSvg, 515, 260), options: { warningCallback: () => {} } } as unknown as Content)
+      content.push({ svg: selfContainedSvg(report.schematicSvg), fit: svgFit(report.schematicSvg, 515, tall ? 660 : 260), options: { warningCallback: () => {} } } as unknown as Content)
     }
     else {
       content.push({ text: `The schematic could not be drawn: ${schematic.failed}`, italics: true })
