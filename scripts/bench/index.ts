@@ -2,6 +2,7 @@
 import { runBomBench } from './bom'
 import { runCatalogBench } from './catalog'
 import { runEngineBench } from './engine'
+import { runImportApiBench } from './import-api'
 
 interface Figure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
 
@@ -9,6 +10,7 @@ const suites: [string, () => Promise<Figure[]>][] = [
   ['engine', runEngineBench],
   ['catalogue', runCatalogBench],
   ['bom', runBomBench],
+  ['import-api', runImportApiBench],
 ]
 const only = process.argv[2]
 

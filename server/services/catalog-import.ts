@@ -11,7 +11,8 @@ import { readCatalogFile } from '../catalog/read'
 export const UPLOAD_LIMITS = { maxBytes: 10 * 1024 * 1024, maxRows: 20_000 }
 
 const tableCache = new Map<number, RawTable>()
-function remember(importId: number, table: RawTable) {
+/** Keeps the last few uploads' tables in memory, so preview and commit need not read the file again. */
+export function rememberTable(importId: number, table: RawTable) {
   tableCache.set(importId, table)
   while (tableCache.size > 4) tableCache.delete(tableCache.keys().next().value!)
 }
@@ -43,7 +44,7 @@ export async function loadImportTable(row: typeof tables.catalogImports.$inferSe
   const raw = await useStorage('uploads').getItemRaw(row.storageKey)
   if (!raw) throw createError({ statusCode: 410, message: 'The uploaded file is no longer stored; upload it again.' })
   const table = await readCatalogFile(Buffer.from(raw as ArrayBuffer), row.filename, UPLOAD_LIMITS)
-  remember(row.id, table)
+  rememberTable(row.id, table)
   return table
 }
 

@@ -1,4 +1,4 @@
-import { readUpload, storeUpload, rememberedMapping, describeImport } from '~~/server/services/catalog-import'
+import { readUpload, storeUpload, rememberedMapping, rememberTable, describeImport } from '~~/server/services/catalog-import'
 import { suggestMapping } from '#shared/catalog/mapping'
 
 // Upload a catalogue spreadsheet (.xlsx / .csv, multipart field "file"): read, suggest a mapping, preview.
@@ -16,6 +16,7 @@ export default defineEventHandler(async (event) => {
     filename: file.filename!, storageKey, sizeBytes: file.data.length, status: 'preview', sheetName: table.sheetName,
     headers: table.headers, mapping, decimalSeparator, rowCount: table.rows.length, uploadedBy: user.id,
   }).returning()
+  rememberTable(row!.id, table)
   await audit(event, 'catalogue file uploaded', { subject: file.filename, details: { importId: row!.id, rows: table.rows.length } })
   setResponseStatus(event, 201)
   return describeImport(row!, table, mapping, decimalSeparator)
