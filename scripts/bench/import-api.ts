@@ -53,7 +53,8 @@ export async function runImportApiBench(): Promise<ImportFigure[]> {
       one('API commit of 20000 new parts (one transaction)', t2 - t1),
       one('API import total: upload + preview + commit', t2 - t0, '< 10 s'),
     ]
-  } finally {
+  }
+  finally {
     server.kill('SIGTERM')
   }
 }
