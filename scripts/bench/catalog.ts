@@ -9,7 +9,8 @@ import { DEMO_PARTS } from '../../catalog/demo-parts'
 import { readCatalogFile } from '../../server/catalog/read'
 import { partToRow } from '../../shared/catalog/format'
 import { suggestMapping } from '../../shared/catalog/mapping'
-import { indexParts, matchPosition, type MatchPolicy, type PositionDuty } from '../../shared/catalog/matching'
+import { indexParts, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, type MatchPolicy, type PositionDuty } from '../../shared/catalog/matching'
+import { evaluateDesign } from '../../shared/engine'
 import type { CatalogPart } from '../../shared/catalog/types'
 import { validateRows } from '../../shared/catalog/validate'
 
@@ -46,30 +47,22 @@ export async function manyPartsWorkbook(parts: CatalogPart[]): Promise<Buffer> {
   return Buffer.from(await wb.xlsx.writeBuffer())
 }
 
-/**
- * Positions of one phase leg of a five-level diode-clamped converter, V_dc,max = 6 kV, 300 A RMS, f_sw = 1 kHz.
- * Currents are illustrative hand-made values of the right size (not engine output); identical upper and
- * lower positions are merged (positionsPerPhase 2).
- */
+/** Every position of a five-level diode-clamped design (4.16 kV, 300 A, V_dc 6 kV) as the engine rates it. */
 export function fiveLevelDuties(): PositionDuty[] {
-  const vStep = 6000 / 4
-  const peak = 300 * Math.SQRT2
-  const common = { blockingVoltage: vStep, commutatedVoltage: vStep, switchingHz: 1000, positionsPerPhase: 2, phases: 3, converters: 1, topology: 'diode-clamped' as const, levels: 5, currentPeak: peak }
-  const required = { requiredVoltageRating: vStep / 0.55, requiredCurrentRating: peak }
-  const duties: PositionDuty[] = []
-  const switchCurrents: [number, number][] = [[60, 120], [95, 165], [125, 195], [135, 205]]
-  switchCurrents.forEach(([avg, rms], i) => duties.push({ positionName: `S${i + 1}`, kind: 'switch', ...common, ...required, currentAvg: avg, currentRms: rms }))
-  const diodeCurrents: [number, number][] = [[8, 30], [12, 40], [18, 50], [25, 60]]
-  diodeCurrents.forEach(([avg, rms], i) => duties.push({ positionName: `D${i + 1}`, kind: 'diode', ...common, ...required, currentAvg: avg, currentRms: rms }))
-  for (let k = 1; k <= 3; k++) {
-    duties.push({ positionName: `Dc${k}`, kind: 'clamp-diode', ...common, requiredVoltageRating: (k * vStep) / 0.55, requiredCurrentRating: peak, blockingVoltage: k * vStep, currentAvg: 40, currentRms: 90 })
+  const converter = {
+    topology: 'diode-clamped' as const, levels: 5, dcVoltage: 6000, dcVoltageMax: 6600, switchingHz: 1000, modulation: 'space-vector' as const, overshootVoltage: 100,
+    operatingPoints: [
+      { name: 'Rated', lineVoltageRms: 4160, phaseCurrentRms: 300, powerFactor: 0.88, fundamentalHz: 50 },
+      { name: 'Braking', lineVoltageRms: 4160, phaseCurrentRms: 250, powerFactor: -0.85, fundamentalHz: 50 },
+    ],
   }
-  duties.push({
-    positionName: 'C', kind: 'capacitor', requiredVoltageRating: vStep, requiredRippleRating: 250, capacitanceRequired: 4e-3,
-    currentAvg: 0, currentRms: 220, currentPeak: 311, blockingVoltage: vStep, commutatedVoltage: 0, switchingHz: 0,
-    positionsPerPhase: 4, phases: 1, converters: 1, topology: 'diode-clamped', levels: 5,
-  })
-  return duties
+  const result = evaluateDesign({ machineSide: converter })
+  const envelope = result.converters[0]!.envelope
+  const ctx = { switchingHz: converter.switchingHz, topology: converter.topology, levels: converter.levels }
+  return [
+    ...envelope.devices.map(d => positionDutyFromDevice(d, ctx)),
+    ...envelope.capacitors.map(c => positionDutyFromCapacitor(c, ctx)),
+  ]
 }
 
 function percentile(sorted: number[], p: number): number {

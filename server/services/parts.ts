@@ -3,7 +3,7 @@
 import { eq } from 'drizzle-orm'
 import { evaluateDesign } from '#shared/engine'
 import type { DesignInput, DesignResult } from '#shared/engine/types'
-import { matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, whyNothingFits, type Candidate, type MatchPolicy, type PositionDuty } from '#shared/catalog/matching'
+import { indexParts, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, whyNothingFits, type Candidate, type MatchPolicy, type PositionDuty } from '#shared/catalog/matching'
 import type { CatalogPart } from '#shared/catalog/types'
 import type { BomSettings } from '#shared/schemas/design'
 import { currentParts, partVersionsById } from './catalog'
@@ -65,8 +65,9 @@ export async function matchDesign(designId: number, limit = 40) {
   const assignments = await useDb().select().from(tables.partAssignments).where(eq(tables.partAssignments.designId, designId))
   const pinned = await partVersionsById(assignments.map(a => a.partVersionId))
   const currentIds = new Set(parts.map(p => p.partVersionId))
+  const index = indexParts(parts)
   const positions: PositionMatch[] = designPositions(input, result).map(({ side, duty, label }) => {
-    const m = matchPosition(duty, parts, policy)
+    const m = matchPosition(duty, index, policy)
     const candidates = m.candidates.slice(0, limit).map(c => ({ ...c, partVersionId: (c.part as Part).partVersionId, approved: (c.part as Part & { approved: boolean }).approved }))
     const a = assignments.find(x => x.side === side && x.position === duty.positionName)
     let assigned: PositionMatch['assigned'] = null
@@ -75,7 +76,7 @@ export async function matchDesign(designId: number, limit = 40) {
       const own = matchPosition(duty, [part], policy).candidates[0] ?? null
       assigned = { partVersionId: a.partVersionId, current: currentIds.has(a.partVersionId), seriesCount: a.seriesCount, parallelCount: a.parallelCount, evaluation: own, part }
     }
-    return { side, position: duty.positionName, label, duty, candidates, nothingFits: candidates.length ? null : (whyNothingFits(duty, parts, policy) ?? 'No part in the catalogue fits.'), assigned }
+    return { side, position: duty.positionName, label, duty, candidates, nothingFits: candidates.length ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.'), assigned }
   })
   return { design, input, result, policy, positions, summary: lossSummary(input, positions) }
 }

@@ -1,6 +1,6 @@
 // Trade study: one duty through several topologies and level counts, side by side.
 import { evaluateDesign, EngineInputError, topologyById, type ConverterInput, type DesignInput, type TopologyId } from '#shared/engine'
-import { matchPosition } from '#shared/catalog/matching'
+import { indexParts, matchPosition } from '#shared/catalog/matching'
 import type { TradeStudyInput } from '#shared/schemas/trade-study'
 import type { TradeStudyRow } from '#shared/types/trade-study'
 import { currentParts } from './catalog'
@@ -41,7 +41,7 @@ export function candidateConverter(duty: TradeStudyInput, topology: TopologyId, 
 }
 
 export async function runTradeStudy(duty: TradeStudyInput): Promise<{ rows: TradeStudyRow[] }> {
-  const parts = await currentParts()
+  const parts = indexParts(await currentParts())
   const rows = (duty.candidates ?? defaultCandidates).map(({ topology, levels }) => {
     const converter = candidateConverter(duty, topology, levels)
     const input: DesignInput = { machineSide: converter, derating: duty.derating }
