@@ -261,7 +261,7 @@ function documentFor(report: DesignReport, schematic: 'draw' | { failed: string 
     // A tall leg (many levels) gets a page of its own so that its labels stay readable.
     const [w, h] = svgFit(report.schematicSvg, 10_000, 10_000)
     const tall = (515 * h) / w > 300
-    content.push(tall ? { ...heading('Schematic'), pageBreak: 'before' } as Content : heading('Schematic'))
+    content.push(tall ? { ...(heading('Schematic') as object), pageBreak: 'before' } as Content : heading('Schematic'))
     if (schematic === 'draw') {
       // The caption in regular weight sets the font that any text inside the SVG falls back to.
       content.push({ text: 'One phase leg and the DC link; position names as in the tables below.', style: 'small', margin: [0, 0, 0, 3] })

@@ -1,5 +1,6 @@
 // Designs and their revisions: every save is a new revision; saves carry the revision they started from.
 import { and, desc, eq } from 'drizzle-orm'
+import { z } from 'zod'
 import { evaluateDesign, evaluateStress, legLayout } from '#shared/engine'
 import type { DesignInput } from '#shared/engine/types'
 import type { DesignPreview } from '#shared/types/design'
@@ -23,6 +24,19 @@ export async function loadDesign(id: number) {
   if (!design) throw createError({ statusCode: 404, message: 'No such design.' })
   return design
 }
+
+/** One saved revision of a design with its author; 404 when the design has no such revision. */
+export async function loadRevision(designId: number, revision: number) {
+  const r = tables.designRevisions
+  const [row] = await useDb().select({ revision: r.revision, name: r.name, input: r.input, createdAt: r.createdAt, author: tables.users.name })
+    .from(r).leftJoin(tables.users, eq(tables.users.id, r.authorId))
+    .where(and(eq(r.designId, designId), eq(r.revision, revision)))
+  if (!row) throw createError({ statusCode: 404, message: `Design ${designId} has no revision ${revision}.` })
+  return { ...row, input: row.input as DesignInput }
+}
+
+/** ?revision=N of the design routes. */
+export const revisionQuery = z.object({ revision: z.coerce.number().int().positive().optional() })
 
 export async function createDesign(tx: Tx, fields: { name: string, description: string, input: DesignInput, ownerId: number }) {
   const [design] = await tx.insert(tables.designs).values({ ...fields, ...summarise(fields.input), revision: 1 }).returning()

@@ -1,13 +1,12 @@
-import { loadDesign } from '~~/server/services/designs'
-import { and, desc, eq } from 'drizzle-orm'
-import { z } from 'zod'
+import { desc, eq } from 'drizzle-orm'
+import { loadDesign, loadRevision, revisionQuery } from '~~/server/services/designs'
 import { idParam } from '#shared/schemas/auth'
 
 // A design with its revision history; ?revision=N reads an earlier revision's inputs.
 export default defineEventHandler(async (event) => {
   await requireRole(event, 'designs:read')
   const { id } = paramsValid(event, idParam)
-  const { revision } = queryValid(event, z.object({ revision: z.coerce.number().int().positive().optional() }))
+  const { revision } = queryValid(event, revisionQuery)
   const design = await loadDesign(id)
   const db = useDb()
   const revisions = await db.select({ revision: tables.designRevisions.revision, name: tables.designRevisions.name, createdAt: tables.designRevisions.createdAt, author: tables.users.name })
@@ -15,9 +14,7 @@ export default defineEventHandler(async (event) => {
     .where(eq(tables.designRevisions.designId, id)).orderBy(desc(tables.designRevisions.revision))
   const [owner] = design.ownerId ? await db.select({ name: tables.users.name }).from(tables.users).where(eq(tables.users.id, design.ownerId)) : []
   if (revision && revision !== design.revision) {
-    const [old] = await db.select().from(tables.designRevisions)
-      .where(and(eq(tables.designRevisions.designId, id), eq(tables.designRevisions.revision, revision)))
-    if (!old) throw createError({ statusCode: 404, message: `Design ${id} has no revision ${revision}.` })
+    const old = await loadRevision(id, revision)
     return { ...design, name: old.name, input: old.input, viewingRevision: revision, owner: owner?.name ?? null, revisions }
   }
   return { ...design, viewingRevision: design.revision, owner: owner?.name ?? null, revisions }

@@ -1,25 +1,18 @@
-import { and, eq } from 'drizzle-orm'
-import { z } from 'zod'
 import { idParam } from '#shared/schemas/auth'
 import { legSchematicSvg } from '#shared/drawing/leg-svg'
-import type { DesignInput } from '#shared/engine'
 import { designReportPdf } from '~~/server/exports/design-pdf'
 import { pdfFonts, SAFETY_NOTE, topologySummary } from '~~/server/services/bom'
-import { loadDesign, previewDesign } from '~~/server/services/designs'
+import { loadDesign, loadRevision, previewDesign, revisionQuery } from '~~/server/services/designs'
 
 // The printable design report: inputs, results, warnings, waveform and spectrum, safety note.
 export default defineEventHandler(async (event) => {
   await requireRole(event, 'designs:read')
   const { id } = paramsValid(event, idParam)
-  const { revision } = queryValid(event, z.object({ revision: z.coerce.number().int().positive().optional() }))
+  const { revision } = queryValid(event, revisionQuery)
   const design = await loadDesign(id)
-  const db = useDb()
   const rev = revision ?? design.revision
-  const [row] = await db.select({ input: tables.designRevisions.input, name: tables.designRevisions.name, at: tables.designRevisions.createdAt, author: tables.users.name })
-    .from(tables.designRevisions).leftJoin(tables.users, eq(tables.users.id, tables.designRevisions.authorId))
-    .where(and(eq(tables.designRevisions.designId, id), eq(tables.designRevisions.revision, rev)))
-  if (!row) throw createError({ statusCode: 404, message: `Design ${id} has no revision ${rev}.` })
-  const input = row.input as DesignInput
+  const row = await loadRevision(id, rev)
+  const input = row.input
   const preview = previewDesign(input)
   const twoSides = !!input.gridSide
   const inputs: [string, string | number, string][] = []
@@ -38,7 +31,7 @@ export default defineEventHandler(async (event) => {
     designName: row.name,
     revision: rev,
     author: row.author ?? '—',
-    date: new Date(row.at).toISOString(),
+    date: new Date(row.createdAt).toISOString(),
     topologySummary: topologySummary(input),
     inputs,
     operatingPoints: preview.result.converters.flatMap(c => c.points.map((pt) => {

@@ -1,6 +1,4 @@
-import { previewDesign, loadDesign } from '~~/server/services/designs'
-import { and, eq } from 'drizzle-orm'
-import { z } from 'zod'
+import { previewDesign, loadDesign, loadRevision, revisionQuery } from '~~/server/services/designs'
 import { idParam } from '#shared/schemas/auth'
 import type { DesignInput } from '#shared/engine/types'
 
@@ -8,13 +6,8 @@ import type { DesignInput } from '#shared/engine/types'
 export default defineEventHandler(async (event) => {
   await requireRole(event, 'designs:read')
   const { id } = paramsValid(event, idParam)
-  const { revision } = queryValid(event, z.object({ revision: z.coerce.number().int().positive().optional() }))
+  const { revision } = queryValid(event, revisionQuery)
   const design = await loadDesign(id)
-  let input = design.input as DesignInput
-  if (revision && revision !== design.revision) {
-    const [old] = await useDb().select().from(tables.designRevisions).where(and(eq(tables.designRevisions.designId, id), eq(tables.designRevisions.revision, revision)))
-    if (!old) throw createError({ statusCode: 404, message: `Design ${id} has no revision ${revision}.` })
-    input = old.input as DesignInput
-  }
+  const input = revision && revision !== design.revision ? (await loadRevision(id, revision)).input : design.input as DesignInput
   return previewDesign(input)
 })
