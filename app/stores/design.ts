@@ -49,7 +49,10 @@ export const useDesignStore = defineStore('design', () => {
   const saving = ref(false)
   const saveError = ref('')
   const conflict = ref<{ currentRevision: number } | null>(null)
-  const dirty = ref(false)
+  // Unsaved = differs from what was last loaded or saved (a reload after saving is not an edit).
+  const baseline = ref('')
+  const snapshot = () => JSON.stringify({ n: name.value, d: description.value, i: input.value })
+  const dirty = computed(() => snapshot() !== baseline.value)
   let sequence = 0
 
   const result = computed<DesignResult | null>(() => preview.value?.result ?? null)
@@ -64,7 +67,7 @@ export const useDesignStore = defineStore('design', () => {
     fieldErrors.value = {}
     saveError.value = ''
     conflict.value = null
-    dirty.value = false
+    baseline.value = snapshot()
   }
 
   function issuesToFields(issues: FieldIssue[] | undefined) {
@@ -106,7 +109,7 @@ export const useDesignStore = defineStore('design', () => {
         : await $fetch<{ id: number, revision: number }>('/api/designs', { method: 'POST', body })
       id.value = saved.id
       revision.value = saved.revision
-      dirty.value = false
+      baseline.value = snapshot()
       return saved.id
     }
     catch (err) {
