@@ -9,3 +9,9 @@ export function formatSi(value: number | null | undefined, unit: string, digits 
   const scaled = value / factor
   return `${Number(scaled.toPrecision(digits))} ${prefix}${unit}`.trim()
 }
+
+/** A money amount with two decimals and its currency: 1234.5 → "1,234.50 EUR". */
+export function formatMoney(value: number | null | undefined, currency = 'EUR'): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—'
+  return `${value.toLocaleString('en', { minimumFractionDigits: 2, maximumFractionDigits: 2 })} ${currency}`
+}
