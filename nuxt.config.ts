@@ -1,4 +1,6 @@
 // Nuxt configuration: one app, its server routes and the shared engine.
+import { fileURLToPath } from 'node:url'
+
 export default defineNuxtConfig({
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils'],
   // components are named by their file name, whatever feature folder holds them
@@ -23,7 +25,11 @@ export default defineNuxtConfig({
     mailFrom: 'Stratavolt <no-reply@stratavolt.local>',
     appUrl: 'http://127.0.0.1:3000',
     purchasingEmail: 'purchasing@example.com',
-    seedDemo: true,
+    // demo accounts, designs and catalogue: only `npm start` in demo mode sets NUXT_SEED_DEMO=true
+    seedDemo: false,
+    // session cookie `Secure` flag: '' follows the deployment (on when appUrl is https or the request
+    // came over TLS), 'true' / 'false' force it (NUXT_COOKIE_SECURE)
+    cookieSecure: '',
     uploadDir: '',
     s3Bucket: '',
     s3Endpoint: '',
@@ -34,11 +40,21 @@ export default defineNuxtConfig({
   },
   compatibilityDate: '2026-11-01',
   nitro: {
+    // `npm test` builds into .output-test (scripts/lib.mjs ensureBuild) so it never replaces the
+    // build a running `npm start` serves
+    output: { dir: process.env.STRATAVOLT_OUTPUT_DIR || '.output' },
     serverAssets: [
       { baseName: 'migrations', dir: '../drizzle' },
       // pdfmake's full Roboto TTFs for server-made PDFs (the web UI uses @fontsource/roboto)
       { baseName: 'fonts', dir: '../node_modules/pdfmake/fonts/Roboto' },
     ],
+  },
+  hooks: {
+    // Our database error mapping (server/error.ts) runs first, then Nuxt's own error handler renders.
+    'nitro:config'(config) {
+      const nuxtHandler = config.errorHandler
+      config.errorHandler = [fileURLToPath(new URL('./server/error.ts', import.meta.url)), ...(Array.isArray(nuxtHandler) ? nuxtHandler : nuxtHandler ? [nuxtHandler] : [])]
+    },
   },
   typescript: { strict: true },
   telemetry: false,

@@ -112,8 +112,15 @@ export function ensurePostgres(databases, { fast = false } = {}) {
     const logFile = join(dataDir, 'postgresql.log')
     if (!existsSync(logFile)) writeFileSync(logFile, '')
     if (isRoot) execFileSync('chown', ['postgres:postgres', logFile])
-    const r = asOwner('pg_ctl', ['-D', pgData, '-l', logFile, '-w', '-t', '60', 'start'])
-    if (r.status !== 0) throw new Error(`PostgreSQL did not start: ${r.stderr}\nsee ${logFile}`)
+    // -p on the command line: STRATAVOLT_PG_PORT wins over the port written at initdb time.
+    const r = asOwner('pg_ctl', ['-D', pgData, '-l', logFile, '-o', `-p ${pgPort}`, '-w', '-t', '60', 'start'])
+    if (r.status !== 0) {
+      const tail = readFileSync(logFile, 'utf8').split('\n').slice(-15).join('\n')
+      if (/could not bind|Address already in use/i.test(tail)) {
+        throw new Error(`port ${pgPort} (PostgreSQL) is already taken by another program: choose another with STRATAVOLT_PG_PORT=<port>`)
+      }
+      throw new Error(`PostgreSQL did not start: ${r.stderr}\nsee ${logFile}`)
+    }
   }
   const psql = (sql) => {
     const r = asOwner('psql', ['-h', pgSocket, '-p', String(pgPort), '-U', 'postgres', '-d', 'postgres', '-tAc', sql])
@@ -152,17 +159,42 @@ function sourceFingerprint() {
   return hash.digest('hex')
 }
 
-/** Builds the app unless the last build was made from the same sources. */
-export function ensureBuild() {
-  const stamp = join(dataDir, 'build-fingerprint')
+/**
+ * Builds the app unless the last build in that output folder was made from the same sources.
+ * `npm start` builds into `.output`, `npm test` into `.output-test`, so a test run never replaces
+ * the build a running `npm start` serves (Nuxt's work folder `.nuxt` is shared; the running
+ * server does not read it).
+ * Returns the path of the built server entry.
+ */
+export function ensureBuild({ output = '.output' } = {}) {
+  const stamp = join(dataDir, output === '.output' ? 'build-fingerprint' : `build-fingerprint${output}`)
+  const entry = join(root, output, 'server', 'index.mjs')
   const fp = sourceFingerprint()
-  if (existsSync(join(root, '.output', 'server', 'index.mjs')) && existsSync(stamp) && readFileSync(stamp, 'utf8') === fp) {
-    log('build is up to date')
-    return
+  if (existsSync(entry) && existsSync(stamp) && readFileSync(stamp, 'utf8') === fp) {
+    log(`build in ${output} is up to date`)
+    return entry
   }
-  log('building the app (nuxt build)…')
-  run('npx', ['nuxt', 'build'], { cwd: root, env: { ...process.env, NODE_ENV: 'production' } })
+  log(`building the app into ${output} (nuxt build)…`)
+  mkdirSync(dataDir, { recursive: true })
+  run('npx', ['nuxt', 'build'], { cwd: root, env: { ...process.env, NODE_ENV: 'production', STRATAVOLT_OUTPUT_DIR: output } })
+  if (!existsSync(entry)) throw new Error(`nuxt build finished but ${entry} is missing`)
   writeFileSync(stamp, fp)
+  return entry
+}
+
+/**
+ * Fails with a message naming the port and the variable that moves it when another program
+ * already listens there (a second checkout, another server).
+ */
+export async function ensurePortFree(port, variable, what) {
+  const net = await import('node:net')
+  const free = await new Promise((res) => {
+    const srv = net.createServer()
+    srv.once('error', () => res(false))
+    srv.once('listening', () => srv.close(() => res(true)))
+    srv.listen(port, '127.0.0.1')
+  })
+  if (!free) throw new Error(`port ${port} (${what}) is already taken by another program: stop it, or choose another port with ${variable}=<port>`)
 }
 
 /** Starts a detached background process and records its pid. */
@@ -178,6 +210,14 @@ export function startDetached(name, cmd, args, env) {
   child.unref()
   writeFileSync(pidFile, String(child.pid))
   return child.pid
+}
+
+/** Whether the background process `name` that we started is still running. */
+export function detachedRunning(name) {
+  const pidFile = join(dataDir, `${name}.pid`)
+  if (!existsSync(pidFile)) return false
+  try { process.kill(Number(readFileSync(pidFile, 'utf8')), 0); return true }
+  catch { return false }
 }
 
 export function stopDetached(name) {

@@ -5,7 +5,7 @@ import { spawn } from 'node:child_process'
 import { existsSync, readFileSync, rmSync } from 'node:fs'
 import { join } from 'node:path'
 import {
-  dataDir, ensureBuild, ensureDebianPackages, ensureNodeModules, ensurePostgres, log, readSecrets, root,
+  dataDir, ensureBuild, ensureDebianPackages, ensureNodeModules, ensurePortFree, ensurePostgres, log, readSecrets, root,
   startDetached, stopDetached, waitForHttp, waitForPort,
 } from './lib.mjs'
 
@@ -37,10 +37,13 @@ try {
   rmSync(mailbox, { recursive: true, force: true })
   stopDetached('test-smtp')
   stopDetached('test-server')
+  await ensurePortFree(smtpPort, 'STRATAVOLT_TEST_SMTP_PORT', 'the test mail server')
+  await ensurePortFree(port, 'STRATAVOLT_TEST_PORT', 'the test server')
   startDetached('test-smtp', process.execPath, [join(root, 'scripts', 'fake-smtp.mjs')], { SMTP_PORT: String(smtpPort), MAILBOX_DIR: mailbox })
   await waitForPort(smtpPort)
-  ensureBuild()
-  startDetached('test-server', process.execPath, [join(root, '.output', 'server', 'index.mjs')], {
+  // its own output folder: a test build never replaces the one a running `npm start` serves
+  const entry = ensureBuild({ output: '.output-test' })
+  startDetached('test-server', process.execPath, [entry], {
     NODE_ENV: 'production',
     HOST: '127.0.0.1',
     PORT: String(port),
@@ -50,6 +53,8 @@ try {
     NUXT_SMTP_HOST: '127.0.0.1',
     NUXT_SMTP_PORT: String(smtpPort),
     NUXT_MAILBOX_DIR: mailbox,
+    // the tests sign in with the demo accounts
+    NUXT_SEED_DEMO: 'true',
   })
   await waitForHttp(`http://127.0.0.1:${port}/api/health`, 120000)
   log('running the tests…')

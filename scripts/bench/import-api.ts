@@ -14,7 +14,7 @@ export interface ImportFigure { name: string, p50Ms: number, p99Ms: number, runs
 const PORT = 3300
 
 async function signIn(base: string, email: string, password: string) {
-  const r = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password }) })
+  const r = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', 'origin': base }, body: JSON.stringify({ email, password }) })
   if (r.status !== 200) throw new Error(`sign-in answered ${r.status}`)
   return r.headers.getSetCookie().map(c => c.split(';')[0]).join('; ')
 }
@@ -25,7 +25,7 @@ export async function runImportApiBench(): Promise<ImportFigure[]> {
   const server = spawn(process.execPath, [join(root, '.output', 'server', 'index.mjs')], {
     cwd: root,
     stdio: ['ignore', openSync(join(root, '.data', 'bench-server.log'), 'w'), openSync(join(root, '.data', 'bench-server.log'), 'a')],
-    env: { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: String(PORT), NUXT_DATABASE_URL: url, NUXT_SESSION_PASSWORD: readSecrets().sessionPassword, NUXT_SMTP_PORT: '1', NUXT_UPLOAD_DIR: join(root, '.data', 'bench-uploads') },
+    env: { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: String(PORT), NUXT_DATABASE_URL: url, NUXT_SESSION_PASSWORD: readSecrets().sessionPassword, NUXT_SMTP_PORT: '1', NUXT_UPLOAD_DIR: join(root, '.data', 'bench-uploads'), NUXT_SEED_DEMO: 'true' },
   })
   const base = `http://127.0.0.1:${PORT}`
   try {
@@ -36,12 +36,12 @@ export async function runImportApiBench(): Promise<ImportFigure[]> {
     const form = new FormData()
     form.append('file', new Blob([workbook]), 'bench-20000.xlsx')
     const t0 = performance.now()
-    const up = await fetch(`${base}/api/catalog/imports`, { method: 'POST', headers: { cookie }, body: form })
+    const up = await fetch(`${base}/api/catalog/imports`, { method: 'POST', headers: { cookie, origin: base }, body: form })
     const t1 = performance.now()
     if (up.status !== 201) throw new Error(`upload answered ${up.status}: ${(await up.text()).slice(0, 300)}`)
     const described = await up.json() as { import: { id: number }, mapping: unknown, decimalSeparator: string, preview: { validParts: number } }
     const commit = await fetch(`${base}/api/catalog/imports/${described.import.id}/commit`, {
-      method: 'POST', headers: { cookie, 'content-type': 'application/json' }, body: JSON.stringify({ mapping: described.mapping, decimalSeparator: described.decimalSeparator }),
+      method: 'POST', headers: { cookie, 'origin': base, 'content-type': 'application/json' }, body: JSON.stringify({ mapping: described.mapping, decimalSeparator: described.decimalSeparator }),
     })
     const t2 = performance.now()
     if (commit.status !== 200) throw new Error(`commit answered ${commit.status}: ${(await commit.text()).slice(0, 300)}`)

@@ -193,3 +193,11 @@ export const bomPurchaseLines = pgTable('bom_purchase_lines', {
   updatedBy: integer('updated_by').references(() => users.id, { onDelete: 'set null' }),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [uniqueIndex('bom_purchase_lines_key').on(t.bomId, t.lineKey)])
+
+// Fixed-window counters for sign-in / reset throttling, shared by every app instance.
+// One row per key (e.g. "signin:<e-mail>|<client>"); a hit is one atomic upsert.
+export const throttleCounters = pgTable('throttle_counters', {
+  key: text('key').primaryKey(),
+  hits: integer('hits').notNull(),
+  resetAt: timestamp('reset_at', { withTimezone: true }).notNull(),
+}, t => [index('throttle_counters_reset_idx').on(t.resetAt)])

@@ -41,7 +41,18 @@ function stripImportFields(part: CatalogPart): CatalogPart {
 export interface CommitSummary { catalogVersionId: number, number: number, added: number, updated: number, unchanged: number }
 
 /** Writes the parts as a new catalogue version (inside the caller's transaction). */
+/**
+ * Serialises catalogue changes across requests and instances: a transaction-level advisory lock,
+ * held until commit. Catalogue version numbers (max + 1) and part edits (read, change, write a new
+ * version) are then never computed from a state another commit is changing. Take it before any row
+ * lock on parts (always the same order: no deadlock). Re-entrant within one transaction.
+ */
+export async function lockCatalog(tx: Tx) {
+  await tx.execute(sql`select pg_advisory_xact_lock(hashtext('stratavolt:catalog'))`)
+}
+
 export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userId: number | null, importId?: number, note: string, approve: boolean }): Promise<CommitSummary> {
+  await lockCatalog(tx)
   const [{ next }] = await tx.select({ next: sql<number>`coalesce(max(${tables.catalogVersions.number}), 0) + 1` }).from(tables.catalogVersions) as [{ next: number }]
   const [version] = await tx.insert(tables.catalogVersions).values({ number: next, importId: meta.importId ?? null, note: meta.note, createdBy: meta.userId }).returning()
   const existing = await tx.select({ id: tables.parts.id, manufacturer: tables.parts.manufacturer, partNumber: tables.parts.partNumber, currentVersionId: tables.parts.currentVersionId, data: tables.partVersions.data })

@@ -1,6 +1,7 @@
 // Designs and their revisions: every save is a new revision; saves carry the revision they started from.
 import { and, desc, eq } from 'drizzle-orm'
 import { z } from 'zod'
+import { PG_INT_MAX } from '#shared/schemas/bounds'
 import { evaluateDesign, evaluateStress, legLayout } from '#shared/engine'
 import type { DesignInput } from '#shared/engine/types'
 import type { DesignPreview } from '#shared/types/design'
@@ -36,7 +37,7 @@ export async function loadRevision(designId: number, revision: number) {
 }
 
 /** ?revision=N of the design routes. */
-export const revisionQuery = z.object({ revision: z.coerce.number().int().positive().optional() })
+export const revisionQuery = z.object({ revision: z.coerce.number().int().positive().max(PG_INT_MAX).optional() })
 
 export async function createDesign(tx: Tx, fields: { name: string, description: string, input: DesignInput, ownerId: number }) {
   const [design] = await tx.insert(tables.designs).values({ ...fields, ...summarise(fields.input), revision: 1 }).returning()

@@ -18,6 +18,34 @@ export function newSecretToken(bytes = 32) {
   return randomBytes(bytes).toString('base64url')
 }
 
+/** The client's address as the socket sees it (forwarded headers are not trusted: they are free to forge). */
+export function clientAddress(event: H3Event) {
+  return getRequestIP(event) ?? 'unknown'
+}
+
+let dummyHash: Promise<string> | undefined
+/** A real password hash of nothing anyone knows: checked when an account is unknown, so both take as long. */
+export function dummyPasswordHash() {
+  dummyHash ??= hashPassword(newSecretToken(24))
+  return dummyHash
+}
+
+/**
+ * Session cookie options. `Secure` follows the deployment: on when NUXT_APP_URL is https or the
+ * request came over TLS (also behind a proxy that says so in X-Forwarded-Proto; that can only make
+ * the cookie stricter); NUXT_COOKIE_SECURE=true / false forces it (plain-http intranet: false).
+ */
+export function sessionCookie(event: H3Event) {
+  const config = useRuntimeConfig(event)
+  const setting = String(config.cookieSecure ?? '').trim().toLowerCase()
+  const secure = setting === 'true' || setting === '1'
+    ? true
+    : setting === 'false' || setting === '0'
+      ? false
+      : String(config.appUrl).startsWith('https:') || getRequestProtocol(event, { xForwardedProto: true }) === 'https'
+  return { cookie: { ...config.session?.cookie, secure } }
+}
+
 async function userFromBearer(event: H3Event, token: string): Promise<CurrentUser | null> {
   const db = useDb()
   const [row] = await db.select({ tokenId: tables.apiTokens.id, user: tables.users })
@@ -46,7 +74,7 @@ export async function currentUser(event: H3Event): Promise<CurrentUser | null> {
         user = { id: row.id, email: row.email, name: row.name, role: row.role }
       }
       else {
-        await clearUserSession(event)
+        await clearUserSession(event, sessionCookie(event))
       }
     }
   }

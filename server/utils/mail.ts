@@ -43,3 +43,8 @@ export async function sendMail(mail: OutgoingMail): Promise<boolean> {
 export function appUrl(path: string) {
   return new URL(path, useRuntimeConfig().appUrl).toString()
 }
+
+/** Resolves when the SMTP server answers a handshake (health check). */
+export async function verifyMailTransport() {
+  await useTransport().verify()
+}

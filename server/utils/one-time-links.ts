@@ -3,11 +3,18 @@ import { and, eq, gt, isNull } from 'drizzle-orm'
 const LIFETIME_MS = { invite: 7 * 24 * 3600 * 1000, reset: 60 * 60 * 1000 } as const
 export type LinkPurpose = keyof typeof LIFETIME_MS
 
-/** Creates a one-time link (invitation or password reset); only its hash is stored. */
+/**
+ * Creates a one-time link (invitation or password reset); only its hash is stored. Every older
+ * unused link of that account (either purpose) stops working: only the newest mail counts.
+ */
 export async function issueOneTimeLink(userId: number, purpose: LinkPurpose) {
   const token = newSecretToken()
   const expiresAt = new Date(Date.now() + LIFETIME_MS[purpose])
-  await useDb().insert(tables.oneTimeTokens).values({ userId, purpose, tokenHash: sha256(token), expiresAt })
+  await useDb().transaction(async (tx) => {
+    await tx.update(tables.oneTimeTokens).set({ usedAt: new Date() })
+      .where(and(eq(tables.oneTimeTokens.userId, userId), isNull(tables.oneTimeTokens.usedAt)))
+    await tx.insert(tables.oneTimeTokens).values({ userId, purpose, tokenHash: sha256(token), expiresAt })
+  })
   return { url: appUrl(`/set-password?token=${encodeURIComponent(token)}`), expiresAt }
 }
 

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { roles } from '../roles'
+import { dbIdValue } from './bounds'
 
 export const email = z.string().trim().toLowerCase().max(254).email('Enter a valid e-mail address')
 export const newPassword = z.string().min(10, 'Use at least 10 characters').max(200, 'Use at most 200 characters')
@@ -31,4 +32,4 @@ export const apiTokenCreateSchema = z.object({
   name: z.string().trim().min(1, 'Name the token (e.g. "CI script")').max(80),
 })
 
-export const idParam = z.object({ id: z.coerce.number().int().positive('Not a valid id') })
+export const idParam = z.object({ id: dbIdValue })

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { dbInt } from './bounds'
 import { CATALOG_COLUMNS, LIFECYCLES, PART_KINDS } from '../../catalog/columns'
 
 const columnKeys = CATALOG_COLUMNS.map(c => c.key) as [string, ...string[]]
@@ -6,7 +7,7 @@ const columnKeys = CATALOG_COLUMNS.map(c => c.key) as [string, ...string[]]
 export const decimalSeparatorSchema = z.enum(['.', ','], { message: 'Choose \'.\' or \',\'' })
 
 export const importMappingSchema = z.object({
-  mapping: z.record(z.enum(columnKeys, { message: 'Not a catalogue column' }), z.number().int().min(0).nullable()),
+  mapping: z.record(z.enum(columnKeys, { message: 'Not a catalogue column' }), z.number().int().min(0).max(16383, 'A sheet has at most 16 384 columns').nullable()),
   decimalSeparator: decimalSeparatorSchema.default('.'),
 })
 
@@ -19,13 +20,13 @@ export const partsQuerySchema = z.object({
   minCurrent: z.coerce.number().min(0).optional(),
   sort: z.enum(['partNumber', 'manufacturer', 'kind', 'voltageRating', 'currentRating', 'unitPrice', 'stock', 'leadTimeDays', 'lifecycle']).default('partNumber'),
   dir: z.enum(['asc', 'desc']).default('asc'),
-  page: z.coerce.number().int().min(1).default(1),
+  page: z.coerce.number().int().min(1).max(1_000_000).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(50),
 })
 
 export const partPatchSchema = z.object({
   approved: z.boolean().optional(),
   lifecycle: z.enum(LIFECYCLES).optional(),
-  stock: z.number().int().min(0).optional(),
+  stock: dbInt().min(0).optional(),
   leadTimeDays: z.number().int().min(0).max(3650).optional(),
 }).refine(v => Object.values(v).some(x => x !== undefined), { message: 'Give at least one field to change' })

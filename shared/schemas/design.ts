@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { designInputSchema } from './stress'
+import { dbInt } from './bounds'
 
 export const designStatus = z.enum(['active', 'archived'])
 
@@ -11,7 +12,7 @@ export const designCreateSchema = z.object({
 
 /** A save: `revision` is the revision the editor started from (optimistic locking). */
 export const designSaveSchema = designCreateSchema.extend({
-  revision: z.number().int().positive(),
+  revision: dbInt().positive().max(2_147_483_646, 'Not a valid revision'),
 })
 
 export const designPatchSchema = z.object({ status: designStatus })

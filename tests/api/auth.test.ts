@@ -66,7 +66,10 @@ describe('invitations, roles and disabling', () => {
     expect((await member.json('GET', '/api/admin/users')).status).toBe(200)
     expect((await admin.json('PATCH', `/api/admin/users/${body.id}`, { disabled: true })).status).toBe(200)
     expect((await member.json('GET', '/api/auth/me')).status).toBe(401)
-    expect((await client().json('POST', '/api/auth/login', { email, password: 'member-password-1' })).status).toBe(401)
+    // the right password: told the account is disabled (a wrong one gets the usual 401)
+    const disabled = await client().json('POST', '/api/auth/login', { email, password: 'member-password-1' })
+    expect(disabled.status).toBe(403)
+    expect(disabled.body.message).toContain('disabled')
     const bad = await admin.json('PATCH', `/api/admin/users/${body.id}`, { role: 'wizard' })
     expect(bad.status).toBe(422)
     expect(bad.body.data.issues[0].path).toBe('role')
@@ -99,7 +102,7 @@ describe('hardening', () => {
   })
 
   it('sets a same-site, http-only session cookie', async () => {
-    const r = await fetch(`${baseUrl}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'viewer@example.com', password: (await import('../support/api')).demoPassword }) })
+    const r = await fetch(`${baseUrl}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', 'origin': baseUrl }, body: JSON.stringify({ email: 'viewer@example.com', password: (await import('../support/api')).demoPassword }) })
     const cookie = r.headers.getSetCookie().join(';').toLowerCase()
     expect(cookie).toContain('samesite=lax')
     expect(cookie).toContain('httponly')

@@ -37,7 +37,10 @@ export function client(cookie = ''): Client {
   const c: Client = {
     cookie,
     async request(method, path, body, headers = {}) {
-      const h: Record<string, string> = { ...headers }
+      // State changes must name our origin, as a browser does (CSRF rule); a test may override or
+      // drop it by passing `origin` ('' = no Origin header).
+      const h: Record<string, string> = { origin: baseUrl, ...headers }
+      if (h.origin === '') delete h.origin
       if (c.cookie) h.cookie = c.cookie
       let payload: BodyInit | undefined
       if (body !== undefined) {

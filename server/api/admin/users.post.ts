@@ -2,7 +2,8 @@ import { eq, sql } from 'drizzle-orm'
 import { inviteSchema } from '#shared/schemas/auth'
 import { roleLabels } from '#shared/roles'
 
-// Invites a colleague: creates the account without a password and mails a one-time link.
+// Invites a colleague: creates the account without a password and mails a one-time link
+// (a newer invitation or reset link revokes the older ones).
 export default defineEventHandler(async (event) => {
   const admin = await requireRole(event, 'users:manage')
   const body = await readValid(event, inviteSchema)
@@ -11,7 +12,13 @@ export default defineEventHandler(async (event) => {
   if (existing?.passwordHash) {
     throw createError({ statusCode: 409, message: `email: ${body.email} already has an account.`, data: { issues: [{ path: 'email', message: 'Already has an account' }] } })
   }
-  const user = existing ?? (await db.insert(tables.users).values({ email: body.email, name: body.name, role: body.role }).returning())[0]!
+  let user = existing ?? (await db.insert(tables.users).values({ email: body.email, name: body.name, role: body.role }).returning())[0]!
+  // Inviting someone who has not accepted yet: the new invitation's role and name replace the old
+  // ones (audited), and the new link replaces the old link, so what the mail says is what signs in.
+  if (existing && (existing.role !== body.role || existing.name !== body.name)) {
+    user = (await db.update(tables.users).set({ role: body.role, name: body.name }).where(eq(tables.users.id, existing.id)).returning())[0]!
+    if (existing.role !== body.role) await audit(event, 'role changed', { subject: user.email, details: { from: existing.role, to: body.role, reason: 'invited again' } })
+  }
   const link = await issueOneTimeLink(user.id, 'invite')
   const sent = await sendMail({
     to: user.email,

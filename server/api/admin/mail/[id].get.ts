@@ -1,7 +1,7 @@
 import { z } from 'zod'
 
 const params = z.object({ id: z.string().regex(/^[\w-]+$/, 'Not a message id') })
-const query = z.object({ attachment: z.coerce.number().int().min(0).optional() })
+const query = z.object({ attachment: z.coerce.number().int().min(0).max(1000).optional() })
 
 // One received message; with ?attachment=N the N-th attachment as a download.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,4 @@
-import { commitParts, bumpCatalogGeneration } from '~~/server/services/catalog'
+import { commitParts, bumpCatalogGeneration, lockCatalog } from '~~/server/services/catalog'
 import { eq } from 'drizzle-orm'
 import { idParam } from '#shared/schemas/auth'
 import { partPatchSchema } from '#shared/schemas/catalog'
@@ -10,16 +10,21 @@ export default defineEventHandler(async (event) => {
   const { id } = paramsValid(event, idParam)
   const { approved, ...edits } = await readValid(event, partPatchSchema)
   const db = useDb()
-  const [row] = await db.select({ part: tables.parts, data: tables.partVersions.data }).from(tables.parts)
-    .innerJoin(tables.partVersions, eq(tables.partVersions.id, tables.parts.currentVersionId)).where(eq(tables.parts.id, id))
-  if (!row) throw createError({ statusCode: 404, message: 'No such part.' })
-  await db.transaction(async (tx) => {
+  // Read and write under the catalogue lock: two edits at once apply one after the other, the
+  // second on top of the first (no lost change, no duplicate version number).
+  const row = await db.transaction(async (tx) => {
+    await lockCatalog(tx)
+    const [row] = await tx.select({ part: tables.parts, data: tables.partVersions.data }).from(tables.parts)
+      .innerJoin(tables.partVersions, eq(tables.partVersions.id, tables.parts.currentVersionId)).where(eq(tables.parts.id, id))
+      .for('update', { of: tables.parts })
+    if (!row) throw createError({ statusCode: 404, message: 'No such part.' })
     if (approved !== undefined) await tx.update(tables.parts).set({ approved }).where(eq(tables.parts.id, id))
     const changes = Object.fromEntries(Object.entries(edits).filter(([, v]) => v !== undefined))
     if (Object.keys(changes).length) {
       const part = { ...(row.data as CatalogPart), ...changes }
       await commitParts(tx, [part], { userId: user.id, note: `Edited ${part.partNumber} (${Object.keys(changes).join(', ')})`, approve: row.part.approved })
     }
+    return row
   })
   bumpCatalogGeneration()
   await audit(event, 'part edited', { subject: `${row.part.manufacturer} ${row.part.partNumber}`, details: { approved, ...edits } })

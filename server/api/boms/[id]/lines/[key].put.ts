@@ -1,9 +1,10 @@
 import { z } from 'zod'
 import { purchaseLineSchema } from '#shared/schemas/bom'
+import { dbIdValue } from '#shared/schemas/bounds'
 import type { BomSnapshot } from '#shared/bom/types'
 import { loadBom } from '~~/server/services/bom'
 
-const params = z.object({ id: z.coerce.number().int().positive(), key: z.string().min(1).max(300) })
+const params = z.object({ id: dbIdValue, key: z.string().min(1).max(300) })
 
 // Purchasing records supplier, quoted price and order reference on one line; engineering content stays as released.
 export default defineEventHandler(async (event) => {
