@@ -27,6 +27,8 @@ export default defineNuxtConfig({
     purchasingEmail: 'purchasing@example.com',
     // demo accounts, designs and catalogue: only `npm start` in demo mode sets NUXT_SEED_DEMO=true
     seedDemo: false,
+    // without the demo: the first administrator's e-mail (NUXT_ADMIN_EMAIL), invited when no account exists
+    adminEmail: '',
     // session cookie `Secure` flag: '' follows the deployment (on when appUrl is https or the request
     // came over TLS), 'true' / 'false' force it (NUXT_COOKIE_SECURE)
     cookieSecure: '',

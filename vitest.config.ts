@@ -11,8 +11,10 @@ const alias = {
 export default defineConfig({
   test: {
     projects: [
-      { resolve: { alias }, test: { name: 'unit', environment: 'node', include: ['tests/unit/**/*.test.ts'] } },
-      { resolve: { alias }, test: { name: 'api', environment: 'node', include: ['tests/api/**/*.test.ts'], testTimeout: 30000, hookTimeout: 60000 } },
+      // Timeouts sized for a loaded shared 2-core machine (a PDF render there can take several
+      // seconds); they catch hangs, not slowness: speed is measured by `npm run bench`.
+      { resolve: { alias }, test: { name: 'unit', environment: 'node', include: ['tests/unit/**/*.test.ts'], testTimeout: 60000, hookTimeout: 60000 } },
+      { resolve: { alias }, test: { name: 'api', environment: 'node', include: ['tests/api/**/*.test.ts'], testTimeout: 90000, hookTimeout: 120000 } },
       { resolve: { alias }, test: { name: 'browser', environment: 'node', include: ['tests/browser/**/*.test.ts'], testTimeout: 90000, hookTimeout: 90000, fileParallelism: false } },
     ],
   },

@@ -201,3 +201,11 @@ export const throttleCounters = pgTable('throttle_counters', {
   hits: integer('hits').notNull(),
   resetAt: timestamp('reset_at', { withTimezone: true }).notNull(),
 }, t => [index('throttle_counters_reset_idx').on(t.resetAt)])
+
+// Sessions ended by sign-out before their cookie expires (session id from the sealed cookie).
+// The guard refuses them on every instance; rows older than the session lifetime are dropped.
+export const revokedSessions = pgTable('revoked_sessions', {
+  sessionId: text('session_id').primaryKey(),
+  userId: integer('user_id').references(() => users.id, { onDelete: 'cascade' }),
+  revokedAt: timestamp('revoked_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [index('revoked_sessions_at_idx').on(t.revokedAt)])

@@ -8,23 +8,22 @@ export const BODY_LIMIT_BYTES = 1024 * 1024
 /** Bytes: a catalogue file upload (multipart). */
 export const UPLOAD_LIMIT_BYTES = 12 * 1024 * 1024
 
-/** Bytes of a refused body still read and dropped, so the client can read the 413 (then the socket closes). */
-const DRAIN_BYTES = 8 * 1024 * 1024
-const DRAIN_MS = 5000
+/** ms: how long a refused connection stays open after the 413 is out, so the client reads it. */
+const LINGER_MS = 1000
+/** ms: the longest a refused connection stays open at all. */
+const MAX_LINGER_MS = 5000
 
 function tooLarge(event: H3Event, limit: number): never {
-  // Closing at once with unread data makes the kernel reset the connection and the client
-  // loses the answer; dropping a bounded amount first lets it see the 413. Nothing is kept.
+  // Stop reading: TCP back-pressure holds the sender, nothing more is received or kept. The socket
+  // is closed shortly after the 413 has been written; closing at once (or `Connection: close`,
+  // which makes Node close on finish) resets the connection while the client is still sending, and
+  // the client loses the answer.
   const req = event.node.req
+  req.pause()
   const socket = req.socket
-  let dropped = 0
-  const close = () => { clearTimeout(timer); socket?.destroy() }
-  const timer = setTimeout(close, DRAIN_MS)
-  timer.unref()
-  req.on('data', (chunk: Buffer) => { dropped += chunk.length; if (dropped > DRAIN_BYTES) close() })
-  req.on('end', () => clearTimeout(timer))
-  req.resume()
-  setResponseHeader(event, 'Connection', 'close')
+  const close = () => socket?.destroy()
+  setTimeout(close, MAX_LINGER_MS).unref()
+  event.node.res.once('finish', () => setTimeout(close, LINGER_MS).unref())
   throw createError({ statusCode: 413, message: `The request body is larger than ${Math.round(limit / 1024 / 1024)} MB.` })
 }
 
@@ -42,6 +41,7 @@ function readCapped(event: H3Event, limit: number): Promise<Buffer | 'too-large'
       received += chunk.length
       if (received > limit) {
         cleanup()
+        req.pause()
         chunks.length = 0
         resolve('too-large')
         return

@@ -18,11 +18,27 @@ async function migrationsFolder() {
   return dir
 }
 
+/**
+ * Without the demo: the first administrator (NUXT_ADMIN_EMAIL) is invited when no account exists
+ * yet; the one-time link is printed to the server log (and mailed when mail works).
+ */
+async function createFirstAdmin(email: string) {
+  const db = useDb()
+  const [any] = await db.select({ id: tables.users.id }).from(tables.users).limit(1)
+  if (any) return
+  const [admin] = await db.insert(tables.users).values({ email: email.trim().toLowerCase(), name: 'Administrator', role: 'admin' }).returning()
+  const link = await issueOneTimeLink(admin!.id, 'invite')
+  console.log(`[stratavolt] first administrator ${admin!.email} created: set the password at ${link.url} (valid until ${link.expiresAt.toISOString()})`)
+  void sendMail({ to: admin!.email, subject: 'You are invited to Stratavolt', text: `Set your administrator password here (the link works once, for 7 days):\n\n${link.url}\n` })
+}
+
 export default defineNitroPlugin((nitro) => {
   const ready = (async () => {
     const started = Date.now()
     await migrate(useDb(), { migrationsFolder: await migrationsFolder() })
-    if (useRuntimeConfig().seedDemo) await seedDemo(useDb())
+    const config = useRuntimeConfig()
+    if (config.seedDemo) await seedDemo(useDb())
+    else if (config.adminEmail) await createFirstAdmin(String(config.adminEmail))
     console.log(`[stratavolt] database ready in ${Date.now() - started} ms`)
   })().catch((err) => {
     console.error('[stratavolt] database set-up failed:', err)

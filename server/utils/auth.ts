@@ -1,6 +1,6 @@
 import { createHash, randomBytes } from 'node:crypto'
 import type { H3Event } from 'h3'
-import { and, eq, isNull } from 'drizzle-orm'
+import { and, eq, isNull, lt, sql } from 'drizzle-orm'
 import { can, isRole, type Permission, type Role } from '#shared/roles'
 
 export interface CurrentUser {
@@ -69,8 +69,13 @@ export async function currentUser(event: H3Event): Promise<CurrentUser | null> {
   else {
     const session = await getUserSession(event)
     if (session.user) {
-      const [row] = await useDb().select().from(tables.users).where(eq(tables.users.id, session.user.id))
-      if (row && !row.disabled && row.sessionVersion === session.sessionVersion && isRole(row.role)) {
+      // one query: the user row, and whether this very session was ended by a sign-out
+      const [found] = await useDb().select({
+        row: tables.users,
+        revoked: sql<boolean>`exists (select 1 from ${tables.revokedSessions} where ${tables.revokedSessions.sessionId} = ${session.id ?? ''})`,
+      }).from(tables.users).where(eq(tables.users.id, session.user.id))
+      const row = found?.row
+      if (row && !found.revoked && !row.disabled && row.sessionVersion === session.sessionVersion && isRole(row.role)) {
         user = { id: row.id, email: row.email, name: row.name, role: row.role }
       }
       else {
@@ -80,6 +85,31 @@ export async function currentUser(event: H3Event): Promise<CurrentUser | null> {
   }
   event.context.user = user
   return user
+}
+
+/**
+ * Signs in `user` on this request with a fresh session id: a cookie the client still sends (for
+ * instance one ended by sign-out) is not carried over into the new session.
+ */
+export async function startSession(event: H3Event, user: CurrentUser, sessionVersion: number) {
+  delete event.node.req.headers.cookie
+  delete event.node.req.headers['x-nuxt-session-session']
+  await replaceUserSession(event, { user, sessionVersion }, sessionCookie(event))
+}
+
+/** Ends this session everywhere (sign-out): its id is refused from now on, by every instance. */
+export async function endSession(event: H3Event, userId: number | null) {
+  const session = await getUserSession(event)
+  const db = useDb()
+  if (session.id) {
+    await db.insert(tables.revokedSessions).values({ sessionId: session.id, userId }).onConflictDoNothing()
+    // now and then, forget revocations older than any cookie can live
+    if (Math.random() < 0.05) {
+      const maxAgeS = Number(useRuntimeConfig(event).session?.maxAge ?? 12 * 3600)
+      await db.delete(tables.revokedSessions).where(lt(tables.revokedSessions.revokedAt, new Date(Date.now() - maxAgeS * 1000 - 3600_000)))
+    }
+  }
+  await clearUserSession(event, sessionCookie(event))
 }
 
 /** The one role guard: 401 when nobody is signed in, 403 when the role may not do this. */

@@ -4,6 +4,12 @@ import { CATALOG_COLUMNS, LIFECYCLES, PART_KINDS } from '../../catalog/columns'
 
 const columnKeys = CATALOG_COLUMNS.map(c => c.key) as [string, ...string[]]
 
+/** The catalogue column's own upper bound (catalog/columns.ts is the one definition), within the database integer. */
+function columnMax(key: string): number {
+  const max = CATALOG_COLUMNS.find(c => c.key === key)?.max
+  return Math.min(typeof max === 'number' ? max : Number.MAX_SAFE_INTEGER, 2_147_483_647)
+}
+
 export const decimalSeparatorSchema = z.enum(['.', ','], { message: 'Choose \'.\' or \',\'' })
 
 export const importMappingSchema = z.object({
@@ -27,6 +33,6 @@ export const partsQuerySchema = z.object({
 export const partPatchSchema = z.object({
   approved: z.boolean().optional(),
   lifecycle: z.enum(LIFECYCLES).optional(),
-  stock: dbInt().min(0).optional(),
-  leadTimeDays: z.number().int().min(0).max(3650).optional(),
+  stock: dbInt().min(0).max(columnMax('stock')).optional(),
+  leadTimeDays: dbInt().min(0).max(columnMax('leadTimeDays')).optional(),
 }).refine(v => Object.values(v).some(x => x !== undefined), { message: 'Give at least one field to change' })

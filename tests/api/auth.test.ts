@@ -14,7 +14,10 @@ describe('sign-in', () => {
   it('starts a session that /api/auth/me reads, and sign-out ends it', async () => {
     const c = await signInAs('viewer')
     expect((await c.json('GET', '/api/auth/me')).body.user.role).toBe('viewer')
+    const copy = client(c.cookie)
     await c.request('POST', '/api/auth/logout')
+    // ended server-side: a copy of the cookie is refused too
+    expect((await copy.json('GET', '/api/auth/me')).status).toBe(401)
     expect((await c.json('GET', '/api/auth/me')).status).toBe(401)
   })
 

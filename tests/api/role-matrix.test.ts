@@ -36,8 +36,9 @@ describe('role matrix', () => {
       for (const role of roles) {
         const allowed = route.access === 'public' || route.access === 'signed-in' || can(role, route.access)
         it(`${role}: ${allowed ? 'allowed' : '403'}`, async () => {
-          // A copy of the session, so that sign-out on one route does not end it for the next.
-          const r = await client(clients[role].cookie).request(route.method, route.path, route.body)
+          // Sign-out ends the session server-side (every copy of the cookie): it gets a session of its own.
+          const c = route.file === 'auth/logout.post.ts' ? await signInAs(role) : client(clients[role].cookie)
+          const r = await c.request(route.method, route.path, route.body)
           if (allowed) expect([401, 403]).not.toContain(r.status)
           else expect(r.status).toBe(403)
           expect(r.status).toBeLessThan(500)

@@ -1,13 +1,9 @@
-import { eq, sql } from 'drizzle-orm'
-
-// Ends the session server-side: the session version goes up, so this cookie (and any copy of it)
-// stops working at once, on every instance, not only in this browser.
+// Ends this session server-side: its id goes on the revoked list the guard checks, so the cookie
+// (and any copy of it) stops working at once, on every instance. The account's other sessions
+// (another browser) stay; a password reset or disabling ends all of them (session version).
 export default defineEventHandler(async (event) => {
   const user = await currentUser(event)
-  if (user) {
-    await useDb().update(tables.users).set({ sessionVersion: sql`${tables.users.sessionVersion} + 1` }).where(eq(tables.users.id, user.id))
-    await audit(event, 'signed out', { actorId: user.id, actorEmail: user.email })
-  }
-  await clearUserSession(event, sessionCookie(event))
+  await endSession(event, user?.id ?? null)
+  if (user) await audit(event, 'signed out', { actorId: user.id, actorEmail: user.email })
   return { ok: true }
 })

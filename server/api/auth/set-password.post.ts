@@ -14,6 +14,6 @@ export default defineEventHandler(async (event) => {
   await clearSignInFailures(user.email.toLowerCase())
   await audit(event, result.purpose === 'invite' ? 'invitation accepted' : 'password reset', { actorId: user.id, actorEmail: user.email })
   const sessionUser = { id: user.id, email: user.email, name: user.name, role: user.role }
-  await replaceUserSession(event, { user: sessionUser, sessionVersion: user.sessionVersion }, sessionCookie(event))
+  await startSession(event, sessionUser, user.sessionVersion)
   return { user: sessionUser }
 })
