@@ -51,6 +51,8 @@ export default defineNuxtConfig({
       { baseName: 'fonts', dir: '../node_modules/pdfmake/fonts/Roboto' },
     ],
   },
+  typescript: { strict: true },
+  telemetry: false,
   hooks: {
     // Our database error mapping (server/error.ts) runs first, then Nuxt's own error handler renders.
     'nitro:config'(config) {
@@ -58,6 +60,4 @@ export default defineNuxtConfig({
       config.errorHandler = [fileURLToPath(new URL('./server/error.ts', import.meta.url)), ...(Array.isArray(nuxtHandler) ? nuxtHandler : nuxtHandler ? [nuxtHandler] : [])]
     },
   },
-  typescript: { strict: true },
-  telemetry: false,
 })

@@ -33,7 +33,9 @@ try {
   ensureDebianPackages(['chromium'], () => existsSync('/usr/bin/chromium'))
   ensureDebianPackages(['poppler-utils'], () => existsSync('/usr/bin/pdftotext'))
   ensureDebianPackages(['libreoffice-calc'], () => existsSync('/usr/bin/soffice') || existsSync('/usr/bin/libreoffice'))
-  const url = ensurePostgres([{ name: 'stratavolt_test', recreate: true }], { fast: true })('stratavolt_test')
+  // stratavolt_test_empty: for the test of a production start (no demo) on an empty database
+  const dbUrl = ensurePostgres([{ name: 'stratavolt_test', recreate: true }, { name: 'stratavolt_test_empty', recreate: true }], { fast: true })
+  const url = dbUrl('stratavolt_test')
   rmSync(mailbox, { recursive: true, force: true })
   stopDetached('test-smtp')
   stopDetached('test-server')
@@ -64,7 +66,7 @@ try {
     const child = spawn('npx', args, {
       cwd: root,
       stdio: 'inherit',
-      env: { ...process.env, STRATAVOLT_TEST_URL: `http://127.0.0.1:${port}`, STRATAVOLT_TEST_DATABASE_URL: url, STRATAVOLT_TEST_MAILBOX: mailbox },
+      env: { ...process.env, STRATAVOLT_TEST_URL: `http://127.0.0.1:${port}`, STRATAVOLT_TEST_DATABASE_URL: url, STRATAVOLT_TEST_EMPTY_DATABASE_URL: dbUrl('stratavolt_test_empty'), STRATAVOLT_TEST_MAILBOX: mailbox },
     })
     child.on('exit', c => res(c ?? 1))
   })

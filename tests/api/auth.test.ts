@@ -109,6 +109,9 @@ describe('hardening', () => {
     const cookie = r.headers.getSetCookie().join(';').toLowerCase()
     expect(cookie).toContain('samesite=lax')
     expect(cookie).toContain('httponly')
+    // the test server runs on plain http (NUXT_APP_URL http://…): no Secure flag, or browsers
+    // off 127.0.0.1 would drop the cookie (see tests/api/security-deploy.test.ts for https)
+    expect(r.headers.getSetCookie().some(c => c.split(';').slice(1).some(a => a.trim().toLowerCase() === 'secure'))).toBe(false)
   })
 
   it('refuses a state-changing request from another origin', async () => {

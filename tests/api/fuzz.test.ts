@@ -84,8 +84,9 @@ function mutate(valid: Record<string, unknown>): fc.Arbitrary<unknown> {
     const copy = structuredClone(valid)
     let o = copy as Record<string, unknown>
     for (const k of path.slice(0, -1)) o = (Array.isArray(o) ? o[Number(k)] : o[k]) as Record<string, unknown>
-    if (v === undefined) delete o[path.at(-1)!]
-    else o[path.at(-1)!] = v
+    const last = path.at(-1)!
+    if (v === undefined) Reflect.deleteProperty(o, last)
+    else o[last] = v
     return copy
   })
 }

@@ -36,6 +36,7 @@ class Relay {
       }).listen(this.port, '127.0.0.1', () => resolve())
     })
   }
+
   cut() {
     return new Promise<void>((resolve) => {
       for (const s of this.sockets) s.destroy()

@@ -99,6 +99,7 @@ describe('request limits', () => {
     expect(r.status).toBeLessThan(500)
     const body = await r.json()
     if (r.status === 201) {
+      // eslint-disable-next-line no-control-regex
       expect(body.import.filename).not.toMatch(/[\u0000-\u001F]/)
       expect(body.import.filename.startsWith('evilname')).toBe(true)
     }
