@@ -59,9 +59,26 @@ export async function readValid<T extends z.ZodType>(event: H3Event, schema: T, 
   if (body === undefined || body === null || typeof body !== 'object' || Array.isArray(body)) {
     throw createError({ statusCode: 400, message: 'The request body must be a JSON object.' })
   }
+  const nul = pathWithNul(body)
+  if (nul !== null) {
+    throw createError({ statusCode: 422, message: `Invalid field: ${nul || 'value'} — contains a NUL character`, data: { issues: [{ path: nul, message: 'Contains a NUL character' }] } })
+  }
   const r = schema.safeParse(body)
   if (!r.success) fail(invalidStatus, 'Invalid field', r.error)
   return r.data
+}
+
+/** Path of the first string (or key) holding a NUL character, which PostgreSQL text cannot store; null when none. */
+function pathWithNul(value: unknown, path: string[] = []): string | null {
+  if (typeof value === 'string') return value.includes('\u0000') ? path.join('.') : null
+  if (value && typeof value === 'object') {
+    for (const [k, v] of Object.entries(value)) {
+      if (k.includes('\u0000')) return [...path, k].join('.')
+      const found = pathWithNul(v, [...path, k])
+      if (found !== null) return found
+    }
+  }
+  return null
 }
 
 export function queryValid<T extends z.ZodType>(event: H3Event, schema: T): z.infer<T> {

@@ -81,6 +81,13 @@ describe('request limits', () => {
     expect(page.status).toBe(400)
   })
 
+  it('refuses a NUL character in a JSON string with 422 naming the field (PostgreSQL text cannot hold it)', async () => {
+    const c = await signInAs('design-engineer')
+    const r = await c.json('POST', '/api/tokens', { name: 'a\u0000b' })
+    expect(r.status).toBe(422)
+    expect(r.body.data.issues[0].path).toBe('name')
+  })
+
   it('answers a lone % or a broken escape in the path with 400', async () => {
     const admin = await signInAs('admin')
     for (const path of ['/api/designs/%', '/api/designs/%zz', '/api/boms/1/lines/%E0%A4%A', '/api/catalog/parts/%']) {
