@@ -136,6 +136,16 @@ export const parts = pgTable('parts', {
   createdAt: createdAt(),
 }, t => [uniqueIndex('parts_key').on(sql`lower(${t.manufacturer})`, sql`lower(${t.partNumber})`)])
 
+/**
+ * One row (id 1): `generation` goes up with every committed change to parts or part_versions (statement
+ * triggers in the migration "catalog-state"). Each instance checks it per request, so a catalogue commit on
+ * one instance is seen by matching on every other at once; the part cache in memory is only a copy.
+ */
+export const catalogState = pgTable('catalog_state', {
+  id: integer('id').primaryKey(),
+  generation: integer('generation').notNull().default(0),
+})
+
 export const partVersions = pgTable('part_versions', {
   id: serial('id').primaryKey(),
   partId: integer('part_id').notNull().references(() => parts.id, { onDelete: 'cascade' }),

@@ -1,4 +1,4 @@
-import { commitParts, bumpCatalogGeneration } from '~~/server/services/catalog'
+import { commitParts } from '~~/server/services/catalog'
 import { eq } from 'drizzle-orm'
 import { idParam } from '#shared/schemas/auth'
 import { partPatchSchema } from '#shared/schemas/catalog'
@@ -21,7 +21,6 @@ export default defineEventHandler(async (event) => {
       await commitParts(tx, [part], { userId: user.id, note: `Edited ${part.partNumber} (${Object.keys(changes).join(', ')})`, approve: row.part.approved })
     }
   })
-  bumpCatalogGeneration()
   await audit(event, 'part edited', { subject: `${row.part.manufacturer} ${row.part.partNumber}`, details: { approved, ...edits } })
   return { ok: true }
 })
