@@ -1,4 +1,7 @@
 // Nuxt configuration: one app, its server routes and the shared engine.
+import { join } from 'node:path'
+import { bundleWorker } from './server/workers/bundle'
+
 export default defineNuxtConfig({
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils'],
   // components are named by their file name, whatever feature folder holds them
@@ -34,6 +37,8 @@ export default defineNuxtConfig({
   },
   compatibilityDate: '2026-11-01',
   nitro: {
+    // gzip and brotli copies of the static files, made once at build time
+    compressPublicAssets: true,
     serverAssets: [
       { baseName: 'migrations', dir: '../drizzle' },
       // pdfmake's full Roboto TTFs for server-made PDFs (the web UI uses @fontsource/roboto)
@@ -42,4 +47,11 @@ export default defineNuxtConfig({
   },
   typescript: { strict: true },
   telemetry: false,
+  hooks: {
+    // The worker threads' file (server/workers/engine.ts) is bundled beside the server: workers/engine.mjs.
+    'nitro:init'(nitro) {
+      if (nitro.options.dev) nitro.hooks.hook('dev:reload', () => bundleWorker(join(nitro.options.buildDir, 'dev')))
+      else nitro.hooks.hook('compiled', () => bundleWorker(nitro.options.output.serverDir))
+    },
+  },
 })

@@ -203,3 +203,24 @@ export const bomPurchaseLines = pgTable('bom_purchase_lines', {
   updatedBy: integer('updated_by').references(() => users.id, { onDelete: 'set null' }),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [uniqueIndex('bom_purchase_lines_key').on(t.bomId, t.lineKey)])
+
+/**
+ * Long work done on the job queue (pg-boss, any instance may work any job): what the UI polls for
+ * progress and the result. `id` is ours; the pg-boss job carries it.
+ */
+export const backgroundJobs = pgTable('background_jobs', {
+  id: text('id').primaryKey(),
+  kind: text('kind').notNull(), // 'catalog-commit' | 'trade-study' | 'bom-pdf'
+  status: text('status').notNull().default('queued'), // 'queued' | 'running' | 'done' | 'failed'
+  /** 0…1 */
+  progress: doublePrecision('progress').notNull().default(0),
+  message: text('message').notNull().default(''),
+  attempts: integer('attempts').notNull().default(0),
+  input: jsonb('input'),
+  result: jsonb('result'),
+  /** `{ statusCode, message, data }` as the route would have answered */
+  error: jsonb('error'),
+  createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: createdAt(),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+})

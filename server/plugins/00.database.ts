@@ -24,6 +24,8 @@ export default defineNitroPlugin((nitro) => {
     await migrate(useDb(), { migrationsFolder: await migrationsFolder() })
     if (useRuntimeConfig().seedDemo) await seedDemo(useDb())
     console.log(`[stratavolt] database ready in ${Date.now() - started} ms`)
+    // the queue workers (server/plugins/queue.ts) start now
+    void nitro.hooks.callHook('stratavolt:database-ready' as 'close')
   })().catch((err) => {
     console.error('[stratavolt] database set-up failed:', err)
     process.exit(1)

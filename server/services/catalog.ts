@@ -41,7 +41,7 @@ function stripImportFields(part: CatalogPart): CatalogPart {
 export interface CommitSummary { catalogVersionId: number, number: number, added: number, updated: number, unchanged: number }
 
 /** Writes the parts as a new catalogue version (inside the caller's transaction). */
-export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userId: number | null, importId?: number, note: string, approve: boolean }): Promise<CommitSummary> {
+export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userId: number | null, importId?: number, note: string, approve: boolean, onProgress?: (done: number, total: number) => Promise<void> }): Promise<CommitSummary> {
   const [{ next }] = await tx.select({ next: sql<number>`coalesce(max(${tables.catalogVersions.number}), 0) + 1` }).from(tables.catalogVersions) as [{ next: number }]
   const [version] = await tx.insert(tables.catalogVersions).values({ number: next, importId: meta.importId ?? null, note: meta.note, createdBy: meta.userId }).returning()
   const existing = await tx.select({ id: tables.parts.id, manufacturer: tables.parts.manufacturer, partNumber: tables.parts.partNumber, currentVersionId: tables.parts.currentVersionId, data: tables.partVersions.data })
@@ -59,6 +59,8 @@ export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userI
     else if (canonical(found.data) !== canonical(part)) changed.push({ partId: found.id, part })
     else unchanged++
   }
+  // work units for progress: one per new part inserted, one per part version written (new and changed parts)
+  const units = fresh.length * 2 + changed.length
   // Each batch travels as one JSON parameter expanded by PostgreSQL: far fewer bind parameters than a
   // multi-row VALUES list, which is what makes a 20 000-part import fast.
   for (let i = 0; i < fresh.length; i += BATCH) {
@@ -71,6 +73,7 @@ export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userI
     const ids = new Map(inserted.map(r => [key(r.manufacturer, r.part_number), r.id]))
     for (const p of slice) changed.push({ partId: ids.get(key(p.manufacturer, p.partNumber))!, part: p })
     added += slice.length
+    await meta.onProgress?.(added, units)
   }
   const updated = changed.length - added
   for (let i = 0; i < changed.length; i += BATCH) {
@@ -91,6 +94,7 @@ export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userI
         returning id, part_id
       )
       update parts set current_version_id = inserted.id from inserted where parts.id = inserted.part_id`)
+    await meta.onProgress?.(fresh.length + i + slice.length, units)
   }
   await tx.update(tables.catalogVersions).set({ partsAdded: added, partsUpdated: updated }).where(eq(tables.catalogVersions.id, version!.id))
   return { catalogVersionId: version!.id, number: next, added, updated, unchanged }
