@@ -1,6 +1,10 @@
 // The fleet-ready server against the built output: work on the job queue (progress, owner-only, results),
 // compact provenance of the public API, and compressed answers.
+import { existsSync } from 'node:fs'
 import { request } from 'node:http'
+import { join } from 'node:path'
+import { fileURLToPath, pathToFileURL } from 'node:url'
+import { Piscina } from 'piscina'
 import { describe, expect, it } from 'vitest'
 import { CATALOG_COLUMNS } from '../../catalog/columns'
 import { baseUrl, signInAs, unique, type Client } from '../support/api'
@@ -116,6 +120,29 @@ describe('work on the job queue', () => {
     expect(Buffer.from(await file.arrayBuffer()).subarray(0, 5).toString()).toBe('%PDF-')
     const viewer = await signInAs('viewer')
     expect((await viewer.request('GET', queued.body.file)).status).toBe(404)
+  })
+})
+
+describe('the worker threads of the built server', () => {
+  it('load from the build folder (its own packages only) and evaluate, match-protocol and read a spreadsheet', async () => {
+    const root = fileURLToPath(new URL('../..', import.meta.url))
+    const file = [join(root, '.output-test', 'server', 'workers', 'engine.mjs'), join(root, '.output', 'server', 'workers', 'engine.mjs')].find(f => existsSync(f))
+    expect(file, 'workers/engine.mjs beside the built server').toBeTruthy()
+    const pool = new Piscina({ filename: pathToFileURL(file!).href, maxThreads: 1 })
+    try {
+      const stress = await pool.run({ kind: 'stress', input: npc, options: {}, provenance: 'compact' })
+      expect(stress.ok).toBe(true)
+      expect(stress.value.devices.length).toBeGreaterThan(4)
+      expect(await pool.run({ kind: 'match', generation: 1, args: {} })).toEqual({ ok: false, needs: 'parts' })
+      // exceljs and the reader resolve inside the build's node_modules
+      const csv = new TextEncoder().encode(capacitorCsv('W-1'))
+      const table = await pool.run({ kind: 'read-catalog', file: csv, filename: 'w.csv', limits: { maxBytes: 1e6, maxRows: 10 } })
+      expect(table.ok, JSON.stringify(table).slice(0, 300)).toBe(true)
+      expect(table.value.rows.length).toBe(1)
+    }
+    finally {
+      await pool.destroy()
+    }
   })
 })
 

@@ -13,7 +13,10 @@ import { client, demoEmail, linkIn, signIn, unique, waitForMail, type Client } f
 const testPort = Number(process.env.STRATAVOLT_TEST_PORT ?? 3100)
 const ports = [testPort + 1, testPort + 2]
 const [A, B] = ports.map(p => `http://127.0.0.1:${p}`) as [string, string]
-const entry = process.env.STRATAVOLT_TEST_SERVER_ENTRY ?? join(root, '.output', 'server', 'index.mjs')
+// the build the test server runs (npm test builds into .output-test when it has its own folder)
+const entry = process.env.STRATAVOLT_TEST_SERVER_ENTRY
+  ?? [join(root, '.output-test', 'server', 'index.mjs'), join(root, '.output', 'server', 'index.mjs')].find(p => existsSync(p))
+  ?? join(root, '.output', 'server', 'index.mjs')
 const children: ChildProcess[] = []
 
 async function waitForHealth(base: string, child: ChildProcess, timeoutMs = 60000) {
@@ -50,6 +53,8 @@ beforeAll(async () => {
         NUXT_SMTP_PORT: process.env.STRATAVOLT_TEST_SMTP_PORT ?? '2626',
         // the test server has seeded the database already; these instances only serve
         NUXT_SEED_DEMO: 'false',
+        // B works no queued jobs: what is committed through B is worked by another instance
+        ...(port === ports[1] ? { STRATAVOLT_QUEUE_WORKERS: '0' } : {}),
       },
     }))
   }
@@ -74,7 +79,7 @@ function capacitorCsv(partNumber: string) {
 }
 
 describe('two instances on one database', () => {
-  it('an import uploaded and previewed on one instance commits on the other', async () => {
+  it('an import uploaded and previewed on one instance commits on the other (a queue worker of another instance does the commit)', async () => {
     const onA = await signIn(demoEmail['component-engineer'], undefined, A)
     const onB = on(onA, B)
     const partNumber = unique('TWO-CAP')
