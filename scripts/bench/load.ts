@@ -4,10 +4,11 @@
 // `npm run bench -- load --duration 5` shortens the runs (default 20 s each).
 import { spawn } from 'node:child_process'
 import { Agent, request } from 'node:http'
-import { openSync } from 'node:fs'
+import { openSync, readFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { performance } from 'node:perf_hooks'
 import autocannon from 'autocannon'
+import { evaluateStress } from '../../shared/engine'
 // @ts-expect-error -- plain ESM helper shared with the start and test scripts
 import { demoAccounts, ensureBuild, ensurePostgres, readSecrets, root, waitForHttp } from '../lib.mjs'
 
@@ -28,6 +29,17 @@ function durationSeconds() {
   return Number.isFinite(n) && n > 0 ? n : 20
 }
 
+/** CPU time (ms, all threads) the server process has used so far, from /proc (Linux clock ticks of 10 ms). */
+function serverCpuMs(pid: number | undefined) {
+  try {
+    const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ')
+    return (Number(fields[11]) + Number(fields[12])) * 10
+  }
+  catch {
+    return Number.NaN
+  }
+}
+
 const quantile = (sorted: number[], q: number) => sorted.length ? sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))]! : NaN
 
 const agent = new Agent({ keepAlive: true, maxSockets: 1 })
@@ -44,31 +56,40 @@ function timed(method: string, path: string, headers: Record<string, string>, bo
   })
 }
 
-/** Probes GET /api/health every 50 ms on its own connection until stopped; returns the latencies. */
+/**
+ * Probes GET /api/health every 50 ms from a process of its own (so that the load generator's busy event
+ * loop does not count as server latency) until stopped; returns the sorted latencies in ms.
+ */
+const PROBE = `
+const { Agent, request } = require('node:http')
+const agent = new Agent({ keepAlive: true, maxSockets: 1 })
+const samples = []; let failures = 0; let running = true
+process.stdin.on('data', () => { running = false })
+;(async () => {
+  while (running) {
+    const t0 = performance.now()
+    const status = await new Promise((resolve) => {
+      const req = request(process.argv[1] + '/api/health', { agent }, (res) => { res.resume(); res.on('end', () => resolve(res.statusCode)) })
+      req.on('error', () => resolve(0))
+      req.end()
+    })
+    if (status === 200) samples.push(performance.now() - t0); else failures++
+    await new Promise(r => setTimeout(r, 50))
+  }
+  process.stdout.write(JSON.stringify({ samples, failures }))
+  process.exit(0)
+})()`
+
 function probeHealth() {
-  const samples: number[] = []
-  const failures: number[] = []
-  const probeAgent = new Agent({ keepAlive: true, maxSockets: 1 })
-  let running = true
-  const loop = (async () => {
-    while (running) {
-      const t0 = performance.now()
-      const status = await new Promise<number>((resolve) => {
-        const req = request(`${base}/api/health`, { agent: probeAgent }, (res) => { res.resume(); res.on('end', () => resolve(res.statusCode ?? 0)) })
-        req.on('error', () => resolve(0))
-        req.end()
-      })
-      const ms = performance.now() - t0
-      if (status === 200) samples.push(ms)
-      else failures.push(status)
-      await new Promise(r => setTimeout(r, 50))
-    }
-  })()
+  const child = spawn(process.execPath, ['-e', PROBE, base], { stdio: ['pipe', 'pipe', 'inherit'] })
+  let out = ''
+  child.stdout.on('data', (c: Buffer) => { out += c })
+  const done = new Promise<void>(resolve => child.on('exit', () => resolve()))
   return async () => {
-    running = false
-    await loop
-    probeAgent.destroy()
-    return { sorted: samples.sort((a, b) => a - b), failures: failures.length }
+    child.stdin.write('stop\n')
+    await done
+    const { samples, failures } = JSON.parse(out || '{"samples":[],"failures":0}') as { samples: number[], failures: number }
+    return { sorted: samples.sort((a, b) => a - b), failures }
   }
 }
 
@@ -102,14 +123,26 @@ export async function runLoadBench(): Promise<LoadFigure[]> {
     // One signed-in round trip at a time (after a warm-up): per-request overhead plus the engine.
     for (let i = 0; i < 200; i++) await timed('POST', '/api/v1/stress', stressHeaders, STRESS_BODY)
     const single: number[] = []
+    const cpu0 = serverCpuMs(server.pid)
     for (let i = 0; i < 1000; i++) {
       const r = await timed('POST', '/api/v1/stress', stressHeaders, STRESS_BODY)
       if (r.status !== 200) throw new Error(`stress answered ${r.status}`)
       single.push(r.ms)
     }
     single.sort((a, b) => a - b)
-    figures.push({ name: 'POST /api/v1/stress, one at a time (signed in, no waveform)', p50Ms: quantile(single, 0.5), p99Ms: quantile(single, 0.99), runs: single.length, target: 'p50 < 2 ms' })
+    const cpuPerRequest = (serverCpuMs(server.pid) - cpu0) / single.length
+    figures.push({ name: `POST /api/v1/stress, one at a time (signed in, no waveform; server CPU ${cpuPerRequest.toFixed(2)} ms/request)`, p50Ms: quantile(single, 0.5), p99Ms: quantile(single, 0.99), runs: single.length, target: 'p50 < 2 ms' })
     agent.destroy()
+    // the engine's own share at this moment (same input, this process, no HTTP), to tell overhead from engine work
+    const engine: number[] = []
+    const input = JSON.parse(STRESS_BODY)
+    for (let i = 0; i < 500; i++) {
+      const t0 = performance.now()
+      evaluateStress(input)
+      engine.push(performance.now() - t0)
+    }
+    engine.sort((a, b) => a - b)
+    figures.push({ name: '  the same evaluation alone (engine, no HTTP), now', p50Ms: quantile(engine, 0.5), p99Ms: quantile(engine, 0.99), runs: engine.length })
 
     const routes = [
       { label: 'POST /api/v1/stress', method: 'POST' as const, path: '/api/v1/stress', headers: stressHeaders, body: STRESS_BODY },
@@ -119,12 +152,14 @@ export async function runLoadBench(): Promise<LoadFigure[]> {
       for (const connections of [1, 10, 50]) {
         process.stderr.write(`  ${route.label} at ${connections} connection(s) for ${seconds} s…\n`)
         const stop = probeHealth()
+        const cpuBefore = serverCpuMs(server.pid)
         const r = await autocannon({ url: `${base}${route.path}`, method: route.method, headers: route.headers, body: route.body, connections, duration: seconds })
+        const cpuPerRequest = (serverCpuMs(server.pid) - cpuBefore) / Math.max(1, r.requests.total)
         const health = await stop()
         const errors = r.errors + r.timeouts + r.non2xx
         const stress50 = route.path === '/api/v1/stress' && connections === 50
         figures.push({
-          name: `${route.label}, ${connections} conn: ${Math.round(r.requests.average)} req/s, ${errors} errors`,
+          name: `${route.label}, ${connections} conn: ${Math.round(r.requests.average)} req/s, ${errors} errors, server CPU ${cpuPerRequest.toFixed(2)} ms/req`,
           p50Ms: r.latency.p50, p99Ms: r.latency.p99, runs: r.requests.total,
           target: stress50 ? 'p99 < 150 ms, 0 errors' : '0 errors',
         })

@@ -25,7 +25,8 @@ export default defineEventHandler(async (event) => {
     setResponseStatus(event, 202)
     return { jobId, status: 'queued' }
   }
-  const job = await waitForJob(jobId, 5 * 60_000)
+  // under the HTTP server's 5 min request timeout; a longer commit answers 202 with the job to follow
+  const job = await waitForJob(jobId, 4 * 60_000)
   if (!job) {
     setResponseStatus(event, 202)
     return { jobId, status: 'running' }
