@@ -21,7 +21,7 @@ export function useBoss(): Promise<PgBoss> {
     const b = new PgBoss({ connectionString: url, max: 4, application_name: 'stratavolt-queue' })
     b.on('error', err => console.error('[queue]', err))
     await b.start()
-    for (const q of QUEUES) await b.createQueue(q, RETRY)
+    for (const q of QUEUES) await b.createQueue(q, { name: q, ...RETRY })
     return b
   })().catch((err) => {
     boss = null
