@@ -1,5 +1,7 @@
 // Nuxt configuration: one app, its server routes and the shared engine.
+import { join } from 'node:path'
 import { fileURLToPath } from 'node:url'
+import { bundleWorker } from './server/workers/bundle'
 
 export default defineNuxtConfig({
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils'],
@@ -45,6 +47,8 @@ export default defineNuxtConfig({
     // `npm test` builds into .output-test (scripts/lib.mjs ensureBuild) so it never replaces the
     // build a running `npm start` serves
     output: { dir: process.env.STRATAVOLT_OUTPUT_DIR || '.output' },
+    // gzip and brotli copies of the static files, made once at build time
+    compressPublicAssets: true,
     serverAssets: [
       { baseName: 'migrations', dir: '../drizzle' },
       // pdfmake's full Roboto TTFs for server-made PDFs (the web UI uses @fontsource/roboto)
@@ -58,6 +62,11 @@ export default defineNuxtConfig({
     'nitro:config'(config) {
       const nuxtHandler = config.errorHandler
       config.errorHandler = [fileURLToPath(new URL('./server/error.ts', import.meta.url)), ...(Array.isArray(nuxtHandler) ? nuxtHandler : nuxtHandler ? [nuxtHandler] : [])]
+    },
+    // The worker threads' file (server/workers/engine.ts) is bundled beside the server: workers/engine.mjs.
+    'nitro:init'(nitro) {
+      if (nitro.options.dev) nitro.hooks.hook('dev:reload', () => bundleWorker(join(nitro.options.buildDir, 'dev')))
+      else nitro.hooks.hook('compiled', () => bundleWorker(nitro.options.output.serverDir))
     },
   },
 })

@@ -3,6 +3,7 @@ import { runBomBench } from './bom'
 import { runCatalogBench } from './catalog'
 import { runEngineBench } from './engine'
 import { runImportApiBench } from './import-api'
+import { runLoadBench } from './load'
 
 interface Figure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
 
@@ -11,8 +12,9 @@ const suites: [string, () => Promise<Figure[]>][] = [
   ['catalogue', runCatalogBench],
   ['bom', runBomBench],
   ['import-api', runImportApiBench],
+  ['load', runLoadBench],
 ]
-const only = process.argv[2]
+const only = process.argv[2]?.startsWith('--') ? undefined : process.argv[2]
 
 const rows: (Figure & { suite: string })[] = []
 for (const [suite, run] of suites) {

@@ -136,6 +136,16 @@ export const parts = pgTable('parts', {
   createdAt: createdAt(),
 }, t => [uniqueIndex('parts_key').on(sql`lower(${t.manufacturer})`, sql`lower(${t.partNumber})`)])
 
+/**
+ * One row (id 1): `generation` goes up with every committed change to parts or part_versions (statement
+ * triggers in the migration "catalog-state"). Each instance checks it per request, so a catalogue commit on
+ * one instance is seen by matching on every other at once; the part cache in memory is only a copy.
+ */
+export const catalogState = pgTable('catalog_state', {
+  id: integer('id').primaryKey(),
+  generation: integer('generation').notNull().default(0),
+})
+
 export const partVersions = pgTable('part_versions', {
   id: serial('id').primaryKey(),
   partId: integer('part_id').notNull().references(() => parts.id, { onDelete: 'cascade' }),
@@ -209,3 +219,24 @@ export const revokedSessions = pgTable('revoked_sessions', {
   userId: integer('user_id').references(() => users.id, { onDelete: 'cascade' }),
   revokedAt: timestamp('revoked_at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [index('revoked_sessions_at_idx').on(t.revokedAt)])
+
+/**
+ * Long work done on the job queue (pg-boss, any instance may work any job): what the UI polls for
+ * progress and the result. `id` is ours; the pg-boss job carries it.
+ */
+export const backgroundJobs = pgTable('background_jobs', {
+  id: text('id').primaryKey(),
+  kind: text('kind').notNull(), // 'catalog-commit' | 'trade-study' | 'bom-pdf'
+  status: text('status').notNull().default('queued'), // 'queued' | 'running' | 'done' | 'failed'
+  /** 0…1 */
+  progress: doublePrecision('progress').notNull().default(0),
+  message: text('message').notNull().default(''),
+  attempts: integer('attempts').notNull().default(0),
+  input: jsonb('input'),
+  result: jsonb('result'),
+  /** `{ statusCode, message, data }` as the route would have answered */
+  error: jsonb('error'),
+  createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: createdAt(),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+})

@@ -40,6 +40,8 @@ export default defineNitroPlugin((nitro) => {
     if (config.seedDemo) await seedDemo(useDb())
     else if (config.adminEmail) await createFirstAdmin(String(config.adminEmail))
     console.log(`[stratavolt] database ready in ${Date.now() - started} ms`)
+    // the queue workers (server/plugins/queue.ts) start now
+    void nitro.hooks.callHook('stratavolt:database-ready' as 'close')
   })().catch((err) => {
     console.error('[stratavolt] database set-up failed:', err)
     process.exit(1)

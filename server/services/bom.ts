@@ -10,7 +10,7 @@ import type { BomSettings } from '#shared/schemas/design'
 import { formatSi } from '#shared/utils/si'
 import demo from '../db/demo-accounts.json'
 import { matchDesign, type PositionMatch } from './parts'
-import { bomToPdf } from '../exports/bom-pdf'
+import { renderBomPdf } from '../workers/pool'
 import { bomToXlsx } from '../exports/bom-xlsx'
 import { loadFonts } from '../exports/pdf'
 
@@ -157,7 +157,7 @@ function bomFileName(snapshot: BomSnapshot, format: 'xlsx' | 'pdf') {
 
 /** One export of a BOM: Excel workbook or PDF. */
 export async function bomFile(snapshot: BomSnapshot, format: 'xlsx' | 'pdf', purchase: BomPurchase = {}) {
-  const content = format === 'xlsx' ? await bomToXlsx(snapshot, purchase) : await bomToPdf(snapshot, await pdfFonts(), purchase)
+  const content = format === 'xlsx' ? await bomToXlsx(snapshot, purchase) : await renderBomPdf(snapshot, purchase)
   return { filename: bomFileName(snapshot, format), content }
 }
 

@@ -6,15 +6,24 @@ import { normaliseHeader, suggestMapping, checkMapping } from '#shared/catalog/m
 import { validateRows } from '#shared/catalog/validate'
 import type { ColumnMapping, RawTable } from '#shared/catalog/types'
 import type { DecimalSeparator } from '#shared/catalog/units'
-import { readCatalogFile } from '../catalog/read'
+import { runInPool } from '../workers/pool'
 
 export const UPLOAD_LIMITS = { maxBytes: 10 * 1024 * 1024, maxRows: 20_000 }
 
-const tableCache = new Map<number, RawTable>()
-/** Keeps the last few uploads' tables in memory, so preview and commit need not read the file again. */
-export function rememberTable(importId: number, table: RawTable) {
-  tableCache.set(importId, table)
-  while (tableCache.size > 4) tableCache.delete(tableCache.keys().next().value!)
+/** Where the table read from an upload is kept beside the file (shared upload storage, never process memory). */
+const tableKey = (storageKey: string) => `${storageKey}.table.json`
+
+/**
+ * Keeps the table read from an upload beside the file in the shared upload storage, so that preview and
+ * commit on any instance need not read the spreadsheet again (and no instance holds a pending import alone).
+ */
+export async function rememberTable(storageKey: string, table: RawTable) {
+  await useStorage('uploads').setItemRaw(tableKey(storageKey), Buffer.from(JSON.stringify(table)))
+}
+
+/** Reads the spreadsheet on a worker thread (a 20 000-row .xlsx takes seconds of CPU). */
+function readInPool(file: Buffer, filename: string) {
+  return runInPool<RawTable>({ kind: 'read-catalog', file, filename, limits: UPLOAD_LIMITS })
 }
 
 export function headerSignature(headers: string[]) {
@@ -23,7 +32,7 @@ export function headerSignature(headers: string[]) {
 
 /** Reads an upload; a file that cannot be imported answers 422 with every problem, and nothing is kept. */
 export async function readUpload(buffer: Buffer, filename: string) {
-  const table = await readCatalogFile(buffer, filename, UPLOAD_LIMITS)
+  const table = await readInPool(buffer, filename)
   if (table.errors.length) {
     const first = table.errors[0]!
     const where = first.row ? ` (row ${first.row}${first.column ? `, column ${first.column}` : ''})` : ''
@@ -39,12 +48,12 @@ export async function storeUpload(buffer: Buffer, filename: string) {
 }
 
 export async function loadImportTable(row: typeof tables.catalogImports.$inferSelect): Promise<RawTable> {
-  const cached = tableCache.get(row.id)
-  if (cached) return cached
+  const kept = await useStorage('uploads').getItemRaw(tableKey(row.storageKey))
+  if (kept) return JSON.parse(Buffer.from(kept as ArrayBuffer).toString('utf8')) as RawTable
   const raw = await useStorage('uploads').getItemRaw(row.storageKey)
   if (!raw) throw createError({ statusCode: 410, message: 'The uploaded file is no longer stored; upload it again.' })
-  const table = await readCatalogFile(Buffer.from(raw as ArrayBuffer), row.filename, UPLOAD_LIMITS)
-  rememberTable(row.id, table)
+  const table = await readInPool(Buffer.from(raw as ArrayBuffer), row.filename)
+  await rememberTable(row.storageKey, table)
   return table
 }
 

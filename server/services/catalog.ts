@@ -51,7 +51,7 @@ export async function lockCatalog(tx: Tx) {
   await tx.execute(sql`select pg_advisory_xact_lock(hashtext('stratavolt:catalog'))`)
 }
 
-export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userId: number | null, importId?: number, note: string, approve: boolean }): Promise<CommitSummary> {
+export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userId: number | null, importId?: number, note: string, approve: boolean, onProgress?: (done: number, total: number) => Promise<void> }): Promise<CommitSummary> {
   await lockCatalog(tx)
   const [{ next }] = await tx.select({ next: sql<number>`coalesce(max(${tables.catalogVersions.number}), 0) + 1` }).from(tables.catalogVersions) as [{ next: number }]
   const [version] = await tx.insert(tables.catalogVersions).values({ number: next, importId: meta.importId ?? null, note: meta.note, createdBy: meta.userId }).returning()
@@ -70,6 +70,8 @@ export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userI
     else if (canonical(found.data) !== canonical(part)) changed.push({ partId: found.id, part })
     else unchanged++
   }
+  // work units for progress: one per new part inserted, one per part version written (new and changed parts)
+  const units = fresh.length * 2 + changed.length
   // Each batch travels as one JSON parameter expanded by PostgreSQL: far fewer bind parameters than a
   // multi-row VALUES list, which is what makes a 20 000-part import fast.
   for (let i = 0; i < fresh.length; i += BATCH) {
@@ -82,6 +84,7 @@ export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userI
     const ids = new Map(inserted.map(r => [key(r.manufacturer, r.part_number), r.id]))
     for (const p of slice) changed.push({ partId: ids.get(key(p.manufacturer, p.partNumber))!, part: p })
     added += slice.length
+    await meta.onProgress?.(added, units)
   }
   const updated = changed.length - added
   for (let i = 0; i < changed.length; i += BATCH) {
@@ -102,29 +105,39 @@ export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userI
         returning id, part_id
       )
       update parts set current_version_id = inserted.id from inserted where parts.id = inserted.part_id`)
+    await meta.onProgress?.(fresh.length + i + slice.length, units)
   }
   await tx.update(tables.catalogVersions).set({ partsAdded: added, partsUpdated: updated }).where(eq(tables.catalogVersions.id, version!.id))
-  bumpCatalogGeneration()
   return { catalogVersionId: version!.id, number: next, added, updated, unchanged }
 }
 
-let generation = 0
-let cache: { generation: number, parts: (CatalogPart & { partVersionId: number, approved: boolean })[] } | null = null
+type CurrentPart = CatalogPart & { partVersionId: number, approved: boolean }
+// A copy of the current parts, tagged with the catalogue generation it was read at. The generation lives in
+// PostgreSQL (catalog_state, moved on by triggers), so this copy is never trusted without asking for it.
+let cache: { generation: number, parts: CurrentPart[] } | null = null
 
-export function bumpCatalogGeneration() {
-  generation++
+/** The catalogue generation: one primary-key read, changes with every committed part or part-version write. */
+export async function catalogGeneration(): Promise<number> {
+  const [row] = await useDb().select({ generation: tables.catalogState.generation }).from(tables.catalogState).where(eq(tables.catalogState.id, 1))
+  return row?.generation ?? 0
 }
 
-/** The current version of every part (cached until the catalogue changes). */
-export async function currentParts() {
-  if (cache && cache.generation === generation) return cache.parts
-  const g = generation
+/** The current version of every part with the generation it belongs to (read again when the generation moved on). */
+export async function currentCatalog(): Promise<{ generation: number, parts: CurrentPart[] }> {
+  // Read the generation before the parts: a commit in between leaves newer parts under an older tag, which only
+  // costs one more read on the next request — never a stale answer.
+  const generation = await catalogGeneration()
+  if (cache && cache.generation === generation) return cache
   const rows = await useDb().select({ id: tables.partVersions.id, data: tables.partVersions.data, approved: tables.parts.approved })
     .from(tables.parts).innerJoin(tables.partVersions, eq(tables.partVersions.id, tables.parts.currentVersionId))
     .where(isNotNull(tables.parts.currentVersionId))
-  const parts = rows.map(r => ({ ...(r.data as CatalogPart), partVersionId: r.id, approved: r.approved }))
-  cache = { generation: g, parts }
-  return parts
+  cache = { generation, parts: rows.map(r => ({ ...(r.data as CatalogPart), partVersionId: r.id, approved: r.approved })) }
+  return cache
+}
+
+/** The current version of every part. */
+export async function currentParts() {
+  return (await currentCatalog()).parts
 }
 
 export async function partVersionsById(ids: number[]) {

@@ -3,10 +3,11 @@
 import { eq } from 'drizzle-orm'
 import { evaluateDesign } from '#shared/engine'
 import type { DesignInput, DesignResult } from '#shared/engine/types'
-import { indexParts, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, whyNothingFits, type Candidate, type MatchPolicy, type PositionDuty } from '#shared/catalog/matching'
+import { indexParts, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, whyNothingFits, type Candidate, type MatchPolicy, type PartIndex, type PositionDuty } from '#shared/catalog/matching'
 import type { CatalogPart } from '#shared/catalog/types'
 import type { BomSettings } from '#shared/schemas/design'
-import { currentParts, partVersionsById } from './catalog'
+import { runInPool } from '../workers/pool'
+import { currentCatalog, partVersionsById } from './catalog'
 import { loadDesign } from './designs'
 
 export type Side = 'machine' | 'grid'
@@ -55,17 +56,23 @@ export interface PositionMatch {
   }
 }
 
-/** Matches every position of a design; `limit` candidates per position, best first. */
-export async function matchDesign(designId: number, limit = 40) {
-  const design = await loadDesign(designId)
-  const input = design.input as DesignInput
+/** What matching a design needs besides the catalogue (plain data: it travels to a worker thread). */
+export interface MatchArgs {
+  input: DesignInput
+  bomSettings: BomSettings
+  assignments: { side: string, position: string, partVersionId: number, seriesCount: number, parallelCount: number }[]
+  /** the part versions the assignments are pinned to */
+  pinned: [number, Part][]
+  limit: number
+}
+
+/** Matches every position against the current parts (pure: runs on a worker thread). */
+export function computeMatches(args: MatchArgs, parts: readonly (Part & { approved: boolean })[], index: PartIndex = indexParts(parts)) {
+  const { input, assignments, limit } = args
   const result = withEngine(() => evaluateDesign(input))
-  const policy = matchPolicy(input, result, design.bomSettings as BomSettings)
-  const parts = await currentParts()
-  const assignments = await useDb().select().from(tables.partAssignments).where(eq(tables.partAssignments.designId, designId))
-  const pinned = await partVersionsById(assignments.map(a => a.partVersionId))
+  const policy = matchPolicy(input, result, args.bomSettings)
+  const pinned = new Map(args.pinned)
   const currentIds = new Set(parts.map(p => p.partVersionId))
-  const index = indexParts(parts)
   const positions: PositionMatch[] = designPositions(input, result).map(({ side, duty, label }) => {
     const m = matchPosition(duty, index, policy)
     const candidates = m.candidates.slice(0, limit).map(c => ({ ...c, partVersionId: (c.part as Part).partVersionId, approved: (c.part as Part & { approved: boolean }).approved }))
@@ -78,7 +85,25 @@ export async function matchDesign(designId: number, limit = 40) {
     }
     return { side, position: duty.positionName, label, duty, candidates, nothingFits: candidates.length ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.'), assigned }
   })
-  return { design, input, result, policy, positions, summary: lossSummary(input, positions) }
+  return { result, policy, positions, summary: lossSummary(input, positions) }
+}
+
+/** Matches every position of a design; `limit` candidates per position, best first (on a worker thread). */
+export async function matchDesign(designId: number, limit = 40) {
+  const design = await loadDesign(designId)
+  const input = design.input as DesignInput
+  const catalog = await currentCatalog()
+  const assignments = await useDb().select().from(tables.partAssignments).where(eq(tables.partAssignments.designId, designId))
+  const pinned = await partVersionsById(assignments.map(a => a.partVersionId))
+  const args: MatchArgs = {
+    input,
+    bomSettings: design.bomSettings as BomSettings,
+    assignments: assignments.map(a => ({ side: a.side, position: a.position, partVersionId: a.partVersionId, seriesCount: a.seriesCount, parallelCount: a.parallelCount })),
+    pinned: [...pinned],
+    limit,
+  }
+  const computed = await runInPool<ReturnType<typeof computeMatches>>({ kind: 'match', generation: catalog.generation, args }, { parts: () => catalog.parts })
+  return { design, input, ...computed }
 }
 
 /** Losses, efficiency and cost from the assigned parts, per converter side. */

@@ -1,9 +1,10 @@
 // Trade study: one duty through several topologies and level counts, side by side.
 import { evaluateDesign, EngineInputError, topologyById, type ConverterInput, type DesignInput, type TopologyId } from '#shared/engine'
-import { indexParts, matchPosition } from '#shared/catalog/matching'
+import { matchPosition, type PartIndex } from '#shared/catalog/matching'
 import type { TradeStudyInput } from '#shared/schemas/trade-study'
 import type { TradeStudyRow } from '#shared/types/trade-study'
-import { currentParts } from './catalog'
+import { runInPool } from '../workers/pool'
+import { currentCatalog } from './catalog'
 import { designPositions, matchPolicy } from './parts'
 
 export const defaultCandidates: { topology: TopologyId, levels?: number }[] = [
@@ -40,8 +41,14 @@ export function candidateConverter(duty: TradeStudyInput, topology: TopologyId, 
   }
 }
 
+/** The duty through every candidate against the given parts (on a worker thread: runTradeStudy). */
 export async function runTradeStudy(duty: TradeStudyInput): Promise<{ rows: TradeStudyRow[] }> {
-  const parts = indexParts(await currentParts())
+  const catalog = await currentCatalog()
+  return runInPool({ kind: 'trade-study', generation: catalog.generation, duty }, { parts: () => catalog.parts })
+}
+
+/** One row per candidate topology (pure: runs on a worker thread with the thread's catalogue index). */
+export function tradeStudyRows(duty: TradeStudyInput, parts: PartIndex): { rows: TradeStudyRow[] } {
   const rows = (duty.candidates ?? defaultCandidates).map(({ topology, levels }) => {
     const converter = candidateConverter(duty, topology, levels)
     const input: DesignInput = { machineSide: converter, derating: duty.derating }

@@ -1,6 +1,6 @@
 import { createHash, randomBytes } from 'node:crypto'
 import type { H3Event } from 'h3'
-import { and, eq, isNull, lt, sql } from 'drizzle-orm'
+import { eq, lt, sql } from 'drizzle-orm'
 import { can, isRole, type Permission, type Role } from '#shared/roles'
 
 export interface CurrentUser {
@@ -47,15 +47,21 @@ export function sessionCookie(event: H3Event) {
 }
 
 async function userFromBearer(event: H3Event, token: string): Promise<CurrentUser | null> {
-  const db = useDb()
-  const [row] = await db.select({ tokenId: tables.apiTokens.id, user: tables.users })
-    .from(tables.apiTokens)
-    .innerJoin(tables.users, eq(tables.users.id, tables.apiTokens.userId))
-    .where(and(eq(tables.apiTokens.tokenHash, sha256(token)), isNull(tables.apiTokens.revokedAt)))
-  if (!row || row.user.disabled || !isRole(row.user.role)) return null
-  await db.update(tables.apiTokens).set({ lastUsedAt: new Date() }).where(eq(tables.apiTokens.id, row.tokenId))
+  // One round trip: the token's owner as the database knows them now (role changes apply at once), and
+  // last_used_at moved on at most once a minute, so a busy token does not write (and lock its row) per request.
+  const [row] = await useDb().execute<{ id: number, email: string, name: string, role: string, disabled: boolean }>(sql`
+    with hit as (
+      select t.id as token_id, t.last_used_at, u.id, u.email, u.name, u.role, u.disabled
+      from api_tokens t join users u on u.id = t.user_id
+      where t.token_hash = ${sha256(token)} and t.revoked_at is null
+    ), touched as (
+      update api_tokens set last_used_at = now() from hit
+      where api_tokens.id = hit.token_id and (hit.last_used_at is null or hit.last_used_at < now() - interval '1 minute')
+    )
+    select id, email, name, role, disabled from hit`)
+  if (!row || row.disabled || !isRole(row.role)) return null
   event.context.viaToken = true
-  return { id: row.user.id, email: row.user.email, name: row.user.name, role: row.user.role }
+  return { id: row.id, email: row.email, name: row.name, role: row.role }
 }
 
 /** The signed-in person (session cookie, or a Bearer token on /api/v1), checked against the database on every request. */

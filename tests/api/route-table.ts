@@ -20,6 +20,8 @@ export const routeTable: RouteCase[] = [
   { file: 'auth/forgot.post.ts', method: 'POST', path: '/api/auth/forgot', access: 'public', body: {} },
   { file: 'auth/set-password.post.ts', method: 'POST', path: '/api/auth/set-password', access: 'public', body: {} },
   { file: 'auth/me.get.ts', method: 'GET', path: '/api/auth/me', access: 'signed-in' },
+  { file: 'jobs/[id]/file.get.ts', method: 'GET', path: '/api/jobs/00000000-0000-4000-8000-000000000000/file', access: 'signed-in' },
+  { file: 'jobs/[id].get.ts', method: 'GET', path: '/api/jobs/00000000-0000-4000-8000-000000000000', access: 'signed-in' },
   { file: 'home.get.ts', method: 'GET', path: '/api/home', access: 'stress:evaluate' },
   { file: 'admin/users.get.ts', method: 'GET', path: '/api/admin/users', access: 'users:manage' },
   { file: 'admin/users.post.ts', method: 'POST', path: '/api/admin/users', access: 'users:manage', body: { email: 'not-an-email' } },

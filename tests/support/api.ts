@@ -33,7 +33,8 @@ export interface Client {
   json: <T = any>(method: string, path: string, body?: unknown) => Promise<{ status: number, body: T }>
 }
 
-export function client(cookie = ''): Client {
+/** A client of the test server, or of another instance at `base` (the two-instance test). */
+export function client(cookie = '', base = baseUrl): Client {
   const c: Client = {
     cookie,
     async request(method, path, body, headers = {}) {
@@ -47,7 +48,7 @@ export function client(cookie = ''): Client {
         if (typeof body === 'string' || body instanceof Uint8Array || body instanceof FormData) payload = body as BodyInit
         else { payload = JSON.stringify(body); h['content-type'] = 'application/json' }
       }
-      const r = await fetchWithRetry(baseUrl + path, { method, headers: h, body: payload, redirect: 'manual' })
+      const r = await fetchWithRetry(base + path, { method, headers: h, body: payload, redirect: 'manual' })
       const set = r.headers.getSetCookie()
       if (set.length) c.cookie = set.map(s => s.split(';')[0]).join('; ')
       return r
@@ -64,8 +65,8 @@ export function client(cookie = ''): Client {
   return c
 }
 
-export async function signIn(email: string, password = demoPassword): Promise<Client> {
-  const c = client()
+export async function signIn(email: string, password = demoPassword, base = baseUrl): Promise<Client> {
+  const c = client('', base)
   const r = await c.json('POST', '/api/auth/login', { email, password })
   if (r.status !== 200) throw new Error(`sign-in as ${email} answered ${r.status}: ${JSON.stringify(r.body)}`)
   return c

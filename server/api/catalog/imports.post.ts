@@ -14,11 +14,11 @@ export default defineEventHandler(async (event) => {
   const decimalSeparator = decimalField === ',' || decimalField === '.' ? decimalField : (table.suggestedDecimalSeparator ?? '.')
   const mapping = (await rememberedMapping(user.id, table.headers)) ?? suggestMapping(table.headers).mapping
   const storageKey = await storeUpload(file.data, filename)
+  await rememberTable(storageKey, table)
   const [row] = await useDb().insert(tables.catalogImports).values({
     filename, storageKey, sizeBytes: file.data.length, status: 'preview', sheetName: table.sheetName,
     headers: table.headers, mapping, decimalSeparator, rowCount: table.rows.length, uploadedBy: user.id,
   }).returning()
-  rememberTable(row!.id, table)
   await audit(event, 'catalogue file uploaded', { subject: filename, details: { importId: row!.id, rows: table.rows.length } })
   setResponseStatus(event, 201)
   return describeImport(row!, table, mapping, decimalSeparator)

@@ -8,6 +8,10 @@ export default defineEventHandler(() => {
   const operation = (summary: string, ref: string) => ({
     summary,
     security: [{ bearer: [] }, { session: [] }],
+    parameters: [{
+      name: 'provenance', in: 'query', required: false, schema: { type: 'string', enum: ['compact', 'full'], default: 'compact' },
+      description: '`compact`: each row has a short `provenanceId`; the texts come once in the answer\'s `provenance: { [id]: { method, source } }`. `full`: every row carries `provenance: { method, source }`.',
+    }],
     requestBody: { required: true, content: { 'application/json': { schema: { $ref: `#/components/schemas/${ref}` } } } },
     responses: { 200: { description: 'Stresses per device position and capacitor; see README' }, 400: errorResponse, 401: { description: 'No valid token or session' }, 422: errorResponse },
   })

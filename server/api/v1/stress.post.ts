@@ -1,9 +1,11 @@
-import { evaluateStress } from '#shared/engine'
+import { provenanceQuery } from '#shared/schemas/provenance'
+import { runInPool } from '~~/server/workers/pool'
 import { stressInputSchema } from '#shared/schemas/stress'
 
 // One operating point, nothing saved (PRODUCT.md "Public API v1").
 export default defineEventHandler(async (event) => {
   await requireRole(event, 'stress:evaluate')
+  const { provenance } = queryValid(event, provenanceQuery)
   const { includeWaveform, ...input } = await readValid(event, stressInputSchema)
-  return withEngine(() => evaluateStress(input, { includeWaveform: !!includeWaveform, includeSpectrum: !!includeWaveform }))
+  return runInPool({ kind: 'stress', input, options: { includeWaveform: !!includeWaveform, includeSpectrum: !!includeWaveform }, provenance })
 })

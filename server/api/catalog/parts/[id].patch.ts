@@ -1,4 +1,4 @@
-import { commitParts, bumpCatalogGeneration, lockCatalog } from '~~/server/services/catalog'
+import { commitParts, lockCatalog } from '~~/server/services/catalog'
 import { eq } from 'drizzle-orm'
 import { idParam } from '#shared/schemas/auth'
 import { partPatchSchema } from '#shared/schemas/catalog'
@@ -26,7 +26,6 @@ export default defineEventHandler(async (event) => {
     }
     return row
   })
-  bumpCatalogGeneration()
   await audit(event, 'part edited', { subject: `${row.part.manufacturer} ${row.part.partNumber}`, details: { approved, ...edits } })
   return { ok: true }
 })

@@ -1,8 +1,9 @@
 import { idParam } from '#shared/schemas/auth'
 import { legSchematicSvg } from '#shared/drawing/leg-svg'
-import { designReportPdf } from '~~/server/exports/design-pdf'
-import { pdfFonts, SAFETY_NOTE, topologySummary } from '~~/server/services/bom'
-import { loadDesign, loadRevision, previewDesign, revisionQuery } from '~~/server/services/designs'
+import type { DesignPreview } from '#shared/types/design'
+import { SAFETY_NOTE, topologySummary } from '~~/server/services/bom'
+import { loadDesign, loadRevision, revisionQuery } from '~~/server/services/designs'
+import { renderDesignReport, runInPool } from '~~/server/workers/pool'
 
 // The printable design report: inputs, results, warnings, waveform and spectrum, safety note.
 export default defineEventHandler(async (event) => {
@@ -13,7 +14,7 @@ export default defineEventHandler(async (event) => {
   const rev = revision ?? design.revision
   const row = await loadRevision(id, rev)
   const input = row.input
-  const preview = previewDesign(input)
+  const preview = await runInPool<DesignPreview>({ kind: 'preview', input })
   const twoSides = !!input.gridSide
   const inputs: [string, string | number, string][] = []
   for (const [label, c] of [['Machine side', input.machineSide], ['Grid side', input.gridSide]] as const) {
@@ -27,7 +28,7 @@ export default defineEventHandler(async (event) => {
   }
   const machine = preview.result.converters[0]!
   const extras = preview.extras.machine
-  const pdf = await designReportPdf({
+  const pdf = await renderDesignReport({
     designName: row.name,
     revision: rev,
     author: row.author ?? '—',
@@ -49,7 +50,7 @@ export default defineEventHandler(async (event) => {
     spectrum: extras?.spectrum,
     lineVoltageThd: extras?.thd ?? machine.points[0]?.lineVoltageThd,
     safetyNote: SAFETY_NOTE,
-  }, await pdfFonts())
+  })
   setResponseHeaders(event, {
     'Content-Type': 'application/pdf',
     'Content-Disposition': `attachment; filename="Design-${row.name.replace(/[^\w-]+/g, '_').slice(0, 40)}-rev${rev}.pdf"`,

@@ -1,6 +1,8 @@
-import { previewDesign, loadDesign, loadRevision, revisionQuery } from '~~/server/services/designs'
+import { loadDesign, loadRevision, revisionQuery } from '~~/server/services/designs'
+import { runInPool } from '~~/server/workers/pool'
 import { idParam } from '#shared/schemas/auth'
 import type { DesignInput } from '#shared/engine/types'
+import type { DesignPreview } from '#shared/types/design'
 
 // Results of the saved design (or of ?revision=N).
 export default defineEventHandler(async (event) => {
@@ -9,5 +11,5 @@ export default defineEventHandler(async (event) => {
   const { revision } = queryValid(event, revisionQuery)
   const design = await loadDesign(id)
   const input = revision && revision !== design.revision ? (await loadRevision(id, revision)).input : design.input as DesignInput
-  return previewDesign(input)
+  return runInPool<DesignPreview>({ kind: 'preview', input })
 })

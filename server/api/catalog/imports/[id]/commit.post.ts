@@ -1,36 +1,35 @@
-import { commitParts } from '~~/server/services/catalog'
-import { loadImportTable, previewOf, headerSignature } from '~~/server/services/catalog-import'
-import { and, eq } from 'drizzle-orm'
+import { eq } from 'drizzle-orm'
+import { z } from 'zod'
 import { idParam } from '#shared/schemas/auth'
 import { importMappingSchema } from '#shared/schemas/catalog'
 import type { ColumnMapping } from '#shared/catalog/types'
+import { enqueue, jobAnswer, waitForJob } from '~~/server/queue/jobs'
+import type { CatalogCommitInput } from '~~/server/queue/catalog-commit'
+
+const commitQuery = z.object({ async: z.enum(['0', '1']).optional() })
 
 // Writes the import as a new catalogue version in one transaction — only when no row has an error.
+// The work runs on the job queue (any instance); `?async=1` answers 202 with the job to poll for progress
+// (GET /api/jobs/:id), otherwise the answer waits for the job and is its summary.
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'catalog:write')
   const { id } = paramsValid(event, idParam)
+  const { async } = queryValid(event, commitQuery)
   const { mapping, decimalSeparator } = await readValid(event, importMappingSchema)
-  const db = useDb()
-  const [row] = await db.select().from(tables.catalogImports).where(eq(tables.catalogImports.id, id))
+  const [row] = await useDb().select({ status: tables.catalogImports.status }).from(tables.catalogImports).where(eq(tables.catalogImports.id, id))
   if (!row) throw createError({ statusCode: 404, message: 'No such import.' })
   if (row.status !== 'preview') throw createError({ statusCode: 409, message: 'This import was already committed.' })
-  const table = await loadImportTable(row)
-  const preview = previewOf(table, mapping as ColumnMapping, decimalSeparator)
-  if (preview.rowsWithErrors > 0) {
-    throw createError({ statusCode: 422, message: `${preview.rowsWithErrors} row(s) still have errors; fix them in the file or the mapping. Nothing was imported.`, data: { issues: preview.issues.slice(0, 50) } })
+  const input: CatalogCommitInput = { importId: id, mapping: mapping as ColumnMapping, decimalSeparator, userId: user.id }
+  const jobId = await enqueue('catalog-commit', input, user.id)
+  if (async === '1') {
+    setResponseStatus(event, 202)
+    return { jobId, status: 'queued' }
   }
-  if (preview.validParts === 0) throw createError({ statusCode: 422, message: 'The file holds no parts to import.' })
-  const summary = await db.transaction(async (tx) => {
-    // Lock the import row so two commits of one upload cannot both pass.
-    const [locked] = await tx.update(tables.catalogImports).set({ status: 'committed' })
-      .where(and(eq(tables.catalogImports.id, id), eq(tables.catalogImports.status, 'preview'))).returning()
-    if (!locked) throw createError({ statusCode: 409, message: 'This import was already committed.' })
-    const s = await commitParts(tx, preview.parts, { userId: user.id, importId: id, note: `Import of ${row.filename}`, approve: false })
-    await tx.update(tables.catalogImports).set({ mapping, decimalSeparator, catalogVersionId: s.catalogVersionId, issueCount: preview.issues.length }).where(eq(tables.catalogImports.id, id))
-    await tx.insert(tables.headerMappings).values({ userId: user.id, signature: headerSignature(table.headers), mapping })
-      .onConflictDoUpdate({ target: [tables.headerMappings.userId, tables.headerMappings.signature], set: { mapping, updatedAt: new Date() } })
-    return s
-  })
-  await audit(event, 'catalogue import committed', { subject: row.filename, details: summary })
-  return summary
+  // under the HTTP server's 5 min request timeout; a longer commit answers 202 with the job to follow
+  const job = await waitForJob(jobId, 4 * 60_000)
+  if (!job) {
+    setResponseStatus(event, 202)
+    return { jobId, status: 'running' }
+  }
+  return jobAnswer(job)
 })

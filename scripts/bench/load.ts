@@ -1,0 +1,194 @@
+// Load on the built server (its own database `stratavolt_bench`, recreated): POST /api/v1/stress and
+// GET /api/designs at 1, 10 and 50 connections (autocannon), with the health route's latency probed
+// every 50 ms during each run, and a single signed-in stress round trip measured on its own.
+// `npm run bench -- load --duration 5` shortens the runs (default 20 s each).
+import { spawn } from 'node:child_process'
+import { Agent, request } from 'node:http'
+import { openSync, readFileSync } from 'node:fs'
+import { join } from 'node:path'
+import { performance } from 'node:perf_hooks'
+import autocannon from 'autocannon'
+import { evaluateStress } from '../../shared/engine'
+// @ts-expect-error -- plain ESM helper shared with the start and test scripts
+import { demoAccounts, ensureBuild, ensurePostgres, readSecrets, root, waitForHttp } from '../lib.mjs'
+
+export interface LoadFigure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
+
+const PORT = Number(process.env.STRATAVOLT_BENCH_PORT ?? Number(process.env.PORT ?? 3000) + 301)
+const base = `http://127.0.0.1:${PORT}`
+
+/** The README's example: a three-level NPC at 690 V, 400 A (no waveform). */
+export const STRESS_BODY = JSON.stringify({
+  topology: 'diode-clamped', levels: 3, dcVoltage: 1100, dcVoltageMax: 1250, lineVoltageRms: 690, phaseCurrentRms: 400,
+  powerFactor: 0.86, fundamentalHz: 50, switchingHz: 3000, modulation: 'space-vector', overshootVoltage: 120,
+})
+
+function durationSeconds() {
+  const i = process.argv.indexOf('--duration')
+  const n = i > 0 ? Number(process.argv[i + 1]) : 20
+  return Number.isFinite(n) && n > 0 ? n : 20
+}
+
+/** CPU time (ms, all threads) the server process has used so far, from /proc (Linux clock ticks of 10 ms). */
+function serverCpuMs(pid: number | undefined) {
+  try {
+    const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ')
+    return (Number(fields[11]) + Number(fields[12])) * 10
+  }
+  catch {
+    return Number.NaN
+  }
+}
+
+const quantile = (sorted: number[], q: number) => sorted.length ? sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))]! : NaN
+
+const agent = new Agent({ keepAlive: true, maxSockets: 1 })
+/** One request on a kept-alive socket; resolves with the status and the elapsed milliseconds. */
+function timed(method: string, path: string, headers: Record<string, string>, body?: string): Promise<{ status: number, ms: number }> {
+  return new Promise((resolve, reject) => {
+    const t0 = performance.now()
+    const req = request(`${base}${path}`, { method, headers, agent }, (res) => {
+      res.resume()
+      res.on('end', () => resolve({ status: res.statusCode ?? 0, ms: performance.now() - t0 }))
+    })
+    req.on('error', reject)
+    req.end(body)
+  })
+}
+
+/**
+ * Probes GET /api/health every 50 ms from a process of its own (so that the load generator's busy event
+ * loop does not count as server latency) until stopped; returns the sorted latencies in ms.
+ */
+const PROBE = `
+const { Agent, request } = require('node:http')
+const agent = new Agent({ keepAlive: true, maxSockets: 1 })
+const samples = []; let failures = 0; let running = true
+process.stdin.on('data', () => { running = false })
+;(async () => {
+  while (running) {
+    const t0 = performance.now()
+    const status = await new Promise((resolve) => {
+      const req = request(process.argv[1] + '/api/health', { agent }, (res) => { res.resume(); res.on('end', () => resolve(res.statusCode)) })
+      req.on('error', () => resolve(0))
+      req.end()
+    })
+    if (status === 200) samples.push(performance.now() - t0); else failures++
+    await new Promise(r => setTimeout(r, 50))
+  }
+  process.stdout.write(JSON.stringify({ samples, failures }))
+  process.exit(0)
+})()`
+
+function probeHealth() {
+  const child = spawn(process.execPath, ['-e', PROBE, base], { stdio: ['pipe', 'pipe', 'inherit'] })
+  let out = ''
+  child.stdout.on('data', (c: Buffer) => { out += c })
+  const done = new Promise<void>(resolve => child.on('exit', () => resolve()))
+  return async () => {
+    child.stdin.write('stop\n')
+    await done
+    const { samples, failures } = JSON.parse(out || '{"samples":[],"failures":0}') as { samples: number[], failures: number }
+    return { sorted: samples.sort((a, b) => a - b), failures }
+  }
+}
+
+async function signIn(email: string) {
+  const r = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password: demoAccounts.password }) })
+  if (r.status !== 200) throw new Error(`sign-in answered ${r.status}`)
+  return r.headers.getSetCookie().map(c => c.split(';')[0]).join('; ')
+}
+
+export async function runLoadBench(): Promise<LoadFigure[]> {
+  const seconds = durationSeconds()
+  const url = ensurePostgres([{ name: 'stratavolt_bench', recreate: true }])('stratavolt_bench')
+  ensureBuild()
+  const log = join(root, '.data', 'bench-load-server.log')
+  const server = spawn(process.execPath, [join(root, '.output', 'server', 'index.mjs')], {
+    cwd: root,
+    stdio: ['ignore', openSync(log, 'w'), openSync(log, 'a')],
+    env: { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: String(PORT), NUXT_DATABASE_URL: url, NUXT_SESSION_PASSWORD: readSecrets().sessionPassword, NUXT_SMTP_PORT: '1', NUXT_UPLOAD_DIR: join(root, '.data', 'bench-uploads') },
+  })
+  const figures: LoadFigure[] = []
+  try {
+    await waitForHttp(`${base}/api/health`, 120000)
+    const cookie = await signIn('engineer@example.com')
+    const origin = base
+    const tokenAnswer = await fetch(`${base}/api/tokens`, { method: 'POST', headers: { cookie, origin, 'content-type': 'application/json' }, body: JSON.stringify({ name: 'load bench' }) })
+    if (tokenAnswer.status !== 201) throw new Error(`token creation answered ${tokenAnswer.status}: ${await tokenAnswer.text()}`)
+    const { token } = await tokenAnswer.json() as { token: string }
+    const stressHeaders = { 'authorization': `Bearer ${token}`, 'content-type': 'application/json', 'accept-encoding': 'gzip' }
+    const designHeaders = { cookie, 'accept-encoding': 'gzip' }
+
+    // One signed-in round trip at a time (after a warm-up): per-request overhead plus the engine.
+    for (let i = 0; i < 200; i++) await timed('POST', '/api/v1/stress', stressHeaders, STRESS_BODY)
+    const single: number[] = []
+    const cpu0 = serverCpuMs(server.pid)
+    for (let i = 0; i < 1000; i++) {
+      const r = await timed('POST', '/api/v1/stress', stressHeaders, STRESS_BODY)
+      if (r.status !== 200) throw new Error(`stress answered ${r.status}`)
+      single.push(r.ms)
+    }
+    single.sort((a, b) => a - b)
+    const cpuPerRequest = (serverCpuMs(server.pid) - cpu0) / single.length
+    figures.push({ name: `POST /api/v1/stress, one at a time (signed in, no waveform; server CPU ${cpuPerRequest.toFixed(2)} ms/request)`, p50Ms: quantile(single, 0.5), p99Ms: quantile(single, 0.99), runs: single.length, target: 'p50 < 2 ms' })
+    agent.destroy()
+    // the engine's own share at this moment (same input, this process, no HTTP), to tell overhead from engine work
+    const engine: number[] = []
+    const input = JSON.parse(STRESS_BODY)
+    for (let i = 0; i < 500; i++) {
+      const t0 = performance.now()
+      evaluateStress(input)
+      engine.push(performance.now() - t0)
+    }
+    engine.sort((a, b) => a - b)
+    figures.push({ name: '  the same evaluation alone (engine, no HTTP), now', p50Ms: quantile(engine, 0.5), p99Ms: quantile(engine, 0.99), runs: engine.length })
+
+    const routes = [
+      { label: 'POST /api/v1/stress', method: 'POST' as const, path: '/api/v1/stress', headers: stressHeaders, body: STRESS_BODY },
+      { label: 'GET /api/designs', method: 'GET' as const, path: '/api/designs', headers: designHeaders, body: undefined },
+    ]
+    for (const route of routes) {
+      for (const connections of [1, 10, 50]) {
+        process.stderr.write(`  ${route.label} at ${connections} connection(s) for ${seconds} s…\n`)
+        const stop = probeHealth()
+        const cpuBefore = serverCpuMs(server.pid)
+        const r = await autocannon({ url: `${base}${route.path}`, method: route.method, headers: route.headers, body: route.body, connections, duration: seconds })
+        const cpuPerRequest = (serverCpuMs(server.pid) - cpuBefore) / Math.max(1, r.requests.total)
+        const health = await stop()
+        const errors = r.errors + r.timeouts + r.non2xx
+        const stress50 = route.path === '/api/v1/stress' && connections === 50
+        figures.push({
+          name: `${route.label}, ${connections} conn: ${Math.round(r.requests.average)} req/s, ${errors} errors, server CPU ${cpuPerRequest.toFixed(2)} ms/req`,
+          p50Ms: r.latency.p50, p99Ms: r.latency.p99, runs: r.requests.total,
+          target: stress50 ? 'p99 < 150 ms, 0 errors' : '0 errors',
+        })
+        figures.push({
+          name: `  GET /api/health meanwhile${health.failures ? ` (${health.failures} failed)` : ''}, max ${quantile(health.sorted, 1).toFixed(1)} ms`,
+          p50Ms: quantile(health.sorted, 0.5), p99Ms: quantile(health.sorted, 0.99), runs: health.sorted.length,
+          target: stress50 ? '< 50 ms' : '',
+        })
+      }
+    }
+    // how much the compression saves on a results answer and a matching answer
+    const [design] = await (await fetch(`${base}/api/designs`, { headers: { cookie } })).json() as { id: number }[]
+    for (const path of [`/api/designs/${design!.id}/results`, `/api/designs/${design!.id}/parts`]) {
+      const plain = await fetch(`${base}${path}`, { headers: { cookie, 'accept-encoding': 'identity' } })
+      const plainBytes = (await plain.arrayBuffer()).byteLength
+      const zipped = await new Promise<number>((resolve, reject) => {
+        const req = request(`${base}${path}`, { headers: { cookie, 'accept-encoding': 'gzip' } }, (res) => {
+          let n = 0
+          res.on('data', (c: Buffer) => { n += c.length })
+          res.on('end', () => resolve(res.headers['content-encoding'] === 'gzip' ? n : Number.NaN))
+        })
+        req.on('error', reject)
+        req.end()
+      })
+      figures.push({ name: `gzip ${path.replace(/\/\d+\//, '/:id/')}: ${(plainBytes / 1024).toFixed(0)} KiB → ${(zipped / 1024).toFixed(1)} KiB (${(plainBytes / zipped).toFixed(1)}×)`, p50Ms: 0, p99Ms: 0, runs: 1 })
+    }
+  }
+  finally {
+    server.kill('SIGTERM')
+  }
+  return figures
+}

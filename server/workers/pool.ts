@@ -1,0 +1,106 @@
+// The pool of worker threads (piscina, one thread per core) that keeps long computations off the
+// event loop, so health and cheap routes answer while evaluations, matching, trade studies, catalogue
+// reads and PDFs run. The worker file is bundled beside the server (workers/engine.mjs); under
+// `nuxt dev` without it, tasks run inline.
+import { existsSync } from 'node:fs'
+import { availableParallelism } from 'node:os'
+import { dirname, join } from 'node:path'
+import { fileURLToPath, pathToFileURL } from 'node:url'
+import { Piscina } from 'piscina'
+import { EngineInputError } from '#shared/engine'
+import { loadFonts, type PdfFonts } from '../exports/pdf'
+import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
+import { runTask, type CatalogPartRow, type Task, type TaskResult } from './tasks'
+
+export const WORKER_FILE = join('workers', 'engine.mjs')
+
+/**
+ * Looks for workers/engine.mjs beside the entry script (`node .output/server/index.mjs`) and in the folders
+ * above this module (.nuxt/dev under `nuxt dev`). Nitro's import.meta.url is only right once the entry ran.
+ */
+function findWorkerFile(): string | null {
+  if (process.env.STRATAVOLT_WORKER_FILE) return process.env.STRATAVOLT_WORKER_FILE
+  const starts = [process.argv[1] ? dirname(process.argv[1]) : '', dirname(fileURLToPath(import.meta.url))]
+  for (const start of starts.filter(Boolean)) {
+    let dir = start
+    for (let i = 0; i < 6; i++) {
+      const candidate = join(dir, WORKER_FILE)
+      if (existsSync(candidate)) return candidate
+      dir = dirname(dir)
+    }
+  }
+  return null
+}
+
+/** Threads in the pool: the cores this process may use, at least one (`STRATAVOLT_WORKERS` overrides). */
+export const poolSize = Math.max(1, Number(process.env.STRATAVOLT_WORKERS) || availableParallelism())
+
+let pool: Piscina | null | undefined
+function usePool(): Piscina | null {
+  if (pool !== undefined) return pool
+  const file = findWorkerFile()
+  if (!file) {
+    if (!import.meta.dev) throw new Error(`worker file ${WORKER_FILE} is missing beside the built server: rebuild with \`nuxt build\``)
+    pool = null
+    return pool
+  }
+  pool = new Piscina({ filename: pathToFileURL(file).href, minThreads: poolSize, maxThreads: poolSize, idleTimeout: 60_000 })
+  return pool
+}
+
+/** Starts the threads now (at server start) rather than on the first request. */
+export function warmPool() {
+  usePool()
+}
+
+export async function closePool() {
+  if (pool) await pool.destroy()
+  pool = undefined
+}
+
+function rethrow(result: Exclude<TaskResult, { ok: true } | { needs: unknown }>): never {
+  const e = result.error
+  if (e.kind === 'engine') return withEngine(() => { throw new EngineInputError(e.field, e.message) })
+  throw createError({ statusCode: e.statusCode, message: e.message, data: e.data })
+}
+
+async function dispatch(task: Task): Promise<TaskResult> {
+  const p = usePool()
+  return p ? p.run(task) as Promise<TaskResult> : runTask(task)
+}
+
+/**
+ * Runs a task on a worker thread and returns its value; engine and HTTP errors are raised here as the
+ * route would raise them. `supply` answers a thread whose catalogue or fonts copy is missing or stale.
+ */
+export async function runInPool<T>(task: Task, supply?: { parts?: () => CatalogPartRow[], fonts?: () => Promise<PdfFonts> }): Promise<T> {
+  let result = await dispatch(task)
+  if (!result.ok && 'needs' in result) {
+    if (result.needs === 'parts' && supply?.parts && 'generation' in task) result = await dispatch({ ...task, parts: supply.parts() })
+    else if (result.needs === 'fonts' && supply?.fonts && (task.kind === 'bom-pdf' || task.kind === 'design-pdf')) result = await dispatch({ ...task, fonts: await supply.fonts() })
+    if (!result.ok && 'needs' in result) throw new Error(`worker task ${task.kind} needs ${result.needs}`)
+  }
+  if (!result.ok) return rethrow(result)
+  return result.value as T
+}
+
+/** pdfmake's Roboto files from the `fonts` server asset, read once per process (sent once to each thread). */
+let fontsOnce: Promise<PdfFonts> | null = null
+function pdfFontsOnce() {
+  fontsOnce ??= loadFonts(name => useStorage('assets:fonts').getItemRaw(name))
+  return fontsOnce
+}
+
+async function pdfResult(value: Uint8Array) {
+  return Buffer.from(value.buffer, value.byteOffset, value.byteLength)
+}
+
+/** A BOM as PDF, rendered on a worker thread. */
+export async function renderBomPdf(snapshot: BomSnapshot, purchase: BomPurchase = {}): Promise<Buffer> {
+  return pdfResult(await runInPool<Uint8Array>({ kind: 'bom-pdf', args: { snapshot, purchase } }, { fonts: pdfFontsOnce }))
+}
+
+/** The design report as PDF, rendered on a worker thread. */
+export async function renderDesignReport(report: Extract<Task, { kind: 'design-pdf' }>['report']): Promise<Buffer> {
+  return pdfResult(await runInPool<Uint8Array>({ kind: 'design-pdf', report }, { fonts: pdfFontsOnce }))
+}

@@ -1,0 +1,94 @@
+// The work the pool of worker threads does: evaluations, matching, trade studies, catalogue file reading
+// and PDF rendering. Pure functions of their message (plus a per-thread copy of the catalogue, checked
+// against the catalogue generation the main thread read from PostgreSQL for this request).
+import { EngineInputError, evaluateDesign, evaluateStress, type DesignInput, type EvaluateOptions, type StressInput } from '#shared/engine'
+import { indexParts, type PartIndex } from '#shared/catalog/matching'
+import type { CatalogPart } from '#shared/catalog/types'
+import type { TradeStudyInput } from '#shared/schemas/trade-study'
+import { readCatalogFile, type ReadOptions } from '../catalog/read'
+import { previewDesign } from '../services/designs'
+import { computeMatches, type MatchArgs } from '../services/parts'
+import { tradeStudyRows } from '../services/trade-study'
+import { bomToPdf } from '../exports/bom-pdf'
+import { designReportPdf } from '../exports/design-pdf'
+import type { PdfFonts } from '../exports/pdf'
+import { compactProvenance } from './provenance'
+import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
+
+export type CatalogPartRow = CatalogPart & { partVersionId: number, approved: boolean }
+
+export type Task
+  = | { kind: 'stress', input: StressInput, options: EvaluateOptions, provenance?: 'compact' | 'full' }
+    | { kind: 'evaluate', input: DesignInput, provenance?: 'compact' | 'full' }
+    | { kind: 'preview', input: DesignInput }
+    | { kind: 'match', generation: number, parts?: CatalogPartRow[], args: MatchArgs }
+    | { kind: 'trade-study', generation: number, parts?: CatalogPartRow[], duty: TradeStudyInput }
+    | { kind: 'read-catalog', file: Uint8Array, filename: string, limits: ReadOptions }
+    | { kind: 'bom-pdf', fonts?: PdfFonts, args: { snapshot: BomSnapshot, purchase: BomPurchase } }
+    | { kind: 'design-pdf', fonts?: PdfFonts, report: Parameters<typeof designReportPdf>[0] }
+
+export type TaskError
+  = | { kind: 'engine', field: string, message: string }
+    | { kind: 'http', statusCode: number, message: string, data?: unknown }
+
+export type TaskResult
+  = | { ok: true, value: unknown }
+    | { ok: false, error: TaskError }
+  /** this thread's catalogue copy is older than the request's generation: send the parts along */
+    | { ok: false, needs: 'parts' | 'fonts' }
+
+let catalog: { generation: number, parts: CatalogPartRow[], index: PartIndex } | null = null
+let fonts: PdfFonts | null = null
+
+function catalogFor(task: { generation: number, parts?: CatalogPartRow[] }) {
+  if (task.parts) catalog = { generation: task.generation, parts: task.parts, index: indexParts(task.parts) }
+  return catalog && catalog.generation === task.generation ? catalog : null
+}
+
+async function run(task: Task): Promise<TaskResult> {
+  switch (task.kind) {
+    case 'stress': {
+      const r = evaluateStress(task.input, task.options)
+      return { ok: true, value: task.provenance === 'compact' ? compactProvenance(r) : r }
+    }
+    case 'evaluate': {
+      const r = evaluateDesign(task.input)
+      return { ok: true, value: task.provenance === 'compact' ? compactProvenance(r) : r }
+    }
+    case 'preview':
+      return { ok: true, value: previewDesign(task.input) }
+    case 'match': {
+      const c = catalogFor(task)
+      if (!c) return { ok: false, needs: 'parts' }
+      return { ok: true, value: computeMatches(task.args, c.parts, c.index) }
+    }
+    case 'trade-study': {
+      const c = catalogFor(task)
+      if (!c) return { ok: false, needs: 'parts' }
+      return { ok: true, value: tradeStudyRows(task.duty, c.index) }
+    }
+    case 'read-catalog':
+      return { ok: true, value: await readCatalogFile(Buffer.from(task.file.buffer, task.file.byteOffset, task.file.byteLength), task.filename, task.limits) }
+    case 'bom-pdf':
+    case 'design-pdf': {
+      // a thread boundary turns Buffers into plain Uint8Arrays; pdfmake wants Buffers
+      if (task.fonts) fonts = Object.fromEntries(Object.entries(task.fonts).map(([k, v]: [string, Uint8Array]) => [k, Buffer.from(v.buffer, v.byteOffset, v.byteLength)])) as unknown as PdfFonts
+      if (!fonts) return { ok: false, needs: 'fonts' }
+      const pdf = task.kind === 'bom-pdf' ? await bomToPdf(task.args.snapshot, fonts, task.args.purchase) : await designReportPdf(task.report, fonts)
+      return { ok: true, value: new Uint8Array(pdf.buffer, pdf.byteOffset, pdf.byteLength) }
+    }
+  }
+}
+
+/** Runs one task; errors the route would answer with come back as data (a thread boundary drops their class). */
+export async function runTask(task: Task): Promise<TaskResult> {
+  try {
+    return await run(task)
+  }
+  catch (err) {
+    if (err instanceof EngineInputError) return { ok: false, error: { kind: 'engine', field: err.field, message: err.message } }
+    const e = err as { statusCode?: number, message?: string, data?: unknown }
+    if (typeof e?.statusCode === 'number' && e.statusCode < 500) return { ok: false, error: { kind: 'http', statusCode: e.statusCode, message: e.message ?? '', data: e.data } }
+    throw err
+  }
+}
