@@ -96,6 +96,9 @@ export interface BomPositionRow {
 export const PURCHASE_STATUSES = ['to-quote', 'quoted', 'ordered', 'confirmed', 'received'] as const
 export type PurchaseStatus = (typeof PURCHASE_STATUSES)[number]
 
+/** Fields purchasing edits on a line (the page sends one at a time). */
+export type PurchaseField = 'supplier' | 'quotedUnitPrice' | 'orderReference' | 'quoteCurrency' | 'status' | 'promisedDelivery'
+
 /** What purchasing records against one BOM line (keyed by BomLine.key). */
 export interface BomPurchaseEntry {
   supplier?: string | null
