@@ -1,8 +1,7 @@
 // Bills of materials: the live draft from a design's part assignments, and released snapshots that
 // never change afterwards (a new release is a new revision with the changes listed).
 import type { H3Event } from 'h3'
-import { desc, eq } from 'drizzle-orm'
-import { and, sql } from 'drizzle-orm'
+import { and, desc, eq, sql } from 'drizzle-orm'
 import { buildBomSnapshot, diffBoms, unacknowledgedLines, type BomBuildInput, type CapacitorFill, type CoveredPosition, type PositionFill } from '#shared/bom/build'
 import { packGroup, type GroupMember } from '#shared/bom/coverage'
 import type { BomLine, BomPurchase, BomSnapshot } from '#shared/bom/types'

@@ -29,7 +29,7 @@ export async function drainOutbox(limit = 5): Promise<{ sent: number, failed: nu
       where status = 'pending' and next_attempt_at <= now()
       order by id limit ${limit} for update skip locked`)]
     for (const row of rows) {
-      let error: string | null = null
+      let error: string | null
       try {
         const mail = await compose(row)
         const result = await sendMailResult({ to: row.to, subject: row.subject, ...mail })

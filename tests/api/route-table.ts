@@ -11,6 +11,19 @@ export interface RouteCase {
   access: Permission | 'public' | 'signed-in'
   /** body sent when calling it (invalid on purpose where the route writes: an allowed role then gets 4xx from validation, not from the guard) */
   body?: unknown
+  /**
+   * Statuses an allowed role gets. Default: 404 for a path with id 999999, 400 / 422 (the validation
+   * error) when a body is sent, else 200.
+   */
+  ok?: number[]
+}
+
+/** What an allowed role must get from a route (never just "not 401/403"). */
+export function expectedFor(route: RouteCase): number[] {
+  if (route.ok) return route.ok
+  if (route.path.includes('999999')) return [404]
+  if (route.body !== undefined) return [400, 422]
+  return [200]
 }
 
 export const routeTable: RouteCase[] = [
