@@ -12,8 +12,8 @@ export interface RouteCase {
   /** body sent when calling it (invalid on purpose where the route writes: an allowed role then gets 4xx from validation, not from the guard) */
   body?: unknown
   /**
-   * Statuses an allowed role gets. Default: 404 for a path with id 999999, 400 / 422 (the validation
-   * error) when a body is sent, else 200.
+   * Statuses an allowed role gets. Default: 400 / 422 (the validation error) when a body is sent, 404
+   * for a path naming a row that does not exist (999999), else 200.
    */
   ok?: number[]
 }
@@ -21,8 +21,9 @@ export interface RouteCase {
 /** What an allowed role must get from a route (never just "not 401/403"). */
 export function expectedFor(route: RouteCase): number[] {
   if (route.ok) return route.ok
-  if (route.path.includes('999999')) return [404]
+  // validation runs before the lookup
   if (route.body !== undefined) return [400, 422]
+  if (route.path.includes('999999') || route.path.includes('does-not-exist')) return [404]
   return [200]
 }
 

@@ -74,6 +74,7 @@ describe('back-to-back BOM with modules to purchasing in Chromium', () => {
     await assignThroughPage(eng, 'Machine side')
     await assignThroughPage(eng, 'Grid side')
     await assignThroughPage(eng, 'Shared DC link')
+    await eng.getByRole('tab', { name: 'Machine side' }).click()
     await expect.poll(() => eng.locator('nav[aria-label="Positions"] .badge', { hasText: 'covered by S1' }).count()).toBeGreaterThan(0)
     await screenshot(eng, 'b2b-parts-assigned')
 
