@@ -48,7 +48,7 @@ async function assignThroughPage(page: Page, sideLabel: string | null) {
   const count = await nav.count()
   for (let i = 0; i < count; i++) {
     const button = nav.nth(i)
-    if ((await button.textContent())?.match(/covered by|[A-Z]{2,}-/)) continue
+    if (await button.getAttribute('data-assigned') === 'yes') continue
     await button.click()
     // decline any further module offer: a plain assignment of this one position
     dialogs.accept = false
