@@ -52,8 +52,9 @@ async function assignThroughPage(page: Page, sideLabel: string | null) {
     await button.click()
     // decline any further module offer: a plain assignment of this one position
     dialogs.accept = false
+    const position = await button.getAttribute('data-position')
     await page.getByRole('button', { name: 'Assign', exact: true }).first().click()
-    await expect.poll(() => page.getByRole('status').textContent()).toContain('assigned')
+    await expect.poll(() => page.getByRole('status').textContent()).toContain(`assigned to ${position}.`)
   }
 }
 
@@ -74,13 +75,13 @@ describe('back-to-back BOM with modules to purchasing in Chromium', () => {
     await assignThroughPage(eng, 'Machine side')
     await assignThroughPage(eng, 'Grid side')
     await assignThroughPage(eng, 'Shared DC link')
-    await eng.getByRole('tab', { name: 'Machine side' }).click()
-    await expect.poll(() => eng.locator('nav[aria-label="Positions"] .badge', { hasText: 'covered by S1' }).count()).toBeGreaterThan(0)
-    await screenshot(eng, 'b2b-parts-assigned')
-
     const { body: parts } = await api.json('GET', `/api/designs/${design.id}/parts`)
-    expect(parts.positions.filter((p: { assigned: unknown }) => !p.assigned)).toEqual([])
-    expect(parts.positions.filter((p: { coveredBy: string | null }) => p.coveredBy).length).toBeGreaterThanOrEqual(4)
+    const summary = parts.positions.map((p: { side: string, position: string, coveredBy: string | null, assigned: { part: { partNumber: string } } | null }) => `${p.side} ${p.position} ${p.assigned?.part.partNumber ?? '-'} ${p.coveredBy ?? ''}`)
+    expect(parts.positions.filter((p: { assigned: unknown }) => !p.assigned), summary.join('; ')).toEqual([])
+    expect(parts.positions.filter((p: { coveredBy: string | null }) => p.coveredBy).length, summary.join('; ')).toBeGreaterThanOrEqual(4)
+    await eng.getByRole('tab', { name: 'Machine side' }).click()
+    await screenshot(eng, 'b2b-parts-assigned')
+    await expect.poll(() => eng.locator('nav[aria-label="Positions"] .badge', { hasText: 'covered by S1' }).count()).toBeGreaterThan(0)
 
     await eng.goto(`/designs/${design.id}/bom`)
     const release = eng.getByRole('button', { name: /Release as revision 1/ })
@@ -161,5 +162,5 @@ describe('back-to-back BOM with modules to purchasing in Chromium', () => {
     }
     expect(text).toContain('module at S1')
     expect(text).toContain('PO-2026-118')
-  })
+  }, 300000) // a long end-to-end flow (two converters' positions by hand, LibreOffice) on a shared machine
 })
