@@ -10,10 +10,22 @@ const mailbox = process.env.MAILBOX_DIR ?? join(process.cwd(), '.data', 'mailbox
 mkdirSync(mailbox, { recursive: true })
 
 let counter = 0
+// A recipient containing "+fail-once" is refused the first time it is seen (tests of mail retries).
+const refusedOnce = new Set()
 const server = new SMTPServer({
   authOptional: true,
   disabledCommands: ['STARTTLS'],
   size: 25 * 1024 * 1024,
+  onRcptTo(address, session, callback) {
+    const to = address.address.toLowerCase()
+    if (to.includes('+fail-once') && !refusedOnce.has(to)) {
+      refusedOnce.add(to)
+      const err = new Error('mailbox busy, try again later (fake SMTP)')
+      err.responseCode = 450
+      return callback(err)
+    }
+    callback()
+  },
   onData(stream, session, callback) {
     simpleParser(stream).then((mail) => {
       const receivedAt = new Date()

@@ -38,3 +38,30 @@ export function can(role: Role | undefined | null, permission: Permission): bool
 export function isRole(value: unknown): value is Role {
   return typeof value === 'string' && (roles as readonly string[]).includes(value)
 }
+
+/**
+ * Which roles receive which restricted fields, stated once. Routes strip the fields for other roles;
+ * the role-matrix test checks what each role receives.
+ * - purchase: purchasing's own entries on a released BOM (quotes, quote currency, suppliers, order
+ *   references, line status and dates, promised delivery) and the supplier a BOM line was priced from.
+ * - catalogue: catalogue data in a design's parts route (candidates, prices, stock, lead times,
+ *   suppliers of assigned parts): only roles with catalogue read.
+ */
+export const restrictedFields = {
+  purchase: {
+    roles: ['admin', 'design-engineer', 'purchasing'],
+    /** keys of BomPurchaseEntry, and of BomLine */
+    purchaseEntry: ['supplier', 'quotedUnitPrice', 'quoteCurrency', 'orderReference', 'status', 'statusDates', 'promisedDelivery'],
+    bomLine: ['supplier'],
+  },
+  catalogue: {
+    roles: permissions['catalog:read'],
+    /** keys of a parts-route position / assignment evaluation */
+    position: ['candidates', 'hiddenCandidates', 'nothingFits'],
+    evaluation: ['part', 'unitPrice', 'priceBreakQuantity', 'costPerDesign', 'orderQuantity', 'currency', 'stock', 'stockOk', 'leadTimeDays'],
+  },
+} as const satisfies Record<string, { roles: readonly Role[], [fields: string]: readonly string[] }>
+
+export function sees(role: Role | undefined | null, what: keyof typeof restrictedFields): boolean {
+  return !!role && (restrictedFields[what].roles as readonly Role[]).includes(role)
+}

@@ -177,9 +177,44 @@ export const partAssignments = pgTable('part_assignments', {
   partVersionId: integer('part_version_id').notNull().references(() => partVersions.id),
   seriesCount: integer('series_count').notNull().default(1),
   parallelCount: integer('parallel_count').notNull().default(1),
+  // Design revision the counts were rated against; a newer revision re-rates them (issue 11 item 3).
+  designRevision: integer('design_revision').notNull().default(1),
+  // Revision at which an engineer confirmed an assignment that no longer fits (null = not confirmed).
+  confirmedRevision: integer('confirmed_revision'),
+  confirmedReason: text('confirmed_reason'),
+  // Module coverage: the position on the same side whose package also fills this one (null = own part).
+  coveredBy: text('covered_by'),
   assignedBy: integer('assigned_by').references(() => users.id, { onDelete: 'set null' }),
   assignedAt: timestamp('assigned_at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [uniqueIndex('part_assignments_key').on(t.designId, t.side, t.position)])
+
+// A design engineer's recorded reason to release a BOM line with an unapproved / NRND / obsolete part.
+export const bomAcknowledgements = pgTable('bom_acknowledgements', {
+  id: serial('id').primaryKey(),
+  designId: integer('design_id').notNull().references(() => designs.id, { onDelete: 'cascade' }),
+  lineKey: text('line_key').notNull(),
+  /** part version the reason was given for: a different version needs a new acknowledgement */
+  partVersionId: integer('part_version_id').notNull(),
+  reason: text('reason').notNull(),
+  acknowledgedBy: integer('acknowledged_by').references(() => users.id, { onDelete: 'set null' }),
+  acknowledgedByName: text('acknowledged_by_name').notNull().default(''),
+  acknowledgedAt: timestamp('acknowledged_at', { withTimezone: true }).notNull().defaultNow(),
+}, t => [uniqueIndex('bom_acknowledgements_key').on(t.designId, t.lineKey)])
+
+// Mail written in the same transaction as what it reports; a worker on any instance sends it (FOR UPDATE SKIP LOCKED).
+export const mailOutbox = pgTable('mail_outbox', {
+  id: serial('id').primaryKey(),
+  kind: text('kind').notNull(), // 'bom-released'
+  to: text('to').notNull(),
+  subject: text('subject').notNull(),
+  payload: jsonb('payload').notNull(),
+  status: text('status').notNull().default('pending'), // pending | sent | failed
+  attempts: integer('attempts').notNull().default(0),
+  nextAttemptAt: timestamp('next_attempt_at', { withTimezone: true }).notNull().defaultNow(),
+  lastError: text('last_error'),
+  sentAt: timestamp('sent_at', { withTimezone: true }),
+  createdAt: createdAt(),
+}, t => [index('mail_outbox_due_idx').on(t.status, t.nextAttemptAt)])
 
 export const boms = pgTable('boms', {
   id: serial('id').primaryKey(),
@@ -200,6 +235,11 @@ export const bomPurchaseLines = pgTable('bom_purchase_lines', {
   supplier: text('supplier'),
   quotedUnitPrice: doublePrecision('quoted_unit_price'),
   orderReference: text('order_reference'),
+  // Purchasing line status: to-quote | quoted | ordered | confirmed | received, with the date of each step.
+  status: text('status').notNull().default('to-quote'),
+  statusDates: jsonb('status_dates').$type<Record<string, string>>().notNull().default({}),
+  quoteCurrency: text('quote_currency'),
+  promisedDelivery: text('promised_delivery'),
   updatedBy: integer('updated_by').references(() => users.id, { onDelete: 'set null' }),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [uniqueIndex('bom_purchase_lines_key').on(t.bomId, t.lineKey)])

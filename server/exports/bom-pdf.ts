@@ -3,6 +3,8 @@
 
 import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces'
 import type { BomLine, BomPurchase, BomSnapshot } from '../../shared/bom/types'
+import { gateMark } from '../../shared/bom/gates'
+import { openLinesBySupplier, supplierOf } from '../../shared/bom/purchase'
 import { formatDateTime, formatMoney, formatPieces, formatUnitPrice } from './format'
 import { PDF_STYLES, TABLE_LAYOUT, heading, keepHeadingsWithContent, pageFrame, renderPdf, safetyBox, type PdfFonts } from './pdf'
 
@@ -31,6 +33,7 @@ function linesTable(snapshot: BomSnapshot): Content {
   ]]
   snapshot.lines.forEach((line, i) => {
     const description: Content[] = [{ text: line.description }]
+    if (line.gate?.length) description.push({ text: `CHECK: ${gateMark(line)}`, bold: true, color: '#b91c1c', fontSize: 6.5 })
     if (line.warnings?.length) description.push({ text: line.warnings.join('; '), italics: true, color: '#92400e', fontSize: 6.5 })
     body.push([
       num(String(i + 1)), { text: line.partNumber || '—' }, { text: line.manufacturer || '—' }, { stack: description },
@@ -71,30 +74,38 @@ function purchaseTable(snapshot: BomSnapshot, purchase: BomPurchase): Content | 
   const rows = snapshot.lines.map((line, i) => ({ line, i, p: purchase[line.key] })).filter(r => r.p)
   if (rows.length === 0) return null
   const cur = snapshot.currency
-  const body: TableCell[][] = [[header('#', 'right'), header('Part number'), header('Ordered from'), header('Order [pcs]', 'right'), header(`Quoted unit [${cur}]`, 'right'), header(`Quoted extended [${cur}]`, 'right'), header('Order reference')]]
+  const body: TableCell[][] = [[header('#', 'right'), header('Part number'), header('Ordered from'), header('Order [pcs]', 'right'), header(`Quoted unit [${cur}]`, 'right'), header(`Quoted extended [${cur}]`, 'right'), header('Order reference'), header('Status'), header('Promised delivery')]]
+  // Grouped by the supplier the line is bought from.
+  rows.sort((a, b) => supplierOf(a.line, purchase).localeCompare(supplierOf(b.line, purchase)) || a.i - b.i)
   for (const { line, i, p } of rows) {
     const quoted = p!.quotedUnitPrice ?? null
+    const quoteCurrency = p!.quoteCurrency ?? line.currency
+    const quotedText = (v: number | null, unit: boolean) => (v === null ? '—' : `${unit ? formatUnitPrice(v) : formatMoney(v)}${quoteCurrency !== cur ? ` ${quoteCurrency}` : ''}`)
+    const status = p!.status ?? 'to-quote'
     body.push([
       num(String(i + 1)), { text: line.partNumber || line.description }, { text: p!.supplier ?? '—' }, num(formatPieces(line.quantityOrder)),
-      num(price(quoted, line, cur, true)), num(price(quoted === null ? null : quoted * line.quantityOrder, line, cur)), { text: p!.orderReference ?? '—' },
+      num(quotedText(quoted, true)), num(quotedText(quoted === null ? null : quoted * line.quantityOrder, false)), { text: p!.orderReference ?? '—' },
+      { text: `${status}${p!.statusDates?.[status] ? ` (${p!.statusDates[status]})` : ''}` }, { text: p!.promisedDelivery ?? '—' },
     ])
   }
   return [
     heading('Purchasing'),
-    { table: { headerRows: 1, dontBreakRows: true, widths: [16, 110, 150, 50, 70, 80, '*'], body }, layout: TABLE_LAYOUT },
+    { table: { headerRows: 1, dontBreakRows: true, widths: [16, 100, 120, 44, 60, 70, '*', 70, 60], body }, layout: TABLE_LAYOUT },
   ]
 }
 
 function positionsTable(snapshot: BomSnapshot): Content {
-  const body: TableCell[][] = [[header('Side'), header('Position'), header('Manufacturer'), header('Part number'), header('Per converter set [pcs]', 'right'), header('In series [pcs]', 'right'), header('In parallel [pcs]', 'right')]]
+  const body: TableCell[][] = [[header('Side'), header('Position'), header('Manufacturer'), header('Part number'), header('Per converter set [pcs]', 'right'), header('In series [pcs]', 'right'), header('In parallel [pcs]', 'right'), header('Covered by')]]
   for (const p of snapshot.positions) {
-    body.push([{ text: p.side }, { text: p.position }, { text: p.manufacturer }, { text: p.partNumber }, num(formatPieces(p.perConverter)), num(formatPieces(p.seriesCount)), num(formatPieces(p.parallelCount))])
+    body.push([{ text: p.side }, { text: p.position }, { text: p.manufacturer }, { text: p.partNumber }, num(formatPieces(p.perConverter)), num(formatPieces(p.seriesCount)), num(formatPieces(p.parallelCount)), { text: p.coveredBy ? `module at ${p.coveredBy}` : '' }])
   }
-  return { table: { headerRows: 1, dontBreakRows: true, widths: [50, 60, 150, 120, 80, 60, 60], body }, layout: TABLE_LAYOUT }
+  return { table: { headerRows: 1, dontBreakRows: true, widths: [50, 60, 140, 110, 70, 50, 50, '*'], body }, layout: TABLE_LAYOUT }
 }
 
 /** The BOM as PDF bytes. Fonts come from the caller (server asset or node_modules). */
-export async function bomToPdf(snapshot: BomSnapshot, fonts: PdfFonts, purchase: BomPurchase = {}): Promise<Buffer> {
+export async function bomToPdf(full: BomSnapshot, fonts: PdfFonts, purchase: BomPurchase = {}, options: { openOnly?: boolean } = {}): Promise<Buffer> {
+  // Purchasing's open-lines view: lines not yet received, ordered by supplier.
+  const snapshot = options.openOnly ? openLinesBySupplier(full, purchase) : full
   const title = `Bill of materials: ${snapshot.designName}`
   const released = `released ${formatDateTime(snapshot.releasedAt)} by ${snapshot.releasedBy}`
   const summary: TableCell[][] = [

@@ -4,6 +4,16 @@
 import ExcelJS from 'exceljs'
 import type { BomLine, BomPurchase, BomSnapshot } from '../../shared/bom/types'
 import { neutraliseFormula } from '../../shared/bom/formula-safety'
+import { diffBoms } from '../../shared/bom/diff'
+import { gateMark } from '../../shared/bom/gates'
+import { openLinesBySupplier, stockShortfall } from '../../shared/bom/purchase'
+
+export interface BomXlsxOptions {
+  /** the previous release: adds the "Changes" sheet */
+  previous?: BomSnapshot | null
+  /** only lines not yet received, ordered by supplier */
+  openOnly?: boolean
+}
 
 type CellValue = string | number | null | { formula: string, result: number }
 
@@ -56,6 +66,8 @@ function bomColumns(currency: string, letter: (key: string) => string): Record<s
     moq: { header: 'MOQ [pcs]', width: 10, numFmt: QTY, value: l => l.moq },
     leadTime: { header: 'Lead time [days]', width: 10, numFmt: '0', value: l => l.leadTimeDays },
     stock: { header: 'Stock [pcs]', width: 10, numFmt: QTY, value: l => l.stock },
+    stockShort: { header: 'Short of stock [pcs]', width: 10, numFmt: QTY, value: l => stockShortfall(l) || null },
+    approval: { header: 'Approval / lifecycle check', width: 36, value: l => text(gateMark(l)) },
     lifecycle: { header: 'Lifecycle', width: 10, value: l => text(l.lifecycle) },
     supplier: { header: 'Catalogue supplier', width: 22, value: l => text(l.supplier) },
     purchaseSupplier: { header: 'Ordered from', width: 22, value: (_l, p) => text(p?.supplier) },
@@ -65,6 +77,10 @@ function bomColumns(currency: string, letter: (key: string) => string): Record<s
       value: (l, p, row) => p?.quotedUnitPrice == null ? null : { formula: `${letter('quantityOrder')}${row}*${letter('quotedUnitPrice')}${row}`, result: money(p.quotedUnitPrice * l.quantityOrder) },
     },
     orderReference: { header: 'Order reference', width: 18, value: (_l, p) => text(p?.orderReference) },
+    quoteCurrency: { header: 'Quote currency', width: 9, value: (l, p) => p?.quotedUnitPrice == null ? null : text(p?.quoteCurrency ?? l.currency) },
+    status: { header: 'Purchasing status', width: 12, value: (_l, p) => text(p?.status ?? 'to-quote') },
+    statusDate: { header: 'Status since', width: 12, value: (_l, p) => text(p?.status ? p.statusDates?.[p.status] : null) },
+    promisedDelivery: { header: 'Promised delivery', width: 12, value: (_l, p) => text(p?.promisedDelivery) },
     notes: { header: 'Notes', width: 40, value: l => text((l.warnings ?? []).join('; ')) },
   }
 }
@@ -73,6 +89,7 @@ const COLUMN_ORDER = [
   'line', 'manufacturer', 'partNumber', 'description', 'category', 'references', 'quantityPerUnit', 'quantityBuild',
   'quantitySpares', 'quantityOrder', 'priceBreak', 'unitPrice', 'currency', 'extendedPrice', 'moq', 'leadTime', 'stock',
   'lifecycle', 'supplier', 'purchaseSupplier', 'quotedUnitPrice', 'quotedExtended', 'orderReference', 'notes',
+  'stockShort', 'approval', 'quoteCurrency', 'status', 'statusDate', 'promisedDelivery',
 ] as const
 
 /** Column letter of the 1-based column number (1 → A, 27 → AA). */
@@ -182,16 +199,30 @@ function addDesignSheet(workbook: ExcelJS.Workbook, snapshot: BomSnapshot): void
 
 function addPositionsSheet(workbook: ExcelJS.Workbook, snapshot: BomSnapshot): void {
   const sheet = workbook.addWorksheet('Positions', { views: [{ state: 'frozen', ySplit: 1 }] })
-  sheet.columns = [{ width: 10 }, { width: 12 }, { width: 26 }, { width: 22 }, { width: 14, style: { numFmt: QTY } }, { width: 11, style: { numFmt: QTY } }, { width: 11, style: { numFmt: QTY } }]
-  styleHeader(sheet.addRow(['Side', 'Position', 'Manufacturer', 'Part number', 'Per converter set [pcs]', 'In series [pcs]', 'In parallel [pcs]']))
+  sheet.columns = [{ width: 10 }, { width: 12 }, { width: 26 }, { width: 22 }, { width: 14, style: { numFmt: QTY } }, { width: 11, style: { numFmt: QTY } }, { width: 11, style: { numFmt: QTY } }, { width: 18 }]
+  styleHeader(sheet.addRow(['Side', 'Position', 'Manufacturer', 'Part number', 'Per converter set [pcs]', 'In series [pcs]', 'In parallel [pcs]', 'Covered by']))
   for (const p of snapshot.positions) {
-    sheet.addRow([text(p.side), text(p.position), text(p.manufacturer), text(p.partNumber), p.perConverter, p.seriesCount, p.parallelCount])
+    sheet.addRow([text(p.side), text(p.position), text(p.manufacturer), text(p.partNumber), p.perConverter, p.seriesCount, p.parallelCount, text(p.coveredBy ? `module at ${p.coveredBy}` : null)])
   }
-  sheet.autoFilter = { from: { row: 1, column: 1 }, to: { row: Math.max(snapshot.positions.length + 1, 1), column: 7 } }
+  sheet.autoFilter = { from: { row: 1, column: 1 }, to: { row: Math.max(snapshot.positions.length + 1, 1), column: 8 } }
+}
+
+/** "Changes": the line-by-line comparison with the previous release (added, removed, quantity and price changes). */
+function addChangesSheet(workbook: ExcelJS.Workbook, snapshot: BomSnapshot, previous: BomSnapshot): void {
+  const sheet = workbook.addWorksheet('Changes', { views: [{ state: 'frozen', ySplit: 1 }] })
+  sheet.columns = [{ width: 10 }, { width: 24 }, { width: 22 }, { width: 20 }, { width: 14 }, { width: 14 }, { width: 60 }]
+  styleHeader(sheet.addRow([`Change (rev ${previous.revision} → ${snapshot.revision})`, 'Manufacturer', 'Part number', 'Field', 'Before', 'After', 'Summary']))
+  const changes = diffBoms(previous, snapshot)
+  for (const c of changes) {
+    if (c.fields.length === 0) sheet.addRow([c.change, text(c.manufacturer), text(c.partNumber), null, null, null, text(c.summary)])
+    for (const f of c.fields) sheet.addRow([c.change, text(c.manufacturer), text(c.partNumber), f.field, typeof f.previous === 'number' ? f.previous : text(f.previous), typeof f.next === 'number' ? f.next : text(f.next), text(c.summary)])
+  }
+  if (changes.length === 0) sheet.addRow(['none', null, null, null, null, null, 'No line changed since the previous release.'])
 }
 
 /** The workbook as bytes. `purchase` (by line key) adds supplier, quote and order reference. */
-export async function bomToXlsx(snapshot: BomSnapshot, purchase: BomPurchase = {}): Promise<Buffer> {
+export async function bomToXlsx(full: BomSnapshot, purchase: BomPurchase = {}, options: BomXlsxOptions = {}): Promise<Buffer> {
+  const snapshot = options.openOnly ? openLinesBySupplier(full, purchase) : full
   const workbook = new ExcelJS.Workbook()
   const released = new Date(snapshot.releasedAt)
   const when = Number.isNaN(released.getTime()) ? new Date() : released
@@ -208,6 +239,7 @@ export async function bomToXlsx(snapshot: BomSnapshot, purchase: BomPurchase = {
   addBomSheet(workbook, snapshot, purchase)
   addDesignSheet(workbook, snapshot)
   addPositionsSheet(workbook, snapshot)
+  if (options.previous) addChangesSheet(workbook, full, options.previous)
   const bytes = await workbook.xlsx.writeBuffer()
   return Buffer.from(bytes as ArrayBuffer)
 }

@@ -2,7 +2,8 @@
 // Both compute on the worker-thread pool of whichever instance took the job.
 import type { BomSnapshot } from '#shared/bom/types'
 import type { TradeStudyInput } from '#shared/schemas/trade-study'
-import { bomFile, loadBom, purchaseOf } from '../services/bom'
+import type { Role } from '#shared/roles'
+import { bomFile, bomForRole, loadBom, purchaseOf } from '../services/bom'
 import { runTradeStudy } from '../services/trade-study'
 import { jobProgress, type JobRow } from './jobs'
 
@@ -16,10 +17,11 @@ export async function tradeStudyJob(job: JobRow) {
 export const jobFileKey = (jobId: string) => `jobs:${jobId}.pdf`
 
 export async function bomPdfJob(job: JobRow) {
-  const { bomId } = job.input as { bomId: number }
-  const bom = await loadBom(bomId)
+  const { bomId, role, openOnly } = job.input as { bomId: number, role?: Role, openOnly?: boolean }
+  // the fields the person who queued it may see (jobs made before roles travelled: the most restricted view)
+  const bom = bomForRole(await loadBom(bomId), await purchaseOf(bomId), role ?? 'viewer')
   await jobProgress(job.id, 0.1, `Rendering ${(bom.snapshot as BomSnapshot).lines.length} lines`)
-  const file = await bomFile(bom.snapshot as BomSnapshot, 'pdf', await purchaseOf(bomId))
+  const file = await bomFile(bom.snapshot as BomSnapshot, 'pdf', { purchase: bom.purchase, openOnly })
   await useStorage('uploads').setItemRaw(jobFileKey(job.id), file.content)
   return { filename: file.filename, bytes: file.content.length, contentType: 'application/pdf' }
 }

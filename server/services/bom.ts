@@ -1,15 +1,17 @@
 // Bills of materials: the live draft from a design's part assignments, and released snapshots that
 // never change afterwards (a new release is a new revision with the changes listed).
 import type { H3Event } from 'h3'
-import { desc, eq } from 'drizzle-orm'
-import { buildBomSnapshot, diffBoms, type BomBuildInput, type CapacitorFill, type PositionFill } from '#shared/bom/build'
-import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
+import { and, desc, eq, sql } from 'drizzle-orm'
+import { buildBomSnapshot, diffBoms, unacknowledgedLines, type BomBuildInput, type CapacitorFill, type CoveredPosition, type PositionFill } from '#shared/bom/build'
+import { packGroup, type GroupMember } from '#shared/bom/coverage'
+import type { BomLine, BomPurchase, BomSnapshot } from '#shared/bom/types'
 import { slotsPerPackage } from '#shared/catalog/matching'
-import { legLayout, topologyById, type DesignInput } from '#shared/engine'
+import { sees, type Role } from '#shared/roles'
+import { topologyById, type DesignInput } from '#shared/engine'
 import type { BomSettings } from '#shared/schemas/design'
 import { formatSi } from '#shared/utils/si'
 import demo from '../db/demo-accounts.json'
-import { matchDesign, type PositionMatch } from './parts'
+import { legPositions, matchDesign, type PositionMatch } from './parts'
 import { renderBomPdf } from '../workers/pool'
 import { bomToXlsx } from '../exports/bom-xlsx'
 import { loadFonts } from '../exports/pdf'
@@ -33,68 +35,72 @@ function describePart(p: PositionMatch) {
     lifecycle: a.lifecycle,
     supplier: a.supplier ?? null,
     partVersionId: p.assigned!.partVersionId,
+    approved: p.assigned!.approved,
   }
 }
 
-/** The BOM input from the assignments: semiconductors per position, capacitor banks, hand-added lines. */
-export function bomInputFrom(positions: PositionMatch[], settings: BomSettings, design: DesignInput): { input: BomBuildInput, missing: string[] } {
+/** The BOM input from the assignments: semiconductors per position (modules once), capacitor banks, hand-added lines. */
+export function bomInputFrom(positions: PositionMatch[], settings: BomSettings, design: DesignInput): { input: BomBuildInput, missing: string[], stale: string[] } {
   const missing: string[] = []
-  const covered = coveredDiodes(positions, design)
+  const stale: string[] = []
   const fills: PositionFill[] = []
-  const banks = new Map<string, CapacitorFill>()
+  const covered: CoveredPosition[] = []
+  const banks: CapacitorFill[] = []
+  // Semiconductors grouped by side and part version: one group is one set of packages (packGroup).
+  const groups = new Map<string, PositionMatch[]>()
   for (const p of positions) {
     if (!p.assigned) { missing.push(`${p.side} ${p.position}`); continue }
-    if (covered.has(`${p.side}:${p.position}`)) continue
+    if (p.assigned.review.stale) stale.push(`${p.side} ${p.position}`)
     const a = p.assigned
     if (p.duty.kind === 'capacitor') {
-      // Back-to-back: both converters share one DC link, so a DC-link capacitor position is bought once (the larger bank).
-      const shared = p.label.startsWith('dc-link')
-      const key = shared ? `dc-link:${p.position}` : `${p.side}:${p.position}`
-      const perConverter = a.evaluation?.packagesPerConverter ?? p.duty.positionsPerPhase * a.seriesCount * a.parallelCount
-      const previous = banks.get(key)
-      if (!previous || previous.count < perConverter) banks.set(key, { ...describePart(p), side: shared ? 'dc-link' : p.side, position: p.position, count: perConverter })
+      // The bank as assigned: positions × series × parallel (a 2s×14p bank is 28 pieces per position).
+      banks.push({ ...describePart(p), side: p.side, position: p.position, count: p.duty.positionsPerPhase * a.seriesCount * a.parallelCount, seriesCount: a.seriesCount, parallelCount: a.parallelCount })
       continue
     }
+    const key = `${p.side}|${a.partVersionId}`
+    groups.set(key, [...(groups.get(key) ?? []), p])
+  }
+  for (const members of groups.values()) {
+    const first = members[0]!
+    const part = first.assigned!.part
+    const leg = new Map(legPositions(design, first.side).map(l => [l.name, l]))
+    const packed = packGroup(part, members.map(m => ({
+      position: m.position,
+      kind: m.duty.kind as GroupMember['kind'],
+      countPerPhase: m.duty.positionsPerPhase,
+      seriesCount: m.assigned!.seriesCount,
+      parallelCount: m.assigned!.parallelCount,
+      ...(leg.get(m.position)?.antiParallelTo ? { antiParallelTo: leg.get(m.position)!.antiParallelTo } : {}),
+      coveredBy: m.assigned!.coveredBy,
+    })), first.duty.phases, kind => slotsPerPackage(part, kind))
+    const host = members.find(m => m.position === packed.host)!
     fills.push({
-      ...describePart(p),
-      side: p.side,
-      position: p.position,
-      positionsPerPhase: p.duty.positionsPerPhase,
-      phases: p.duty.phases,
-      perPackage: Math.max(1, a.evaluation?.slotsPerPackage ?? slotsPerPackage(a.part, p.duty.kind)),
-      seriesCount: a.seriesCount,
-      parallelCount: a.parallelCount,
+      ...describePart(host),
+      side: host.side,
+      position: host.position,
+      positionsPerPhase: host.duty.positionsPerPhase,
+      phases: host.duty.phases,
+      perPackage: Math.max(1, slotsPerPackage(part, host.duty.kind)),
+      seriesCount: host.assigned!.seriesCount,
+      parallelCount: host.assigned!.parallelCount,
+      packagesPerConverter: packed.packagesPerConverter,
+      ...(packed.unusedSlots.length ? { unusedSlots: packed.unusedSlots } : {}),
     })
+    for (const c of packed.covered) covered.push({ side: host.side, position: c.position, coveredBy: c.coveredBy, partNumber: part.partNumber, manufacturer: part.manufacturer })
   }
   return {
     input: {
       positions: fills,
-      capacitors: [...banks.values()],
+      capacitors: banks,
+      covered,
       manualLines: settings.manualLines.map(l => ({ ...l, partNumber: l.partNumber || null, manufacturer: l.manufacturer || null })),
       buildQuantity: settings.buildQuantity,
       sparesPercent: settings.sparesPercent,
       currency: 'EUR',
     },
     missing,
+    stale,
   }
-}
-
-/**
- * Anti-parallel diode positions that sit in their switch's own package: the diode position is assigned
- * the same switch-with-diode part as its switch, so the switch's line already buys it.
- */
-export function coveredDiodes(positions: PositionMatch[], design: DesignInput): Set<string> {
-  const covered = new Set<string>()
-  for (const [side, converter] of [['machine', design.machineSide], ['grid', design.gridSide]] as const) {
-    if (!converter) continue
-    for (const item of legLayout(converter.topology, converter.levels).items) {
-      if (!item.antiParallelTo) continue
-      const diode = positions.find(p => p.side === side && p.position === item.name)?.assigned
-      const sw = positions.find(p => p.side === side && p.position === item.antiParallelTo)?.assigned
-      if (diode && sw && diode.partVersionId === sw.partVersionId && diode.part.kind === 'switch-diode') covered.add(`${side}:${item.name}`)
-    }
-  }
-  return covered
 }
 
 function designSummary(input: DesignInput): BomSnapshot['designSummary'] {
@@ -116,11 +122,26 @@ export function topologySummary(input: DesignInput) {
   return input.gridSide ? `${one}, back-to-back` : one
 }
 
-/** The live BOM of a design (not saved), with the positions still missing a part. */
+/** Recorded acknowledgements of gated lines, by line key. */
+export async function acknowledgementsOf(designId: number) {
+  const rows = await useDb().select().from(tables.bomAcknowledgements).where(eq(tables.bomAcknowledgements.designId, designId))
+  return new Map(rows.map(r => [r.lineKey, r]))
+}
+
+/** Puts each recorded acknowledgement on its gated line (only for the part version it was given for). */
+function applyAcknowledgements(lines: BomLine[], acks: Awaited<ReturnType<typeof acknowledgementsOf>>) {
+  for (const line of lines) {
+    if (!line.gate?.length) continue
+    const ack = acks.get(line.key)
+    line.acknowledgement = ack && ack.partVersionId === line.partVersionId ? { reason: ack.reason, by: ack.acknowledgedByName, at: ack.acknowledgedAt.toISOString() } : null
+  }
+}
+
+/** The live BOM of a design (not saved), with what still blocks its release. */
 export async function draftBom(designId: number, releasedBy = '') {
   const { design, positions } = await matchDesign(designId)
   const settings = design.bomSettings as BomSettings
-  const { input, missing } = bomInputFrom(positions, settings, design.input as DesignInput)
+  const { input, missing, stale } = bomInputFrom(positions, settings, design.input as DesignInput)
   const [last] = await useDb().select({ revision: boms.revision }).from(boms).where(eq(boms.designId, designId)).orderBy(desc(boms.revision)).limit(1)
   const snapshot = buildBomSnapshot({
     company: demo.company,
@@ -134,7 +155,11 @@ export async function draftBom(designId: number, releasedBy = '') {
     designSummary: designSummary(design.input as DesignInput),
     safetyNote: SAFETY_NOTE,
   }, input)
-  return { design, settings, snapshot, missing }
+  applyAcknowledgements(snapshot.lines, await acknowledgementsOf(designId))
+  const unacknowledged = unacknowledgedLines(snapshot.lines).map(l => ({ key: l.key, partNumber: l.partNumber, gate: l.gate! }))
+  const previous = last ? await latestRelease(designId) : null
+  const changes = previous ? diffBoms(previous.snapshot as BomSnapshot, snapshot) : null
+  return { design, settings, snapshot, missing, stale, unacknowledged, changes }
 }
 
 export async function latestRelease(designId: number) {
@@ -144,7 +169,22 @@ export async function latestRelease(designId: number) {
 
 export async function purchaseOf(bomId: number): Promise<BomPurchase> {
   const rows = await useDb().select().from(tables.bomPurchaseLines).where(eq(tables.bomPurchaseLines.bomId, bomId))
-  return Object.fromEntries(rows.map(r => [r.lineKey, { supplier: r.supplier, quotedUnitPrice: r.quotedUnitPrice, orderReference: r.orderReference }]))
+  return Object.fromEntries(rows.map(r => [r.lineKey, {
+    supplier: r.supplier,
+    quotedUnitPrice: r.quotedUnitPrice,
+    quoteCurrency: r.quoteCurrency,
+    orderReference: r.orderReference,
+    status: r.status as NonNullable<BomPurchase[string]['status']>,
+    statusDates: r.statusDates,
+    promisedDelivery: r.promisedDelivery,
+  }]))
+}
+
+/** A released BOM as one role may see it: purchasing's private fields only for the roles restrictedFields names. */
+export function bomForRole<T extends { snapshot: unknown }>(bom: T, purchase: BomPurchase, role: Role): T & { purchase: BomPurchase } {
+  if (sees(role, 'purchase')) return { ...bom, purchase }
+  const snapshot = bom.snapshot as BomSnapshot
+  return { ...bom, snapshot: { ...snapshot, lines: snapshot.lines.map(({ supplier: _supplier, ...line }) => ({ ...line, supplier: null })) }, purchase: {} }
 }
 
 export async function pdfFonts() {
@@ -155,16 +195,29 @@ function bomFileName(snapshot: BomSnapshot, format: 'xlsx' | 'pdf') {
   return `BOM-${snapshot.designName.replace(/[^\w-]+/g, '_').slice(0, 40)}-rev${snapshot.revision}.${format}`
 }
 
+export interface BomFileOptions {
+  /** purchasing's entries by line key */
+  purchase?: BomPurchase
+  /** the previous release, for the changes sheet */
+  previous?: BomSnapshot | null
+  /** only lines not yet received, grouped by supplier (purchasing's open-lines view) */
+  openOnly?: boolean
+}
+
 /** One export of a BOM: Excel workbook or PDF. */
-export async function bomFile(snapshot: BomSnapshot, format: 'xlsx' | 'pdf', purchase: BomPurchase = {}) {
-  const content = format === 'xlsx' ? await bomToXlsx(snapshot, purchase) : await renderBomPdf(snapshot, purchase)
+export async function bomFile(snapshot: BomSnapshot, format: 'xlsx' | 'pdf', options: BomFileOptions = {}) {
+  const purchase = options.purchase ?? {}
+  // PDFs render on the worker-thread pool (server/workers)
+  const content = format === 'xlsx' ? await bomToXlsx(snapshot, purchase, options) : await renderBomPdf(snapshot, purchase, { openOnly: options.openOnly })
   return { filename: bomFileName(snapshot, format), content }
 }
 
-/** Answers a download of a released BOM. */
-export async function sendBomFile(event: H3Event, id: number, format: 'xlsx' | 'pdf') {
-  const bom = await loadBom(id)
-  const file = await bomFile(bom.snapshot as BomSnapshot, format, await purchaseOf(id))
+/** Answers a download of a released BOM, with purchasing's fields only for the roles that see them. */
+export async function sendBomFile(event: H3Event, id: number, format: 'xlsx' | 'pdf', role: Role, openOnly = false) {
+  const row = await loadBom(id)
+  const bom = bomForRole(row, await purchaseOf(id), role)
+  const previous = await previousRelease(row.designId, row.revision)
+  const file = await bomFile(bom.snapshot as BomSnapshot, format, { purchase: bom.purchase, previous: previous?.snapshot as BomSnapshot | undefined, openOnly })
   setResponseHeaders(event, {
     'Content-Type': format === 'pdf' ? 'application/pdf' : 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
     'Content-Disposition': `attachment; filename="${file.filename}"`,
@@ -172,37 +225,100 @@ export async function sendBomFile(event: H3Event, id: number, format: 'xlsx' | '
   return file.content
 }
 
-/** Releases the draft as an immutable snapshot and mails purchasing with both files attached. */
-export async function releaseBom(designId: number, user: { id: number, name: string }) {
-  const { snapshot, missing } = await draftBom(designId, user.name)
+export async function previousRelease(designId: number, revision: number) {
+  const [row] = await useDb().select().from(boms).where(and(eq(boms.designId, designId), sql`${boms.revision} < ${revision}`)).orderBy(desc(boms.revision)).limit(1)
+  return row ?? null
+}
+
+function refuse(statusCode: number, message: string, data: Record<string, unknown>): never {
+  throw createError({ statusCode, message, data })
+}
+
+/**
+ * Releases the draft as an immutable snapshot, once: the design row is locked for the release, so two
+ * releases of the same draft (double click, two tabs) commit one revision and the other answers 409.
+ * The mail to purchasing is written to the outbox in the same transaction and sent by the outbox worker
+ * (server/services/outbox.ts), so a crash after the commit still mails purchasing.
+ * `expectedRevision`: the BOM revision the releasing page showed as the draft.
+ */
+export async function releaseBom(designId: number, user: { id: number, name: string }, expectedRevision?: number) {
+  const { snapshot, missing, stale, unacknowledged } = await draftBom(designId, user.name)
   if (missing.length) {
-    throw createError({ statusCode: 422, message: `Assign a part to every position before releasing: ${missing.slice(0, 8).join(', ')}${missing.length > 8 ? ` and ${missing.length - 8} more` : ''}.`, data: { missing } })
+    refuse(422, `Assign a part to every position before releasing: ${missing.slice(0, 8).join(', ')}${missing.length > 8 ? ` and ${missing.length - 8} more` : ''}.`, { missing })
+  }
+  if (stale.length) {
+    refuse(422, `These assignments were rated against an older design revision and no longer fit: ${stale.join(', ')}. Re-assign them with new counts or confirm them.`, { stale })
+  }
+  if (unacknowledged.length) {
+    refuse(422, `These lines hold parts that are not approved, not recommended or obsolete: ${unacknowledged.map(l => `${l.partNumber} (${l.gate.join(', ')})`).join('; ')}. Replace each part or acknowledge it with a reason.`, { unacknowledged })
+  }
+  if (expectedRevision !== undefined && expectedRevision !== snapshot.revision) {
+    refuse(409, `Revision ${snapshot.revision - 1} was released meanwhile; reload the BOM to see it.`, { revision: snapshot.revision - 1 })
   }
   const db = useDb()
   const released = await db.transaction(async (tx) => {
-    const [previous] = await tx.select().from(boms).where(eq(boms.designId, designId)).orderBy(desc(boms.revision)).limit(1).for('update')
-    const revision = (previous?.revision ?? 0) + 1
-    const final = { ...snapshot, revision }
-    const changes = previous ? diffBoms(previous.snapshot as BomSnapshot, final) : null
-    const [row] = await tx.insert(boms).values({ designId, revision, designRevision: snapshot.designRevision, status: 'released', snapshot: final, changes, releasedBy: user.id }).returning()
+    // One release per design at a time: the second waits here, then finds the revision taken.
+    const [locked] = await tx.select({ revision: tables.designs.revision }).from(tables.designs).where(eq(tables.designs.id, designId)).for('update')
+    if (!locked) refuse(404, 'No such design.', {})
+    if (locked.revision !== snapshot.designRevision) refuse(409, `The design changed (revision ${locked.revision}) while releasing; reload the BOM.`, { designRevision: locked.revision })
+    const [previous] = await tx.select().from(boms).where(eq(boms.designId, designId)).orderBy(desc(boms.revision)).limit(1)
+    if ((previous?.revision ?? 0) + 1 !== snapshot.revision) refuse(409, `Revision ${previous!.revision} of this BOM was just released; reload to see it.`, { revision: previous!.revision })
+    const changes = previous ? diffBoms(previous.snapshot as BomSnapshot, snapshot) : null
+    const [row] = await tx.insert(boms).values({ designId, revision: snapshot.revision, designRevision: snapshot.designRevision, status: 'released', snapshot, changes, releasedBy: user.id }).returning()
+    await tx.insert(tables.mailOutbox).values({
+      kind: 'bom-released',
+      to: useRuntimeConfig().purchasingEmail,
+      subject: `BOM released: ${snapshot.designName}, revision ${snapshot.revision}`,
+      payload: { bomId: row!.id, releasedBy: user.name },
+    })
     return row!
+  }).catch((err: unknown) => {
+    // Two first releases race past the lock on no previous row: the unique (design, revision) index decides.
+    const code = (err as { code?: string, cause?: { code?: string } }).code ?? (err as { cause?: { code?: string } }).cause?.code
+    if (code === '23505') refuse(409, 'This revision of the BOM was just released by another request; reload to see it.', {})
+    throw err
   })
-  const s = released.snapshot as BomSnapshot
-  const files = { xlsx: await bomFile(s, 'xlsx'), pdf: await bomFile(s, 'pdf') }
-  const mailSent = await sendMail({
-    to: useRuntimeConfig().purchasingEmail,
-    subject: `BOM released: ${s.designName}, revision ${s.revision}`,
-    text: `${user.name} released revision ${s.revision} of the bill of materials for "${s.designName}" (design revision ${s.designRevision}).\n\n${s.totals.lines} lines, ${s.totals.pieces} pieces, ${s.totals.extendedPrice.toLocaleString('en', { maximumFractionDigits: 2 })} ${s.currency} at catalogue prices for ${s.buildQuantity} sets.\n\nOpen it: ${appUrl(`/boms/${released.id}`)}\n\nThe Excel and PDF files are attached.\n\n${SAFETY_NOTE}\n`,
+  return { bom: released, mailQueued: true }
+}
+
+/** The release mail of a BOM, built when the outbox sends it (the snapshot never changes). */
+export async function releaseMail(bomId: number, releasedBy: string) {
+  const row = await loadBom(bomId)
+  const s = row.snapshot as BomSnapshot
+  const previous = await previousRelease(row.designId, row.revision)
+  const files = { xlsx: await bomFile(s, 'xlsx', { previous: previous?.snapshot as BomSnapshot | undefined }), pdf: await bomFile(s, 'pdf') }
+  const gated = s.lines.filter(l => l.gate?.length)
+  return {
+    text: `${releasedBy} released revision ${s.revision} of the bill of materials for "${s.designName}" (design revision ${s.designRevision}).\n\n${s.totals.lines} lines, ${s.totals.pieces} pieces, ${s.totals.extendedPrice.toLocaleString('en', { maximumFractionDigits: 2 })} ${s.currency} at catalogue prices for ${s.buildQuantity} sets.${gated.length ? `\n\n${gated.length} line(s) hold parts that are not approved, not recommended or obsolete, released with a design engineer's recorded reason (marked in the files).` : ''}\n\nOpen it: ${appUrl(`/boms/${row.id}`)}\n\nThe Excel and PDF files are attached.\n\n${SAFETY_NOTE}\n`,
     attachments: [
       { filename: files.xlsx.filename, content: files.xlsx.content, contentType: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet' },
       { filename: files.pdf.filename, content: files.pdf.content, contentType: 'application/pdf' },
     ],
-  })
-  return { bom: released, mailSent }
+  }
 }
 
 export async function loadBom(id: number) {
   const [row] = await useDb().select().from(boms).where(eq(boms.id, id))
   if (!row) throw createError({ statusCode: 404, message: 'No such bill of materials.' })
   return row
+}
+
+/** Released and draft BOMs that use a part (any version of it): what component engineers see before changing its approval or lifecycle. */
+export async function bomsUsingPart(partId: number) {
+  const db = useDb()
+  const [part] = await db.select().from(tables.parts).where(eq(tables.parts.id, partId))
+  if (!part) throw createError({ statusCode: 404, message: 'No such part.' })
+  const key = `${part.manufacturer.trim().toUpperCase()}|${part.partNumber.trim().toUpperCase()}`
+  const released = await db.execute<{ id: number, design_id: number, design_name: string, revision: number, status: string, quantity_order: number }>(sql`
+    select b.id, b.design_id, d.name as design_name, b.revision, b.status, (l->>'quantityOrder')::int as quantity_order
+    from boms b join designs d on d.id = b.design_id, jsonb_array_elements(b.snapshot->'lines') l
+    where l->>'key' = ${key} order by d.name, b.revision`)
+  const drafts = await db.execute<{ design_id: number, design_name: string, positions: string[] }>(sql`
+    select d.id as design_id, d.name as design_name, array_agg(a.side || ' ' || a.position order by a.side, a.position) as positions
+    from part_assignments a join part_versions v on v.id = a.part_version_id join designs d on d.id = a.design_id
+    where v.part_id = ${partId} group by d.id, d.name order by d.name`)
+  return {
+    released: [...released].map(r => ({ bomId: r.id, designId: r.design_id, designName: r.design_name, revision: r.revision, status: r.status, quantityOrder: r.quantity_order })),
+    drafts: [...drafts].map(r => ({ designId: r.design_id, designName: r.design_name, positions: r.positions })),
+  }
 }

@@ -1,16 +1,18 @@
 // Part matching for a design: every position's duty from the engine, the catalogue parts that meet
-// it, and the parts the engineer assigned (each pinned to the part version it was matched with).
-import { eq } from 'drizzle-orm'
-import { evaluateDesign } from '#shared/engine'
-import type { DesignInput, DesignResult } from '#shared/engine/types'
-import { indexParts, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, whyNothingFits, type Candidate, type MatchPolicy, type PartIndex, type PositionDuty } from '#shared/catalog/matching'
+// it, and the parts the engineer assigned (each pinned to the part version it was matched with and to
+// the design revision its counts were rated against).
+import { eq, inArray } from 'drizzle-orm'
+import { evaluateDesign, legLayout } from '#shared/engine'
+import type { CapacitorEnvelope, DesignInput, DesignResult } from '#shared/engine/types'
+import { approvalRank, indexParts, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, rateAssignment, whyNothingFits, type Candidate, type MatchPolicy, type PositionDuty } from '#shared/catalog/matching'
+import { moduleCoverage, type LegPosition } from '#shared/bom/coverage'
 import type { CatalogPart } from '#shared/catalog/types'
 import type { BomSettings } from '#shared/schemas/design'
-import { runInPool } from '../workers/pool'
-import { currentCatalog, partVersionsById } from './catalog'
+import { currentParts, partVersionsById } from './catalog'
 import { loadDesign } from './designs'
 
-export type Side = 'machine' | 'grid'
+/** 'dc-link' = the DC link a back-to-back pair shares (one bank for both converters). */
+export type Side = 'machine' | 'grid' | 'dc-link'
 
 export interface DesignPosition {
   side: Side
@@ -19,15 +21,59 @@ export interface DesignPosition {
   label: string
 }
 
-/** All positions of a design (devices and capacitors of each converter) as matching duties. */
+/**
+ * Where a capacitor bank sits: the engine's explicit `side` / `role` when it gives them; otherwise
+ * derived here, the one place: in a back-to-back design both converters' DC-link capacitors are the
+ * same physical link, so they form one shared bank on side 'dc-link' (bought once).
+ */
+export function capacitorSide(converterSide: 'machine' | 'grid', cap: CapacitorEnvelope, backToBack: boolean): Side {
+  const explicit = (cap as CapacitorEnvelope & { side?: Side }).side
+  if (explicit) return explicit
+  const role = (cap as CapacitorEnvelope & { role?: string }).role ?? cap.kind
+  return backToBack && role === 'dc-link' ? 'dc-link' : converterSide
+}
+
+/**
+ * Shared-link duty from both converters' duties of the same capacitor position: the higher voltage and
+ * capacitance, and the sum of the ripple currents (an upper bound: both ripples in phase; the engine's
+ * own shared-link model replaces this when it gives the bank with side 'dc-link').
+ */
+function mergeSharedDuty(a: PositionDuty, b: PositionDuty): PositionDuty {
+  const ripple = (a.requiredRippleRating ?? a.currentRms) + (b.requiredRippleRating ?? b.currentRms)
+  return {
+    ...a,
+    requiredVoltageRating: Math.max(a.requiredVoltageRating, b.requiredVoltageRating),
+    requiredRippleRating: ripple,
+    currentRms: a.currentRms + b.currentRms,
+    currentPeak: a.currentPeak + b.currentPeak,
+    blockingVoltage: Math.max(a.blockingVoltage, b.blockingVoltage),
+    positionsPerPhase: Math.max(a.positionsPerPhase, b.positionsPerPhase),
+    ...((a.capacitanceRequired ?? b.capacitanceRequired) !== undefined ? { capacitanceRequired: Math.max(a.capacitanceRequired ?? 0, b.capacitanceRequired ?? 0) } : {}),
+  }
+}
+
+/** All positions of a design (devices and capacitors of each converter, a shared DC link once) as matching duties. */
 export function designPositions(input: DesignInput, result: DesignResult = withEngine(() => evaluateDesign(input))): DesignPosition[] {
   const out: DesignPosition[] = []
+  const backToBack = !!input.gridSide
+  const shared = new Map<string, DesignPosition>()
   for (const converter of result.converters) {
-    const side = converter.side as Side
+    const side = converter.side as 'machine' | 'grid'
     const c = side === 'grid' ? input.gridSide! : input.machineSide
     const ctx = { switchingHz: c.switchingHz, topology: c.topology, levels: c.levels }
     for (const d of converter.envelope.devices) out.push({ side, duty: positionDutyFromDevice(d, ctx), label: `${d.kind} ${d.name}` })
-    for (const cap of converter.envelope.capacitors) out.push({ side, duty: positionDutyFromCapacitor(cap, { topology: c.topology, levels: c.levels }), label: `${cap.kind} capacitor ${cap.name}` })
+    for (const cap of converter.envelope.capacitors) {
+      const capSide = capacitorSide(side, cap, backToBack)
+      const duty = positionDutyFromCapacitor(cap, { topology: c.topology, levels: c.levels })
+      if (capSide !== 'dc-link') { out.push({ side: capSide, duty, label: `${cap.kind} capacitor ${cap.name}` }); continue }
+      const seen = shared.get(cap.name)
+      if (seen) seen.duty = mergeSharedDuty(seen.duty, duty)
+      else {
+        const position: DesignPosition = { side: 'dc-link', duty, label: `shared ${cap.kind} capacitor ${cap.name}` }
+        shared.set(cap.name, position)
+        out.push(position)
+      }
+    }
   }
   return out
 }
@@ -36,84 +82,117 @@ export function matchPolicy(input: DesignInput, result: DesignResult, bom: BomSe
   return { heatsinkTemperatureC: result.derating.heatsinkTemperatureC, junctionMarginC: result.derating.junctionMarginC, buildQuantity: bom.buildQuantity }
 }
 
-type Part = CatalogPart & { partVersionId: number }
+type Part = CatalogPart & { partVersionId: number, approved?: boolean }
+
+/** Devices of one leg of a side, for module coverage. */
+export function legPositions(input: DesignInput, side: Side): LegPosition[] {
+  const c = side === 'grid' ? input.gridSide : side === 'machine' ? input.machineSide : null
+  if (!c) return []
+  return legLayout(c.topology, c.levels).items.filter(i => i.kind !== 'capacitor').map(i => ({ name: i.name, kind: i.kind as LegPosition['kind'], countPerPhase: i.countPerPhase, nodes: i.nodes, ...(i.antiParallelTo ? { antiParallelTo: i.antiParallelTo } : {}) }))
+}
+
+export interface AssignmentReview {
+  /** design revision the stored counts were rated against */
+  ratedRevision: number
+  /** false when the stored series × parallel no longer meet today's duty (or the part no longer fits at all) */
+  fits: boolean
+  /** counts today's duty needs with this part (null when it cannot be sized) */
+  needed: { seriesCount: number, parallelCount: number } | null
+  /** rated against an older revision and no longer fits, not confirmed: blocks release */
+  stale: boolean
+  confirmed: null | { revision: number, reason: string | null }
+}
 
 export interface PositionMatch {
   side: Side
   position: string
   label: string
   duty: PositionDuty
-  candidates: (Candidate & { partVersionId: number, approved: boolean })[]
+  candidates: (Candidate & { partVersionId: number, approved: boolean, covers: string[] })[]
+  /** candidates left out of the default view (not approved, NRND or obsolete); `?show=all` lists them */
+  hiddenCandidates: number
   nothingFits: string | null
+  /** the position whose module also fills this one */
+  coveredBy: string | null
   assigned: null | {
     partVersionId: number
     current: boolean
+    approved: boolean
     seriesCount: number
     parallelCount: number
-    /** the assigned part evaluated against today's duty (null when it no longer fits) */
+    /** the assigned part rated at the stored counts against today's duty (null when it cannot serve it) */
     evaluation: Candidate | null
+    review: AssignmentReview
+    coveredBy: string | null
     part: CatalogPart
   }
 }
 
-/** What matching a design needs besides the catalogue (plain data: it travels to a worker thread). */
-export interface MatchArgs {
-  input: DesignInput
-  bomSettings: BomSettings
-  assignments: { side: string, position: string, partVersionId: number, seriesCount: number, parallelCount: number }[]
-  /** the part versions the assignments are pinned to */
-  pinned: [number, Part][]
-  limit: number
+/** Approval of part versions (by the part they belong to). */
+async function approvalOf(versionIds: number[]) {
+  if (!versionIds.length) return new Map<number, boolean>()
+  const rows = await useDb().select({ id: tables.partVersions.id, approved: tables.parts.approved }).from(tables.partVersions)
+    .innerJoin(tables.parts, eq(tables.parts.id, tables.partVersions.partId)).where(inArray(tables.partVersions.id, versionIds))
+  return new Map(rows.map(r => [r.id, r.approved]))
 }
 
-/** Matches every position against the current parts (pure: runs on a worker thread). */
-export function computeMatches(args: MatchArgs, parts: readonly (Part & { approved: boolean })[], index: PartIndex = indexParts(parts)) {
-  const { input, assignments, limit } = args
+/**
+ * Matches every position of a design; `limit` candidates per position. By default only approved,
+ * active parts are listed (ranked first anyway); `showAll` lists every fitting part, ranked by
+ * approvalRank after the thermal check.
+ */
+export async function matchDesign(designId: number, limit = 40, options: { showAll?: boolean } = {}) {
+  const design = await loadDesign(designId)
+  const input = design.input as DesignInput
   const result = withEngine(() => evaluateDesign(input))
-  const policy = matchPolicy(input, result, args.bomSettings)
-  const pinned = new Map(args.pinned)
+  const policy = matchPolicy(input, result, design.bomSettings as BomSettings)
+  const parts = await currentParts()
+  const assignments = await useDb().select().from(tables.partAssignments).where(eq(tables.partAssignments.designId, designId))
+  const pinned = await partVersionsById(assignments.map(a => a.partVersionId))
+  const approval = await approvalOf(assignments.map(a => a.partVersionId))
   const currentIds = new Set(parts.map(p => p.partVersionId))
+  const index = indexParts(parts)
+  const legs = new Map<Side, LegPosition[]>((['machine', 'grid'] as const).map(s => [s, legPositions(input, s)]))
   const positions: PositionMatch[] = designPositions(input, result).map(({ side, duty, label }) => {
     const m = matchPosition(duty, index, policy)
-    const candidates = m.candidates.slice(0, limit).map(c => ({ ...c, partVersionId: (c.part as Part).partVersionId, approved: (c.part as Part & { approved: boolean }).approved }))
+    const leg = legs.get(side) ?? []
     const a = assignments.find(x => x.side === side && x.position === duty.positionName)
+    const coveredBy = a?.coveredBy ?? null
+    let pool = m.candidates
+    const preferred = pool.filter(c => approvalRank(c.part as Part) === 0)
+    const hiddenCandidates = options.showAll ? 0 : pool.length - preferred.length
+    if (!options.showAll) pool = preferred
+    // A covered position lists its host's module first: its own candidates never rank above it.
+    if (coveredBy && a) pool = [...pool.filter(c => (c.part as Part).partVersionId === a.partVersionId), ...pool.filter(c => (c.part as Part).partVersionId !== a.partVersionId)]
+    const candidates = pool.slice(0, limit).map(c => ({
+      ...c,
+      partVersionId: (c.part as Part).partVersionId,
+      approved: (c.part as Part).approved !== false,
+      covers: duty.kind === 'capacitor' ? [] : (moduleCoverage(c.part, duty.positionName, leg)?.covers ?? []),
+    }))
     let assigned: PositionMatch['assigned'] = null
     if (a) {
       const part = pinned.get(a.partVersionId)!
-      const own = matchPosition(duty, [part], policy).candidates[0] ?? null
-      assigned = { partVersionId: a.partVersionId, current: currentIds.has(a.partVersionId), seriesCount: a.seriesCount, parallelCount: a.parallelCount, evaluation: own, part }
+      const { rated, needed, fits } = rateAssignment(part, duty, policy, a.seriesCount, a.parallelCount)
+      const confirmed = a.confirmedRevision === design.revision ? { revision: a.confirmedRevision, reason: a.confirmedReason } : null
+      const review: AssignmentReview = { ratedRevision: a.designRevision, fits, needed, stale: !fits && a.designRevision < design.revision && !confirmed, confirmed }
+      assigned = { partVersionId: a.partVersionId, current: currentIds.has(a.partVersionId), approved: approval.get(a.partVersionId) ?? false, seriesCount: a.seriesCount, parallelCount: a.parallelCount, evaluation: rated, review, coveredBy, part }
     }
-    return { side, position: duty.positionName, label, duty, candidates, nothingFits: candidates.length ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.'), assigned }
+    const nothingFits = m.candidates.length ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.')
+    return { side, position: duty.positionName, label, duty, candidates, hiddenCandidates, nothingFits, coveredBy, assigned }
   })
-  return { result, policy, positions, summary: lossSummary(input, positions) }
+  return { design, input, result, policy, positions, summary: lossSummary(input, positions) }
 }
 
-/** Matches every position of a design; `limit` candidates per position, best first (on a worker thread). */
-export async function matchDesign(designId: number, limit = 40) {
-  const design = await loadDesign(designId)
-  const input = design.input as DesignInput
-  const catalog = await currentCatalog()
-  const assignments = await useDb().select().from(tables.partAssignments).where(eq(tables.partAssignments.designId, designId))
-  const pinned = await partVersionsById(assignments.map(a => a.partVersionId))
-  const args: MatchArgs = {
-    input,
-    bomSettings: design.bomSettings as BomSettings,
-    assignments: assignments.map(a => ({ side: a.side, position: a.position, partVersionId: a.partVersionId, seriesCount: a.seriesCount, parallelCount: a.parallelCount })),
-    pinned: [...pinned],
-    limit,
-  }
-  const computed = await runInPool<ReturnType<typeof computeMatches>>({ kind: 'match', generation: catalog.generation, args }, { parts: () => catalog.parts })
-  return { design, input, ...computed }
-}
-
-/** Losses, efficiency and cost from the assigned parts, per converter side. */
+/** Losses, efficiency and cost from the assigned parts, per converter side (a shared DC link counts on the machine side). */
 export function lossSummary(input: DesignInput, positions: PositionMatch[]) {
-  const sides: Side[] = input.gridSide ? ['machine', 'grid'] : ['machine']
+  const sides: ('machine' | 'grid')[] = input.gridSide ? ['machine', 'grid'] : ['machine']
   return sides.map((side) => {
-    const own = positions.filter(p => p.side === side)
+    const own = positions.filter(p => p.side === side || (side === 'machine' && p.side === 'dc-link'))
+    // Covered positions are inside their host's package: its losses are counted there, its cost not again.
     const assigned = own.filter(p => p.assigned?.evaluation)
     const lossW = assigned.reduce((s, p) => s + (p.assigned!.evaluation!.losses?.perConverter ?? 0), 0)
-    const cost = assigned.reduce((s, p) => s + (p.assigned!.evaluation!.costPerDesign ?? 0), 0)
+    const cost = assigned.filter(p => !p.assigned!.coveredBy).reduce((s, p) => s + (p.assigned!.evaluation!.costPerDesign ?? 0), 0)
     const c = side === 'grid' ? input.gridSide! : input.machineSide
     const p0 = c.operatingPoints[0]!
     const outputW = Math.sqrt(3) * p0.lineVoltageRms * p0.phaseCurrentRms * Math.abs(p0.powerFactor)

@@ -10,7 +10,7 @@ import { Piscina } from 'piscina'
 import { EngineInputError } from '#shared/engine'
 import { loadFonts, type PdfFonts } from '../exports/pdf'
 import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
-import { runTask, type CatalogPartRow, type Task, type TaskResult } from './tasks'
+import { runTask, type BomPdfOptions, type CatalogPartRow, type Task, type TaskResult } from './tasks'
 
 export const WORKER_FILE = join('workers', 'engine.mjs')
 
@@ -96,8 +96,8 @@ async function pdfResult(value: Uint8Array) {
 }
 
 /** A BOM as PDF, rendered on a worker thread. */
-export async function renderBomPdf(snapshot: BomSnapshot, purchase: BomPurchase = {}): Promise<Buffer> {
-  return pdfResult(await runInPool<Uint8Array>({ kind: 'bom-pdf', args: { snapshot, purchase } }, { fonts: pdfFontsOnce }))
+export async function renderBomPdf(snapshot: BomSnapshot, purchase: BomPurchase = {}, options?: BomPdfOptions): Promise<Buffer> {
+  return pdfResult(await runInPool<Uint8Array>({ kind: 'bom-pdf', args: { snapshot, purchase, options } }, { fonts: pdfFontsOnce }))
 }
 
 /** The design report as PDF, rendered on a worker thread. */

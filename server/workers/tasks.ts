@@ -7,7 +7,6 @@ import type { CatalogPart } from '#shared/catalog/types'
 import type { TradeStudyInput } from '#shared/schemas/trade-study'
 import { readCatalogFile, type ReadOptions } from '../catalog/read'
 import { previewDesign } from '../services/designs'
-import { computeMatches, type MatchArgs } from '../services/parts'
 import { tradeStudyRows } from '../services/trade-study'
 import { bomToPdf } from '../exports/bom-pdf'
 import { designReportPdf } from '../exports/design-pdf'
@@ -15,16 +14,18 @@ import type { PdfFonts } from '../exports/pdf'
 import { compactProvenance } from './provenance'
 import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
 
+/** what the BOM PDF takes besides the snapshot and purchasing's entries */
+export interface BomPdfOptions { openOnly?: boolean }
+
 export type CatalogPartRow = CatalogPart & { partVersionId: number, approved: boolean }
 
 export type Task
   = | { kind: 'stress', input: StressInput, options: EvaluateOptions, provenance?: 'compact' | 'full' }
     | { kind: 'evaluate', input: DesignInput, provenance?: 'compact' | 'full' }
     | { kind: 'preview', input: DesignInput }
-    | { kind: 'match', generation: number, parts?: CatalogPartRow[], args: MatchArgs }
     | { kind: 'trade-study', generation: number, parts?: CatalogPartRow[], duty: TradeStudyInput }
     | { kind: 'read-catalog', file: Uint8Array, filename: string, limits: ReadOptions }
-    | { kind: 'bom-pdf', fonts?: PdfFonts, args: { snapshot: BomSnapshot, purchase: BomPurchase } }
+    | { kind: 'bom-pdf', fonts?: PdfFonts, args: { snapshot: BomSnapshot, purchase: BomPurchase, options?: BomPdfOptions } }
     | { kind: 'design-pdf', fonts?: PdfFonts, report: Parameters<typeof designReportPdf>[0] }
 
 export type TaskError
@@ -57,11 +58,6 @@ async function run(task: Task): Promise<TaskResult> {
     }
     case 'preview':
       return { ok: true, value: previewDesign(task.input) }
-    case 'match': {
-      const c = catalogFor(task)
-      if (!c) return { ok: false, needs: 'parts' }
-      return { ok: true, value: computeMatches(task.args, c.parts, c.index) }
-    }
     case 'trade-study': {
       const c = catalogFor(task)
       if (!c) return { ok: false, needs: 'parts' }
@@ -74,7 +70,7 @@ async function run(task: Task): Promise<TaskResult> {
       // a thread boundary turns Buffers into plain Uint8Arrays; pdfmake wants Buffers
       if (task.fonts) fonts = Object.fromEntries(Object.entries(task.fonts).map(([k, v]: [string, Uint8Array]) => [k, Buffer.from(v.buffer, v.byteOffset, v.byteLength)])) as unknown as PdfFonts
       if (!fonts) return { ok: false, needs: 'fonts' }
-      const pdf = task.kind === 'bom-pdf' ? await bomToPdf(task.args.snapshot, fonts, task.args.purchase) : await designReportPdf(task.report, fonts)
+      const pdf = task.kind === 'bom-pdf' ? await bomToPdf(task.args.snapshot, fonts, task.args.purchase, task.args.options) : await designReportPdf(task.report, fonts)
       return { ok: true, value: new Uint8Array(pdf.buffer, pdf.byteOffset, pdf.byteLength) }
     }
   }

@@ -2,10 +2,12 @@
 // quantity, spares, MOQ and price breaks. Pure functions over plain data; quantities in pieces,
 // money per piece in the part's currency.
 
-import type { BomLine, BomSnapshot } from './types'
+import { gateReasons } from './gates'
+import type { BomLine, BomPositionRow, BomSnapshot } from './types'
 
 export { diffBoms, type BomChange, type BomFieldChange } from './diff'
 export { neutraliseFormula } from './formula-safety'
+export { gateMark, gateReasons, unacknowledgedLines } from './gates'
 
 export type BomSide = 'machine' | 'grid' | 'dc-link'
 
@@ -35,6 +37,8 @@ export interface BomPartData {
   lifecycle?: string | null
   supplier?: string | null
   partVersionId?: number | null
+  /** component engineering's approval; false gates the line (see gates.ts) */
+  approved?: boolean | null
 }
 
 /** A semiconductor position of a converter and the part that fills it. */
@@ -52,6 +56,23 @@ export interface PositionFill extends BomPartData {
   seriesCount: number
   /** parts in parallel per position */
   parallelCount: number
+  /**
+   * Module that fills several positions (see coverage.ts): packages per converter set, counted directly
+   * instead of positions / perPackage. The positions it covers come in `covered`.
+   */
+  packagesPerConverter?: number
+  /** the module's slots no position uses, shown once on the line */
+  unusedSlots?: string[]
+}
+
+/** A position filled by another position's module: listed on the positions sheet, never bought again. */
+export interface CoveredPosition {
+  side: BomSide
+  position: string
+  /** the host position whose package holds it */
+  coveredBy: string
+  partNumber: string
+  manufacturer: string
 }
 
 /** A capacitor bank position: `count` pieces per converter set, counted directly. */
@@ -60,8 +81,12 @@ export interface CapacitorFill extends BomPartData {
   side?: BomSide
   /** position name, e.g. "C1" */
   position: string
-  /** pieces per converter set */
+  /** pieces per converter set (positions × seriesCount × parallelCount) */
   count: number
+  /** capacitors in series per string of the bank (default 1) */
+  seriesCount?: number
+  /** strings in parallel (default 1) */
+  parallelCount?: number
 }
 
 /** A line added by hand (heatsink, busbar, gate driver …). */
@@ -80,6 +105,7 @@ export interface BomBuildInput {
   positions: PositionFill[]
   capacitors?: CapacitorFill[]
   manualLines?: ManualLineInput[]
+  covered?: CoveredPosition[]
   /** converter sets to build */
   buildQuantity: number
   /** spare pieces as % of the build quantity of each line (0…100) */
@@ -160,12 +186,16 @@ function checkInput(input: BomBuildInput): void {
     for (const field of ['positionsPerPhase', 'phases', 'perPackage', 'seriesCount', 'parallelCount'] as const) {
       if (!validWholeNumber(fill[field], 1)) issues.push({ field: `${at}.${field}`, message: `must be a whole number ≥ 1, got ${String(fill[field])}` })
     }
+    if (fill.packagesPerConverter !== undefined && !validWholeNumber(fill.packagesPerConverter, 1)) issues.push({ field: `${at}.packagesPerConverter`, message: `must be a whole number of packages ≥ 1, got ${String(fill.packagesPerConverter)}` })
   })
   ;(input.capacitors ?? []).forEach((fill, i) => {
     const at = `capacitors.${i}`
     checkPartData(fill, at, issues)
     if (typeof fill.position !== 'string' || fill.position.trim() === '') issues.push({ field: `${at}.position`, message: 'a position name is required' })
     if (!validWholeNumber(fill.count, 1)) issues.push({ field: `${at}.count`, message: `must be a whole number of pieces ≥ 1, got ${String(fill.count)}` })
+    for (const field of ['seriesCount', 'parallelCount'] as const) {
+      if (fill[field] !== undefined && !validWholeNumber(fill[field], 1)) issues.push({ field: `${at}.${field}`, message: `must be a whole number ≥ 1, got ${String(fill[field])}` })
+    }
   })
   ;(input.manualLines ?? []).forEach((line, i) => {
     const at = `manualLines.${i}`
@@ -178,7 +208,7 @@ function checkInput(input: BomBuildInput): void {
   // Sum-then-divide needs one package size per part.
   const perPackageOf = new Map<string, { perPackage: number, index: number }>()
   ;(Array.isArray(input.positions) ? input.positions : []).forEach((fill, i) => {
-    if (typeof fill.partNumber !== 'string' || typeof fill.manufacturer !== 'string') return
+    if (typeof fill.partNumber !== 'string' || typeof fill.manufacturer !== 'string' || fill.packagesPerConverter !== undefined) return
     const key = bomLineKey(fill.manufacturer, fill.partNumber)
     const seen = perPackageOf.get(key)
     if (!seen) perPackageOf.set(key, { perPackage: fill.perPackage, index: i })
@@ -228,6 +258,7 @@ interface Group {
   /** capacitor pieces, counted directly */
   directPieces: number
   references: string[]
+  unusedSlots: string[]
 }
 
 function reference(side: string, position: string, count: number): string {
@@ -251,31 +282,42 @@ export function buildBomLines(input: BomBuildInput): BomBuildResult {
   checkInput(input)
   const currency = input.currency ?? 'EUR'
   const groups = new Map<string, Group>()
-  const positions: BomSnapshot['positions'] = []
+  const positions: BomPositionRow[] = []
 
   const groupOf = (part: BomPartData, category: string, perPackage: number): Group => {
     const key = bomLineKey(part.manufacturer, part.partNumber)
     let group = groups.get(key)
     if (!group) {
-      group = { key, part, category, positions: 0, perPackage, directPieces: 0, references: [] }
+      group = { key, part, category, positions: 0, perPackage, directPieces: 0, references: [], unusedSlots: [] }
       groups.set(key, group)
     }
     return group
   }
 
   for (const fill of input.positions) {
-    const count = fill.positionsPerPhase * fill.phases * fill.seriesCount * fill.parallelCount
-    const group = groupOf(fill, fill.perPackage > 1 ? 'module' : fill.kind, fill.perPackage)
-    group.positions += count
+    const isModule = fill.packagesPerConverter !== undefined
+    const group = groupOf(fill, isModule || fill.perPackage > 1 ? 'module' : fill.kind, fill.perPackage)
+    // A module host is counted in packages; other fills in positions, divided by perPackage below.
+    const count = isModule ? fill.packagesPerConverter! : fill.positionsPerPhase * fill.phases * fill.seriesCount * fill.parallelCount
+    if (isModule) group.directPieces += count
+    else group.positions += count
     group.references.push(reference(fill.side, fill.position, count))
+    for (const slot of fill.unusedSlots ?? []) if (!group.unusedSlots.includes(slot)) group.unusedSlots.push(slot)
     positions.push({ side: fill.side, position: fill.position.trim(), partNumber: fill.partNumber.trim(), manufacturer: fill.manufacturer.trim(), perConverter: count, seriesCount: fill.seriesCount, parallelCount: fill.parallelCount })
+  }
+  for (const c of input.covered ?? []) {
+    const host = groups.get(bomLineKey(c.manufacturer, c.partNumber))
+    host?.references.push(`${c.side} ${c.position.trim()} (in ${c.coveredBy})`)
+    positions.push({ side: c.side, position: c.position.trim(), partNumber: c.partNumber.trim(), manufacturer: c.manufacturer.trim(), perConverter: 0, seriesCount: 1, parallelCount: 1, coveredBy: c.coveredBy })
   }
   for (const fill of input.capacitors ?? []) {
     const side = fill.side ?? 'dc-link'
     const group = groupOf(fill, 'capacitor', 1)
     group.directPieces += fill.count
-    group.references.push(reference(side, fill.position, fill.count))
-    positions.push({ side, position: fill.position.trim(), partNumber: fill.partNumber.trim(), manufacturer: fill.manufacturer.trim(), perConverter: fill.count, seriesCount: 1, parallelCount: 1 })
+    const series = fill.seriesCount ?? 1
+    const parallel = fill.parallelCount ?? 1
+    group.references.push(series * parallel > 1 ? `${side} ${fill.position.trim()} (${series}s×${parallel}p = ${fill.count})` : reference(side, fill.position, fill.count))
+    positions.push({ side, position: fill.position.trim(), partNumber: fill.partNumber.trim(), manufacturer: fill.manufacturer.trim(), perConverter: fill.count, seriesCount: series, parallelCount: parallel })
   }
 
   const lines: BomLine[] = []
@@ -298,6 +340,8 @@ export function buildBomLines(input: BomBuildInput): BomBuildResult {
       supplier: part.supplier ?? null,
       partVersionId: part.partVersionId ?? null,
       manual: false,
+      approved: part.approved ?? null,
+      ...(group.unusedSlots.length > 0 ? { unusedSlots: group.unusedSlots } : {}),
     }, quantityPerUnit, input, part.unitPriceBreaks, currency))
   }
   ;(input.manualLines ?? []).forEach((manual, i) => {
@@ -323,7 +367,7 @@ export function buildBomLines(input: BomBuildInput): BomBuildResult {
   return { lines, totals: bomTotals(lines, currency), positions }
 }
 
-type LineIdentity = Omit<BomLine, 'quantityPerUnit' | 'quantityBuild' | 'quantitySpares' | 'quantityOrder' | 'priceBreakQuantity' | 'unitPrice' | 'extendedPrice' | 'warnings'>
+type LineIdentity = Omit<BomLine, 'quantityPerUnit' | 'quantityBuild' | 'quantitySpares' | 'quantityOrder' | 'priceBreakQuantity' | 'unitPrice' | 'extendedPrice' | 'warnings' | 'gate'>
 
 function finishLine(identity: LineIdentity, quantityPerUnit: number, input: BomBuildInput, breaks: readonly UnitPriceBreak[], bomCurrency: string): BomLine {
   const quantityBuild = quantityPerUnit * input.buildQuantity
@@ -337,8 +381,12 @@ function finishLine(identity: LineIdentity, quantityPerUnit: number, input: BomB
   if (identity.lifecycle === 'nrnd') warnings.push('lifecycle: not recommended for new designs')
   if (identity.lifecycle === 'obsolete') warnings.push('lifecycle: obsolete')
   if (pricing.unitPrice !== null && identity.currency !== bomCurrency) warnings.push(`priced in ${identity.currency}, not in the BOM currency ${bomCurrency}: not in the total`)
+  if (identity.approved === false) warnings.push('not approved by component engineering')
+  if (identity.unusedSlots?.length) warnings.push(`unused in the package: ${identity.unusedSlots.join(', ')} (part of the module, not bought apart)`)
+  const gate = identity.manual ? [] : gateReasons(identity)
   return {
     ...identity,
+    ...(gate.length > 0 ? { gate } : {}),
     quantityPerUnit,
     quantityBuild,
     quantitySpares,

@@ -34,6 +34,14 @@ export interface BomLine {
   partVersionId: number | null
   /** line added by hand (e.g. heatsink), not from a part assignment */
   manual: boolean
+  /** component engineering's approval of the part (null for hand-added lines) */
+  approved?: boolean | null
+  /** why the line needs a design engineer's acknowledgement before release: 'unapproved' | 'nrnd' | 'obsolete' */
+  gate?: BomGateReason[]
+  /** the recorded acknowledgement that lets a gated line be released */
+  acknowledgement?: BomAcknowledgement | null
+  /** module slots no position of the design uses (shown once; they are part of the package, not bought apart) */
+  unusedSlots?: string[]
   /** things purchasing should see: order raised to the MOQ or first price break, stock short, lifecycle, other currency */
   warnings?: string[]
 }
@@ -55,18 +63,54 @@ export interface BomSnapshot {
   /** pieces = sum of quantityOrder; extendedPrice sums the priced lines in `currency` only */
   totals: { lines: number, pieces: number, extendedPrice: number, unpricedLines: number, otherCurrencyLines?: number }
   /** per position: what fills it (for the positions table in the PDF) */
-  positions: { side: string, position: string, partNumber: string, manufacturer: string, perConverter: number, seriesCount: number, parallelCount: number }[]
+  positions: BomPositionRow[]
   /** summary rows of the design for the summary sheet: [label, value, unit] */
   designSummary: [string, string | number, string][]
   safetyNote: string
 }
 
+export type BomGateReason = 'unapproved' | 'nrnd' | 'obsolete'
+
+export interface BomAcknowledgement {
+  reason: string
+  by: string
+  /** ISO time */
+  at: string
+}
+
+/** One position of the design and what fills it (the positions sheet of the exports). */
+export interface BomPositionRow {
+  side: string
+  position: string
+  partNumber: string
+  manufacturer: string
+  /** pieces bought for this position per converter set (0 when another position's module covers it) */
+  perConverter: number
+  seriesCount: number
+  parallelCount: number
+  /** the position whose package also holds this one ("covered by S1"): nothing extra is bought */
+  coveredBy?: string
+}
+
+/** Purchasing status of one line, in the order it moves. */
+export const PURCHASE_STATUSES = ['to-quote', 'quoted', 'ordered', 'confirmed', 'received'] as const
+export type PurchaseStatus = (typeof PURCHASE_STATUSES)[number]
+
+/** Fields purchasing edits on a line (the page sends one at a time). */
+export type PurchaseField = 'supplier' | 'quotedUnitPrice' | 'orderReference' | 'quoteCurrency' | 'status' | 'promisedDelivery'
+
 /** What purchasing records against one BOM line (keyed by BomLine.key). */
 export interface BomPurchaseEntry {
   supplier?: string | null
-  /** per piece, in the line's currency */
+  /** per piece, in quoteCurrency (default the line's currency) */
   quotedUnitPrice?: number | null
+  quoteCurrency?: string | null
   orderReference?: string | null
+  status?: PurchaseStatus
+  /** ISO date each status was reached */
+  statusDates?: Partial<Record<PurchaseStatus, string>>
+  /** ISO date (yyyy-mm-dd) the supplier promised delivery */
+  promisedDelivery?: string | null
 }
 
 /** Purchasing records by BomLine.key. */

@@ -296,6 +296,21 @@ export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] 
   return { candidates: sortCandidates(candidates), dutyProblems, considered: index.size, rejected }
 }
 
+/**
+ * The assigned part rated at the counts stored with the assignment (not re-sized): margins, losses,
+ * packages and price at `seriesCount` × `parallelCount`, and the counts today's duty needs. `fits` is
+ * false when the stored counts are fewer than needed or the part no longer fits at all (issue 11 item 3).
+ */
+export function rateAssignment(part: CatalogPart, duty: PositionDuty, policy: MatchPolicy, seriesCount: number, parallelCount: number): { rated: Candidate | null, needed: { seriesCount: number, parallelCount: number } | null, fits: boolean } {
+  const sized = matchPosition(duty, [part], { ...policy, includeObsolete: true }).candidates[0] ?? null
+  const slots = slotsPerPackage(part, duty.kind)
+  if (slots === 0 || checkDuty(duty).length > 0) return { rated: null, needed: null, fits: false }
+  const rated = buildCandidate(part, duty, policy, { series: seriesCount, parallel: parallelCount }, slots)
+  const needed = sized ? { seriesCount: sized.seriesCount, parallelCount: sized.parallelCount } : null
+  const fits = !!sized && seriesCount >= sized.seriesCount && parallelCount >= sized.parallelCount && rated.thermalOk
+  return { rated, needed, fits }
+}
+
 /** Parts grouped by the position kinds they can serve, with their slot counts: build once per catalogue, match many positions. */
 export interface PartIndex {
   readonly kind: 'part-index'
@@ -421,12 +436,21 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
   return candidate
 }
 
-/** Thermally fine first, then lifecycle (active, NRND, obsolete), cost per design, losses per converter. */
+/**
+ * Approval and lifecycle rank of a part: 0 for approved and active (the default view), then NRND,
+ * obsolete; parts component engineering has not approved (approved === false) after all approved ones.
+ * Parts without an approval flag (plain catalogue data) count as approved.
+ */
+export function approvalRank(part: Pick<CatalogPart, 'lifecycle'> & { approved?: boolean }): number {
+  return (part.approved === false ? 3 : 0) + LIFECYCLE_RANK[part.lifecycle]
+}
+
+/** Thermally fine first, then approval and lifecycle (approvalRank), cost per design, losses per converter. */
 export function sortCandidates(candidates: Candidate[]): Candidate[] {
   // Keys computed once per candidate: the comparator runs n·log n times on large catalogues.
   const keyed = candidates.map(c => ({
     c,
-    group: (c.thermalOk ? 0 : 3) + LIFECYCLE_RANK[c.lifecycle],
+    group: (c.thermalOk ? 0 : 6) + approvalRank(c.part as CatalogPart & { approved?: boolean }),
     cost: c.costPerDesign ?? Infinity,
     loss: c.losses ? c.losses.perConverter : Infinity,
   }))

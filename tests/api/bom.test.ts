@@ -52,8 +52,9 @@ describe('bill of materials', () => {
     expect(badSettings.body.data.issues[0].path).toBe('buildQuantity')
     const released = await eng.json('POST', `/api/designs/${design.id}/bom/release`)
     expect(released.status).toBe(201)
-    expect(released.body.mailSent).toBe(true)
-    const mail = await waitForMail('purchasing@example.com', `${design.name}, revision 1`)
+    expect(released.body.mailQueued).toBe(true)
+    // the outbox worker sends it after the commit
+    const mail = await waitForMail('purchasing@example.com', `${design.name}, revision 1`, 20000)
     expect(mail.attachments.map(a => a.filename).sort()).toEqual([expect.stringMatching(/\.pdf$/), expect.stringMatching(/\.xlsx$/)])
 
     const buyer = await signInAs('purchasing')
@@ -106,7 +107,7 @@ describe('bill of materials', () => {
     const numbers = rows.flat().map(Number).filter(n => Number.isFinite(n))
     const total = bom.snapshot.totals.extendedPrice
     expect(numbers.some(n => Math.abs(n - total) < 0.01)).toBe(true)
-  })
+  }, 90000)
 
   it('exports a PDF that pdftotext reads', async () => {
     const viewer = await signInAs('viewer')

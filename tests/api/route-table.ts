@@ -11,6 +11,20 @@ export interface RouteCase {
   access: Permission | 'public' | 'signed-in'
   /** body sent when calling it (invalid on purpose where the route writes: an allowed role then gets 4xx from validation, not from the guard) */
   body?: unknown
+  /**
+   * Statuses an allowed role gets. Default: 400 / 422 (the validation error) when a body is sent, 404
+   * for a path naming a row that does not exist (999999), else 200.
+   */
+  ok?: number[]
+}
+
+/** What an allowed role must get from a route (never just "not 401/403"). */
+export function expectedFor(route: RouteCase): number[] {
+  if (route.ok) return route.ok
+  // validation runs before the lookup
+  if (route.body !== undefined) return [400, 422]
+  if (route.path.includes('999999') || route.path.includes('does-not-exist')) return [404]
+  return [200]
 }
 
 export const routeTable: RouteCase[] = [
@@ -63,6 +77,10 @@ export const routeTable: RouteCase[] = [
   { file: 'designs/[id]/bom.get.ts', method: 'GET', path: '/api/designs/1/bom', access: 'bom:draft' },
   { file: 'designs/[id]/bom/settings.put.ts', method: 'PUT', path: '/api/designs/1/bom/settings', access: 'bom:release', body: {} },
   { file: 'designs/[id]/bom/release.post.ts', method: 'POST', path: '/api/designs/999999/bom/release', access: 'bom:release' },
+  { file: 'designs/[id]/bom/acknowledgements.put.ts', method: 'PUT', path: '/api/designs/1/bom/acknowledgements', access: 'bom:release', body: {} },
+  { file: 'designs/[id]/parts/confirm.post.ts', method: 'POST', path: '/api/designs/1/parts/confirm', access: 'parts:assign', body: {} },
+  { file: 'catalog/parts/[id]/usage.get.ts', method: 'GET', path: '/api/catalog/parts/1/usage', access: 'catalog:read' },
+  { file: 'admin/outbox.get.ts', method: 'GET', path: '/api/admin/outbox', access: 'mail:read' },
   { file: 'boms.get.ts', method: 'GET', path: '/api/boms', access: 'bom:read' },
   { file: 'boms/[id].get.ts', method: 'GET', path: '/api/boms/999999', access: 'bom:read' },
   { file: 'boms/[id].patch.ts', method: 'PATCH', path: '/api/boms/999999', access: 'bom:purchase', body: {} },

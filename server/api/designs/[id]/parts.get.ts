@@ -1,10 +1,40 @@
-import { matchDesign } from '~~/server/services/parts'
+import { z } from 'zod'
+import { matchDesign, type PositionMatch } from '~~/server/services/parts'
+import type { Candidate } from '#shared/catalog/matching'
+import type { CatalogPart } from '#shared/catalog/types'
 import { idParam } from '#shared/schemas/auth'
+import { restrictedFields, sees } from '#shared/roles'
 
-// Candidate parts for every position of the design, and what is assigned.
+const query = z.object({ show: z.enum(['preferred', 'all'], { message: 'Use show=preferred or show=all' }).default('preferred') })
+
+type Assigned = NonNullable<PositionMatch['assigned']>
+/** A position as a role sees it: catalogue fields (restrictedFields.catalogue) only with catalogue read. */
+type ShownPosition = Omit<PositionMatch, 'candidates' | 'hiddenCandidates' | 'nothingFits' | 'assigned'>
+  & Partial<Pick<PositionMatch, 'candidates' | 'hiddenCandidates' | 'nothingFits'>>
+  & { assigned: null | (Omit<Assigned, 'part' | 'evaluation'> & { part: Pick<CatalogPart, 'partNumber' | 'manufacturer' | 'kind' | 'packageConfiguration'> & Partial<CatalogPart>, evaluation: Partial<Candidate> | null }) }
+
+function strip<T extends object>(o: T, keys: readonly string[]) {
+  return Object.fromEntries(Object.entries(o).filter(([k]) => !keys.includes(k)))
+}
+
+// Candidate parts for every position of the design, and what is assigned. By default candidates are the
+// approved, active parts; show=all lists the rest too. Catalogue data only for roles with catalogue read.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'designs:read')
+  const user = await requireRole(event, 'designs:read')
   const { id } = paramsValid(event, idParam)
-  const { design, positions, summary, policy } = await matchDesign(id)
-  return { design: { id: design.id, name: design.name, revision: design.revision }, policy, positions, summary }
+  const { show } = queryValid(event, query)
+  const { design, positions, summary, policy } = await matchDesign(id, 40, { showAll: show === 'all' })
+  const head = { id: design.id, name: design.name, revision: design.revision }
+  if (sees(user.role, 'catalogue')) {
+    return { design: head, policy, positions: positions as ShownPosition[], summary: summary as (typeof summary[number] & { costPerDesign: number | null })[] }
+  }
+  const shown = positions.map(p => ({
+    ...strip(p, restrictedFields.catalogue.position),
+    assigned: p.assigned && {
+      ...strip(p.assigned, ['part', 'evaluation']),
+      part: { partNumber: p.assigned.part.partNumber, manufacturer: p.assigned.part.manufacturer, kind: p.assigned.part.kind, packageConfiguration: p.assigned.part.packageConfiguration },
+      evaluation: p.assigned.evaluation && strip(p.assigned.evaluation, restrictedFields.catalogue.evaluation),
+    },
+  })) as ShownPosition[]
+  return { design: head, policy, positions: shown, summary: summary.map(s => ({ ...s, costPerDesign: null as number | null })) }
 })
