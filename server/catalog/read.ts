@@ -4,8 +4,8 @@
 
 import ExcelJS from 'exceljs'
 import { CATALOG_COLUMNS, isUnitsRow } from '../../catalog/columns'
-import { columnLetter, suggestMapping } from '../../shared/catalog/mapping'
-import type { CellValue, RawTable, TableProblem } from '../../shared/catalog/types'
+import { columnLetter, isUnitText, suggestMapping } from '../../shared/catalog/mapping'
+import type { CellValue, HeaderCandidate, RawTable, SkippedRow, TableProblem } from '../../shared/catalog/types'
 import { detectDelimiter, parseCsv } from './csv'
 import { readZipDirectory, verifyZipEntries } from './zip'
 
@@ -20,9 +20,12 @@ export interface ReadOptions {
   maxCompressionRatio?: number
   /** problems listed before summarising the rest (default 500) */
   maxProblems?: number
+  /** row number of the header row as the user sees it; absent = detected */
+  headerRow?: number
 }
 
 export const DEFAULT_READ_LIMITS = { maxBytes: 5 * 1024 * 1024, maxRows: 20_000, maxUncompressedBytes: 100 * 1024 * 1024, maxCompressionRatio: 200, maxProblems: 500 }
+type Limits = typeof DEFAULT_READ_LIMITS & { headerRow?: number }
 
 // Worksheet parts that carry nothing a catalogue import reads (hyperlink targets included: the cell text is used).
 const IGNORED_SHEET_NODES = ['dataValidations', 'conditionalFormatting', 'extLst', 'drawing', 'picture', 'pageSetup', 'pageMargins', 'headerFooter', 'printOptions', 'rowBreaks', 'tableParts', 'sheetProtection', 'hyperlinks']
@@ -60,7 +63,7 @@ class Problems {
 }
 
 function failed(message: string, format: RawTable['format'] = 'xlsx', extra: Partial<RawTable> = {}): RawTable {
-  return { sheetName: '', format, headerRowNumber: 0, headers: [], rows: [], warnings: [], errors: [{ message }], ...extra }
+  return { sheetName: '', format, headerRowNumber: 0, headers: [], rows: [], skipped: [], headerCandidates: [], warnings: [], errors: [{ message }], ...extra }
 }
 
 type Sniffed = 'zip' | 'csv' | { refuse: string }
@@ -140,7 +143,7 @@ function decodeText(data: Buffer): { text: string, warning?: string } {
   }
 }
 
-function readCsv(data: Buffer, fileName: string, limits: typeof DEFAULT_READ_LIMITS): RawTable {
+function readCsv(data: Buffer, fileName: string, limits: Limits): RawTable {
   const { text, warning } = decodeText(data)
   if (text.trim() === '') return failed(`'${fileName}' is empty (no text)`, 'csv')
   const delimiter = detectDelimiter(text)
@@ -172,7 +175,7 @@ function richTextToString(value: { richText: { text: string }[] }): string {
   return value.richText.map(r => r.text).join('')
 }
 
-async function readXlsx(data: Buffer, fileName: string, limits: typeof DEFAULT_READ_LIMITS): Promise<RawTable> {
+async function readXlsx(data: Buffer, fileName: string, limits: Limits): Promise<RawTable> {
   const zip = readZipDirectory(data, { maxUncompressedBytes: limits.maxUncompressedBytes, maxCompressionRatio: limits.maxCompressionRatio })
   if (!zip.ok) return failed(`'${fileName}': ${zip.reason}`)
   const names = new Set(zip.entries.map(e => e.name))
@@ -303,19 +306,85 @@ function isEmptyRow(cells: CellValue[]): boolean {
   return cells.every(c => c === null || (typeof c === 'string' && c.trim() === ''))
 }
 
-/** Finds the header row, skips the template's units row, trims empty rows and checks limits and duplicates. */
-function buildTable(allRows: Row[], sheetName: string, format: RawTable['format'], limits: typeof DEFAULT_READ_LIMITS, warnings: Problems, errors: Problems): RawTable {
+/** Rows above the header looked at when detecting it. */
+const HEADER_SEARCH_ROWS = 30
+
+function filledCount(cells: readonly CellValue[]): number {
+  let n = 0
+  for (const c of cells) if (c !== null && !(typeof c === 'string' && c.trim() === '')) n++
+  return n
+}
+
+/** How many catalogue columns a row's cells would name if it were the header (numbers name none). */
+export function headerRowScore(cells: readonly CellValue[]): number {
+  const texts = cells.map(c => (typeof c === 'string' ? c : ''))
+  if (texts.filter(t => t.trim() !== '').length < 2) return 0
+  const { mapping } = suggestMapping(texts)
+  return Object.values(mapping).filter(v => v !== null && v !== undefined).length
+}
+
+/** A row of units under the header ("V", "mJ", "K/W", "—"), as suppliers and the template write it. */
+function isUnitsLikeRow(cells: readonly CellValue[]): boolean {
+  if (isUnitsRow(cells)) return true
+  const filled = cells.filter(c => c !== null && String(c).trim() !== '')
+  if (filled.length < 2) return false
+  return filled.every(c => typeof c === 'string' && (isUnitText(c) || ['-', '—', '–', 'unit', 'units', 'per piece', 'text', '%'].includes(c.trim().toLowerCase())))
+}
+
+function preview(cells: readonly CellValue[]): string {
+  const text = cells.filter(c => c !== null && String(c).trim() !== '').map(c => String(c).trim()).join(' ')
+  return text.length > 60 ? `${text.slice(0, 57)}…` : text
+}
+
+/**
+ * Finds the header row (the row whose cells best match the catalogue columns, or `headerRow` when the
+ * user chose one), skips title rows above it, a units row below it, empty rows and trailing notes
+ * rows, each with a note of what was skipped; then checks limits.
+ */
+function buildTable(allRows: Row[], sheetName: string, format: RawTable['format'], limits: Limits, warnings: Problems, errors: Problems): RawTable {
   const nonEmpty = allRows.filter(r => !isEmptyRow(r.cells))
-  const base = { sheetName, format, headerRowNumber: 0, headers: [] as string[], rows: [] as Row[] }
+  const base = { sheetName, format, headerRowNumber: 0, headers: [] as string[], rows: [] as Row[], skipped: [] as SkippedRow[], headerCandidates: [] as HeaderCandidate[] }
   if (nonEmpty.length === 0) {
     errors.add({ message: `the sheet '${sheetName}' is empty` })
     return { ...base, warnings: warnings.finish('warnings'), errors: errors.finish('problems') }
   }
-  const headerRow = nonEmpty[0]!
+  const candidates = nonEmpty.slice(0, HEADER_SEARCH_ROWS).map(r => ({ rowNumber: r.rowNumber, score: headerRowScore(r.cells), text: preview(r.cells) }))
+  let headerIndex = 0
+  if (limits.headerRow !== undefined) {
+    headerIndex = nonEmpty.findIndex(r => r.rowNumber === limits.headerRow)
+    if (headerIndex < 0) {
+      errors.add({ row: limits.headerRow, message: `row ${limits.headerRow} is empty or not in the sheet '${sheetName}'; choose the row that holds the column headers` })
+      return { ...base, headerCandidates: candidates, warnings: warnings.finish('warnings'), errors: errors.finish('problems') }
+    }
+  }
+  else {
+    let best = 0
+    candidates.forEach((c, i) => {
+      if (c.score > best) {
+        best = c.score
+        headerIndex = i
+      }
+    })
+  }
+  const headerRow = nonEmpty[headerIndex]!
+  const skipped: SkippedRow[] = []
+  for (const r of nonEmpty.slice(0, headerIndex)) skipped.push({ rowNumber: r.rowNumber, reason: 'above-header', text: preview(r.cells) })
+
   let lastHeader = headerRow.cells.length - 1
   while (lastHeader >= 0 && (headerRow.cells[lastHeader] === null || String(headerRow.cells[lastHeader]).trim() === '')) lastHeader--
-  let dataRows = nonEmpty.slice(1)
-  if (dataRows[0] && isUnitsRow(dataRows[0].cells)) dataRows = dataRows.slice(1)
+  let dataRows = nonEmpty.slice(headerIndex + 1)
+  let units: CellValue[] | null = null
+  if (dataRows[0] && isUnitsLikeRow(dataRows[0].cells)) {
+    units = dataRows[0].cells
+    skipped.push({ rowNumber: dataRows[0].rowNumber, reason: 'units', text: preview(dataRows[0].cells) })
+    dataRows = dataRows.slice(1)
+  }
+  // Notes under the table ("prices valid until …", "* preliminary"): a row filling at most two cells
+  // of a table at least four wide is a note, not a part.
+  const headerWidth = filledCount(headerRow.cells)
+  const notes: Row[] = []
+  while (headerWidth >= 4 && dataRows.length > 0 && filledCount(dataRows.at(-1)!.cells) <= 2) notes.unshift(dataRows.pop()!)
+  for (const r of notes) skipped.push({ rowNumber: r.rowNumber, reason: 'notes', text: preview(r.cells) })
 
   const dataWidth = Math.max(lastHeader + 1, ...dataRows.map((r) => {
     let w = r.cells.length
@@ -335,6 +404,9 @@ function buildTable(allRows: Row[], sheetName: string, format: RawTable['format'
     const earlier = seenHeaders.get(key)
     if (earlier) warnings.add({ row: headerRow.rowNumber, column: columnLetter(c), message: `the header '${header}' appears twice (columns ${earlier} and ${columnLetter(c)})` })
     else seenHeaders.set(key, columnLetter(c))
+    // A unit from the units row joins its header, so "Eon" over "mJ" reads bare numbers as millijoules.
+    const unit = units?.[c]
+    if (typeof unit === 'string' && !isUnitsRow(units!) && isUnitText(unit) && !/[([{]/.test(header)) header = `${header} (${unit.trim()})`
     headers.push(header)
   }
 
@@ -343,7 +415,7 @@ function buildTable(allRows: Row[], sheetName: string, format: RawTable['format'
   }
   if (dataRows.length > limits.maxRows) {
     errors.add({ message: `the sheet '${sheetName}' has ${formatCount(dataRows.length)}${format === 'csv' && dataRows.length > limits.maxRows ? ' or more' : ''} rows of parts; the limit is ${formatCount(limits.maxRows)} per upload: split the file` })
-    return { ...base, headerRowNumber: headerRow.rowNumber, headers, warnings: warnings.finish('warnings'), errors: errors.finish('problems') }
+    return { ...base, headerRowNumber: headerRow.rowNumber, headers, headerCandidates: candidates, skipped, warnings: warnings.finish('warnings'), errors: errors.finish('problems') }
   }
 
   const firstData = dataRows[0]?.rowNumber ?? 0
@@ -355,44 +427,31 @@ function buildTable(allRows: Row[], sheetName: string, format: RawTable['format'
     for (let n = firstData + 1; n < lastData; n++) if (!present.has(n)) gaps.push(n)
     gaps.sort((a, b) => a - b)
   }
+  const above = skipped.filter(s => s.reason === 'above-header')
+  if (above.length > 0) {
+    warnings.add({ row: above[0]!.rowNumber, message: `the headers were found on row ${headerRow.rowNumber}; row${above.length > 1 ? 's' : ''} ${groupRuns(above.map(s => s.rowNumber)).map(([a, b]) => (a === b ? `${a}` : `${a}–${b}`)).join(', ')} above ${above.length > 1 ? 'them were' : 'it was'} skipped ('${above[0]!.text}')` })
+  }
+  if (units && !isUnitsRow(units)) warnings.add({ row: headerRow.rowNumber + 1, message: `row ${skipped.find(s => s.reason === 'units')!.rowNumber} holds units; they were added to the headers above them` })
   if (gaps.length > 0) {
     const runs = groupRuns(gaps).map(([a, b]) => (a === b ? `${a}` : `${a}–${b}`))
     warnings.add({ row: gaps[0], message: `empty row${gaps.length > 1 ? 's' : ''} ${runs.join(', ')} skipped` })
+    for (const n of gaps) skipped.push({ rowNumber: n, reason: 'blank', text: '' })
+  }
+  if (notes.length > 0) {
+    warnings.add({ row: notes[0]!.rowNumber, message: `row${notes.length > 1 ? 's' : ''} ${groupRuns(notes.map(r => r.rowNumber)).map(([a, b]) => (a === b ? `${a}` : `${a}–${b}`)).join(', ')} below the parts ${notes.length > 1 ? 'look like notes and were' : 'looks like a note and was'} skipped ('${preview(notes[0]!.cells)}')` })
   }
   const rows = dataRows.map(r => ({ rowNumber: r.rowNumber, cells: headers.map((_, i) => r.cells[i] ?? null) }))
-
-  findDuplicates(headers, rows, errors)
+  skipped.sort((a, b) => a.rowNumber - b.rowNumber)
   return {
     sheetName,
     format,
     headerRowNumber: headerRow.rowNumber,
     headers,
     rows,
+    skipped,
+    headerCandidates: candidates,
     warnings: warnings.finish('warnings'),
     errors: errors.finish('problems'),
   }
 }
 
-/**
- * Same manufacturer and part number on two rows, found through the suggested mapping (only when both
- * columns are recognised with confidence). Validation repeats the check with the user's final mapping.
- */
-function findDuplicates(headers: string[], rows: Row[], errors: Problems) {
-  const { suggestions } = suggestMapping(headers)
-  const partNumber = suggestions.find(s => s.key === 'partNumber')
-  const manufacturer = suggestions.find(s => s.key === 'manufacturer')
-  if (!partNumber || partNumber.index === null || partNumber.score < 0.9) return
-  if (!manufacturer || manufacturer.index === null || manufacturer.score < 0.9) return
-  const first = new Map<string, number>()
-  for (const row of rows) {
-    const pn = row.cells[partNumber.index]
-    const mfr = row.cells[manufacturer.index]
-    if (pn === null || mfr === null) continue
-    const key = `${String(mfr).trim().toLowerCase().replace(/\s+/g, ' ')}\u0000${String(pn).toLowerCase().replace(/\s+/g, '')}`
-    const earlier = first.get(key)
-    if (earlier === undefined) first.set(key, row.rowNumber)
-    else {
-      errors.add({ row: row.rowNumber, column: partNumber.column, message: `rows ${earlier} and ${row.rowNumber} are the same part (${String(mfr).trim()} ${String(pn).trim()}): keep one` })
-    }
-  }
-}

@@ -89,6 +89,24 @@ export interface RawTable {
   suggestedDecimalSeparator?: '.' | ','
   warnings: TableProblem[]
   errors: TableProblem[]
+  /** Rows not read as parts, and why (title above the header, units, blank, notes under the table). */
+  skipped: SkippedRow[]
+  /** Rows the header could be on, with how many catalogue columns each names (for choosing another). */
+  headerCandidates: HeaderCandidate[]
+}
+
+export interface SkippedRow {
+  rowNumber: number
+  reason: 'above-header' | 'units' | 'blank' | 'notes' | 'duplicate'
+  /** The row's text, shortened, so the user recognises it. */
+  text: string
+}
+
+export interface HeaderCandidate {
+  rowNumber: number
+  /** Catalogue columns the row's cells would name as headers. */
+  score: number
+  text: string
 }
 
 /** A problem with the file: `row` as the user sees it, `column` a letter such as "C". */
