@@ -3,6 +3,7 @@ import { sql } from 'drizzle-orm'
 import {
   boolean, doublePrecision, index, integer, jsonb, pgTable, serial, text, timestamp, uniqueIndex,
 } from 'drizzle-orm/pg-core'
+import type { ImportSettings } from '../../shared/catalog/types'
 
 const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 
@@ -116,6 +117,10 @@ export const catalogImports = pgTable('catalog_imports', {
   issueCount: integer('issue_count').notNull().default(0),
   catalogVersionId: integer('catalog_version_id').references(() => catalogVersions.id),
   uploadedBy: integer('uploaded_by').references(() => users.id, { onDelete: 'set null' }),
+  /** Reading choices beside the mapping: header row, per-column decimal marks, value mapping, constants. */
+  settings: jsonb('settings').$type<ImportSettings>().notNull().default({}),
+  /** Rows left out by a partial commit. */
+  refusedCount: integer('refused_count').notNull().default(0),
   createdAt: createdAt(),
 })
 
@@ -124,6 +129,8 @@ export const headerMappings = pgTable('header_mappings', {
   userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
   signature: text('signature').notNull(),
   mapping: jsonb('mapping').notNull(),
+  /** Value mapping and constants remembered with the column mapping. */
+  settings: jsonb('settings').$type<Pick<ImportSettings, 'valueMapping' | 'constants'>>().notNull().default({}),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [uniqueIndex('header_mappings_key').on(t.userId, t.signature)])
 

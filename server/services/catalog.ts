@@ -1,19 +1,26 @@
 // Catalogue versions: a commit writes every part of an import in one transaction as a new
 // catalogue version; a part that changed gets a new part version, earlier versions stay readable.
 import { eq, inArray, isNotNull, sql } from 'drizzle-orm'
-import type { CatalogPart } from '#shared/catalog/types'
+import type { CatalogPart, ColumnKey } from '#shared/catalog/types'
+import { canonical, mergeIncoming, storedPart, type ImportedPart } from '#shared/catalog/merge'
 
 const BATCH = 2000
-/** JSON with sorted keys: jsonb does not keep key order, so a plain stringify would see every part as changed. */
-function canonical(value: unknown): string {
-  if (Array.isArray(value)) return `[${value.map(canonical).join(',')}]`
-  if (value && typeof value === 'object') {
-    return `{${Object.keys(value).filter(k => (value as Record<string, unknown>)[k] !== undefined).sort().map(k => `${JSON.stringify(k)}:${canonical((value as Record<string, unknown>)[k])}`).join(',')}}`
-  }
-  return JSON.stringify(value)
-}
 
 const key = (manufacturer: string, partNumber: string) => `${manufacturer.trim().toLowerCase()}\u0000${partNumber.trim().toLowerCase()}`
+
+export interface ExistingPart { id: number, manufacturer: string, partNumber: string, approved: boolean, data: CatalogPart | null }
+
+/** The current version of the parts with these makers and part numbers (by the parts_key index, not a scan). */
+export async function currentVersionsOf(db: Db | Tx, keys: readonly Pick<CatalogPart, 'manufacturer' | 'partNumber'>[]): Promise<Map<string, ExistingPart>> {
+  if (keys.length === 0) return new Map()
+  const wanted = JSON.stringify(keys.map(k => ({ m: k.manufacturer.toLowerCase(), n: k.partNumber.toLowerCase() })))
+  const rows = await db.execute<{ id: number, manufacturer: string, part_number: string, approved: boolean, data: CatalogPart | null }>(sql`
+    select distinct p.id, p.manufacturer, p.part_number, p.approved, v.data
+    from jsonb_to_recordset(${wanted}::jsonb) as x(m text, n text)
+    join parts p on lower(p.manufacturer) = x.m and lower(p.part_number) = x.n
+    left join part_versions v on v.id = p.current_version_id`)
+  return new Map(rows.map(r => [key(r.manufacturer, r.part_number), { id: r.id, manufacturer: r.manufacturer, partNumber: r.part_number, approved: r.approved, data: r.data }]))
+}
 
 /** Columns of part_versions that the parts browser filters and sorts on. */
 function versionColumns(part: CatalogPart) {
@@ -33,32 +40,31 @@ function versionColumns(part: CatalogPart) {
   }
 }
 
-function stripImportFields(part: CatalogPart): CatalogPart {
-  const { sourceRow: _, ...rest } = part
-  return rest
-}
+/** catalogVersionId / number are null when nothing changed (no new catalogue version is made). */
+export interface CommitSummary { catalogVersionId: number | null, number: number | null, added: number, updated: number, unchanged: number }
 
-export interface CommitSummary { catalogVersionId: number, number: number, added: number, updated: number, unchanged: number }
-
-/** Writes the parts as a new catalogue version (inside the caller's transaction). */
-export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userId: number | null, importId?: number, note: string, approve: boolean }): Promise<CommitSummary> {
-  const [{ next }] = await tx.select({ next: sql<number>`coalesce(max(${tables.catalogVersions.number}), 0) + 1` }).from(tables.catalogVersions) as [{ next: number }]
-  const [version] = await tx.insert(tables.catalogVersions).values({ number: next, importId: meta.importId ?? null, note: meta.note, createdBy: meta.userId }).returning()
-  const existing = await tx.select({ id: tables.parts.id, manufacturer: tables.parts.manufacturer, partNumber: tables.parts.partNumber, currentVersionId: tables.parts.currentVersionId, data: tables.partVersions.data })
-    .from(tables.parts).leftJoin(tables.partVersions, eq(tables.partVersions.id, tables.parts.currentVersionId))
-  const byKey = new Map(existing.map(p => [key(p.manufacturer, p.partNumber), p]))
+/**
+ * Writes the parts as a new catalogue version (inside the caller's transaction). With `carried` (the
+ * columns an import file has), an existing part keeps every other field as it is: stock, lead time and
+ * lifecycle set in the app survive a file without those columns. Nothing changed → no new version.
+ */
+export async function commitParts(tx: Tx, incoming: ImportedPart[], meta: { userId: number | null, importId?: number, note: string, approve: boolean, carried?: readonly ColumnKey[] }): Promise<CommitSummary> {
+  const byKey = await currentVersionsOf(tx, incoming)
 
   let added = 0
   let unchanged = 0
   const fresh: CatalogPart[] = []
   const changed: { partId: number, part: CatalogPart }[] = []
   for (const raw of incoming) {
-    const part = stripImportFields(raw)
-    const found = byKey.get(key(part.manufacturer, part.partNumber))
+    const found = byKey.get(key(raw.manufacturer, raw.partNumber))
+    const part = found?.data && meta.carried ? mergeIncoming(found.data as CatalogPart, raw, meta.carried) : storedPart(raw)
     if (!found) fresh.push(part)
     else if (canonical(found.data) !== canonical(part)) changed.push({ partId: found.id, part })
     else unchanged++
   }
+  if (fresh.length === 0 && changed.length === 0) return { catalogVersionId: null, number: null, added: 0, updated: 0, unchanged }
+  const [{ next }] = await tx.select({ next: sql<number>`coalesce(max(${tables.catalogVersions.number}), 0) + 1` }).from(tables.catalogVersions) as [{ next: number }]
+  const [version] = await tx.insert(tables.catalogVersions).values({ number: next, importId: meta.importId ?? null, note: meta.note, createdBy: meta.userId }).returning()
   // Each batch travels as one JSON parameter expanded by PostgreSQL: far fewer bind parameters than a
   // multi-row VALUES list, which is what makes a 20 000-part import fast.
   for (let i = 0; i < fresh.length; i += BATCH) {

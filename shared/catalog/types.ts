@@ -129,3 +129,15 @@ export interface ValidationIssue {
   /** 'error' rejects the row; 'warning' imports it but tells the user. */
   severity: 'error' | 'warning'
 }
+
+/** How an upload is read, beside the column mapping (stored per import; value mapping and constants also per uploader). */
+export interface ImportSettings {
+  /** Row number of the header row, when the user chose it (absent = detected). */
+  headerRow?: number
+  /** Decimal mark per column, chosen by the user (absent = detected from the cells). */
+  columnDecimalSeparators?: Partial<Record<ColumnKey, '.' | ','>>
+  /** Uploaded enum value (normalised) → ours, per column. */
+  valueMapping?: Partial<Record<ColumnKey, Record<string, string>>>
+  /** Values standing in for columns the file lacks. */
+  constants?: Partial<Record<ColumnKey, string>>
+}

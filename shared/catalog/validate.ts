@@ -327,7 +327,11 @@ export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerR
       if (!refused.has(row.rowNumber)) refuse(row.rowNumber, 'refused')
       continue
     }
-    const part = { ...values, kind, packageConfiguration: configuration ?? 'single', lifecycle: values.lifecycle ?? COLUMN_BY_KEY.lifecycle.defaultValue, priceBreaks: breaks ?? [], sourceRow: row.rowNumber } as CatalogPart
+    const defaulted: ColumnKey[] = []
+    if (values.lifecycle === undefined) defaulted.push('lifecycle')
+    if (configuration === undefined) defaulted.push('packageConfiguration')
+    if (breaks === undefined) defaulted.push('priceBreaks')
+    const part = { ...values, kind, packageConfiguration: configuration ?? 'single', lifecycle: values.lifecycle ?? COLUMN_BY_KEY.lifecycle.defaultValue, priceBreaks: breaks ?? [], sourceRow: row.rowNumber, ...(defaulted.length ? { defaulted } : {}) } as CatalogPart
     parts.push(part)
     if (dedupeKey) seen.set(dedupeKey, { rowNumber: row.rowNumber, partIndex: parts.length - 1, fingerprint })
   }

@@ -126,7 +126,9 @@ export function decimalMarkOf(text: string): DecimalSeparator | null {
   const mark = n[at] as DecimalSeparator
   if (n.indexOf(mark) !== at) return null // "1.234.567": groups
   const after = n.slice(at + 1).replace(/\D.*$/, '')
-  if (after.length === 3) return null
+  // "1,234" may be a thousands group; "0,065" may not (no group starts with 0).
+  const before = n.slice(0, at).replace(/^[+\-\u2212]/, '')
+  if (after.length === 3 && before !== '0') return null
   return mark
 }
 
