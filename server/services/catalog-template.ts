@@ -19,10 +19,12 @@ export async function sendTemplate(event: H3Event, format: 'xlsx' | 'csv') {
   sheet.columns.forEach((column, i) => { column.width = Math.max(12, (rows.header[i]?.length ?? 10) + 4) })
   // Drop-down lists for the columns with fixed values (kind, configuration, technology, currency,
   // lifecycle); other spellings are still accepted on import, the list only offers ours.
+  // exceljs writes a range key as one sqref; its typings omit the worksheet's dataValidations.
+  const validations = (sheet as unknown as { dataValidations: { add: (range: string, v: ExcelJS.DataValidation) => void } }).dataValidations
   CATALOG_COLUMNS.forEach((column, i) => {
     if (!column.values) return
     const letter = columnLetter(i)
-    sheet.dataValidations.add(`${letter}3:${letter}${TEMPLATE_LIST_ROWS + 2}`, {
+    validations.add(`${letter}3:${letter}${TEMPLATE_LIST_ROWS + 2}`, {
       type: 'list', allowBlank: true, formulae: [`"${column.values.join(',')}"`],
       showErrorMessage: true, errorStyle: 'warning', errorTitle: column.header, error: `Expected one of: ${column.values.join(', ')}`,
     })
