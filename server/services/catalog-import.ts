@@ -7,7 +7,7 @@ import { and, eq } from 'drizzle-orm'
 import { normaliseHeader, suggestMapping, checkMapping } from '#shared/catalog/mapping'
 import { validateRows } from '#shared/catalog/validate'
 import { detectDecimalSeparators, normaliseValue, type ColumnSeparator, type ValueMapping } from '#shared/catalog/values'
-import { changedFields, mergeIncoming, storedPart, type FieldChange } from '#shared/catalog/merge'
+import { changedFields, mergeIncoming, type FieldChange } from '#shared/catalog/merge'
 import type { ColumnKey, ColumnMapping, ImportSettings, RawTable } from '#shared/catalog/types'
 import type { DecimalSeparator } from '#shared/catalog/units'
 import type { UnknownValue } from '#shared/catalog/validate'
@@ -173,7 +173,7 @@ export function previewOf(table: RawTable, choice: ImportChoice) {
     currencyFromHeader: result.currencyFromHeader,
     carried: result.carried,
     decimalSeparators: separators,
-    sample: result.parts.slice(0, 25).map(storedPart),
+    sample: result.parts.slice(0, 25).map(({ defaulted: _, ...p }) => p),
     parts: result.parts,
     refused: result.refused,
   }

@@ -9,6 +9,7 @@ import { checkMapping, columnLetter } from './mapping'
 import { parsePriceBreaks } from './prices'
 import type { CatalogPart, CellValue, ColumnKey, ColumnMapping, Currency, PriceBreak, RawTable, ValidationIssue } from './types'
 import { parseQuantity, unitScaleFromHeader, type DecimalSeparator } from './units'
+import type { ImportedPart } from './merge'
 import { cellDecimalMark, currencyInHeader, normaliseValue, suggestValue, type ValueMapping } from './values'
 
 export interface ValidateOptions {
@@ -25,7 +26,8 @@ export interface ValidateOptions {
 }
 
 export interface ValidationResult {
-  parts: CatalogPart[]
+  /** Valid rows as parts; `defaulted` names fields filled by a default because the cell was blank. */
+  parts: ImportedPart[]
   issues: ValidationIssue[]
   /** Data rows looked at. */
   rowsRead: number

@@ -14,11 +14,11 @@ export const importMappingSchema = z.object({
   /** Row the headers are on (as the spreadsheet numbers it); a change re-reads the file and re-suggests the mapping. */
   headerRow: z.number().int().min(1).max(1_000_000).optional(),
   /** Decimal mark chosen for single columns, over what their cells suggest. */
-  columnDecimalSeparators: z.record(columnKey, decimalSeparatorSchema).optional(),
+  columnDecimalSeparators: z.partialRecord(columnKey, decimalSeparatorSchema).optional(),
   /** Uploaded value → ours, per enum column. */
-  valueMapping: z.record(columnKey, z.record(z.string().max(200), z.string().max(60)).refine(v => Object.keys(v).length <= 500, { message: 'At most 500 values per column' })).optional(),
+  valueMapping: z.partialRecord(columnKey, z.record(z.string().max(200), z.string().max(60)).refine(v => Object.keys(v).length <= 500, { message: 'At most 500 values per column' })).optional(),
   /** A value for every row of a column the file lacks (e.g. currency, manufacturer). */
-  constants: z.record(columnKey, z.string().trim().max(200)).optional(),
+  constants: z.partialRecord(columnKey, z.string().trim().max(200)).optional(),
 })
 
 export const importCommitSchema = importMappingSchema.extend({
