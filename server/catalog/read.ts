@@ -2,12 +2,12 @@
 // cannot be imported faithfully: not a spreadsheet, empty, too large, zip bombs, formulas, merged
 // cells, hidden rows, duplicates. Every problem names the row and cell as the user sees them.
 
-import ExcelJS from 'exceljs'
 import { CATALOG_COLUMNS, isUnitsRow } from '../../catalog/columns'
 import { columnLetter, isUnitText, suggestMapping } from '../../shared/catalog/mapping'
 import type { CellValue, HeaderCandidate, RawTable, SkippedRow, TableProblem } from '../../shared/catalog/types'
 import { detectDelimiter, parseCsv } from './csv'
-import { readZipDirectory, verifyZipEntries } from './zip'
+import { readZipDirectory } from './zip'
+import { inflateEntry, readDateStyles, readSharedStrings, readSheet, readSheetList, XlsxLimitError, type StreamLimits, type XlsxCell, type XlsxSheetInfo } from './xlsx-stream'
 
 export interface ReadOptions {
   /** bytes, upload size limit (default 5 MB) */
@@ -22,13 +22,13 @@ export interface ReadOptions {
   maxProblems?: number
   /** row number of the header row as the user sees it; absent = detected */
   headerRow?: number
+  /** filled cells one sheet may hold (default 80 per allowed row) */
+  maxCells?: number
 }
 
 export const DEFAULT_READ_LIMITS = { maxBytes: 5 * 1024 * 1024, maxRows: 20_000, maxUncompressedBytes: 100 * 1024 * 1024, maxCompressionRatio: 200, maxProblems: 500 }
-type Limits = typeof DEFAULT_READ_LIMITS & { headerRow?: number }
+type Limits = typeof DEFAULT_READ_LIMITS & { headerRow?: number, maxCells?: number }
 
-// Worksheet parts that carry nothing a catalogue import reads (hyperlink targets included: the cell text is used).
-const IGNORED_SHEET_NODES = ['dataValidations', 'conditionalFormatting', 'extLst', 'drawing', 'picture', 'pageSetup', 'pageMargins', 'headerFooter', 'printOptions', 'rowBreaks', 'tableParts', 'sheetProtection', 'hyperlinks']
 const MAX_COLUMNS = 1000
 
 const PREFERRED_SHEET = /^(parts?|catalog(ue)?|components?|parts? list)$/i
@@ -70,19 +70,6 @@ type Sniffed = 'zip' | 'csv' | { refuse: string }
 
 function startsWith(buffer: Buffer, bytes: number[]): boolean {
   return bytes.every((b, i) => buffer[i] === b)
-}
-
-/** True when a sheet's first filled row has headers for both part number and manufacturer. */
-function looksLikePartsSheet(sheet: ExcelJS.Worksheet): boolean {
-  let headers: string[] | null = null
-  sheet.eachRow({ includeEmpty: false }, (row) => {
-    if (headers) return
-    const values = Array.isArray(row.values) ? row.values.slice(1) : []
-    headers = values.map(v => (v === null || v === undefined ? '' : String(typeof v === 'object' && 'text' in (v as object) ? (v as { text: unknown }).text : v)))
-  })
-  if (!headers) return false
-  const { mapping } = suggestMapping(headers)
-  return mapping.partNumber != null && mapping.manufacturer != null
 }
 
 /** Tells spreadsheets from other files by their first bytes. */
@@ -171,117 +158,145 @@ function readCsv(data: Buffer, fileName: string, limits: Limits): RawTable {
 
 type Row = { rowNumber: number, cells: CellValue[] }
 
-function richTextToString(value: { richText: { text: string }[] }): string {
-  return value.richText.map(r => r.text).join('')
+
+/** Excel's day count (1900 date system) as an ISO date. */
+function serialToIsoDate(serial: number): string {
+  return new Date(Date.UTC(1899, 11, 30) + Math.round(serial * 86_400_000)).toISOString().slice(0, 10)
+}
+
+function rangeOf(ref: string): { top: number, left: number, bottom: number, right: number } | null {
+  const m = /^([A-Z]+)(\d+)(?::([A-Z]+)(\d+))?$/.exec(ref.toUpperCase())
+  if (!m) return null
+  const col = (letters: string) => [...letters].reduce((n, ch) => n * 26 + ch.charCodeAt(0) - 64, 0)
+  return { top: Number(m[2]), left: col(m[1]!), bottom: Number(m[4] ?? m[2]), right: col(m[3] ?? m[1]!) }
+}
+
+/** Limits of the streaming read: rows and cells of one sheet, bytes one workbook part may unpack to. */
+function streamLimits(limits: Limits): StreamLimits {
+  return { maxRows: 2 * limits.maxRows + 10, maxCells: limits.maxCells ?? limits.maxRows * 80, maxColumns: MAX_COLUMNS, maxEntryBytes: limits.maxUncompressedBytes }
 }
 
 async function readXlsx(data: Buffer, fileName: string, limits: Limits): Promise<RawTable> {
   const zip = readZipDirectory(data, { maxUncompressedBytes: limits.maxUncompressedBytes, maxCompressionRatio: limits.maxCompressionRatio })
   if (!zip.ok) return failed(`'${fileName}': ${zip.reason}`)
-  const names = new Set(zip.entries.map(e => e.name))
-  if (!names.has('xl/workbook.xml')) {
-    if (names.has('content.xml')) return failed(`'${fileName}' is an OpenDocument file (.ods), not .xlsx: save it as .xlsx or .csv`)
-    if (names.has('word/document.xml')) return failed(`'${fileName}' is a Word document, not a spreadsheet`)
+  const entries = new Map(zip.entries.map(e => [e.name, e]))
+  if (!entries.has('xl/workbook.xml')) {
+    if (entries.has('content.xml')) return failed(`'${fileName}' is an OpenDocument file (.ods), not .xlsx: save it as .xlsx or .csv`)
+    if (entries.has('word/document.xml')) return failed(`'${fileName}' is a Word document, not a spreadsheet`)
     return failed(`'${fileName}' is a zip archive but not an Excel workbook (.xlsx)`)
   }
-  const inflation = verifyZipEntries(data, zip.entries)
-  if (inflation) return failed(`'${fileName}': ${inflation}`)
-
-  const workbook = new ExcelJS.Workbook()
-  try {
-    // exceljs' typings want its own Buffer flavour and omit maxRows / maxCols, which its parser honours:
-    // they stop a far-too-large sheet early. Parts we never read are skipped.
-    const options = { ignoreNodes: IGNORED_SHEET_NODES, maxRows: 2 * limits.maxRows + 10, maxCols: MAX_COLUMNS }
-    await workbook.xlsx.load(data as unknown as ExcelJS.Buffer, options as Partial<ExcelJS.XlsxReadOptions>)
+  const bounded = streamLimits(limits)
+  // Every part is inflated once first (slice by slice, nothing kept), so a part whose directory
+  // understates its size is refused before anything is read from it.
+  for (const entry of zip.entries) {
+    const problem = inflateEntry(data, entry, bounded.maxEntryBytes, () => {})
+    if (problem) return failed(`'${fileName}': ${problem}`)
   }
-  catch (error) {
-    const message = (error as Error).message
-    if (/Max row count/.test(message)) return failed(`'${fileName}' has more than ${formatCount(2 * limits.maxRows + 10)} rows in a sheet; the limit is ${formatCount(limits.maxRows)} parts per upload: split the file`)
-    if (/Max column count/.test(message)) return failed(`'${fileName}' has more than ${MAX_COLUMNS} columns in a row; a catalogue has about ${CATALOG_COLUMNS.length}`)
-    return failed(`'${fileName}' could not be read as an .xlsx workbook (${message})`)
+  const sheetList = readSheetList(data, entries)
+  if (!Array.isArray(sheetList)) return failed(`'${fileName}': ${sheetList.problem}`)
+  const visible = sheetList.filter(s => s.state === 'visible')
+  if (visible.length === 0) return failed(`'${fileName}' has no visible worksheet`)
+  const sheet = visible.find(s => PREFERRED_SHEET.test(s.name.trim())) ?? visible.find(s => LIKELY_SHEET.test(s.name)) ?? visible[0]!
+  const sheetEntry = entries.get(sheet.path)
+  if (!sheetEntry) return failed(`'${fileName}': the sheet '${sheet.name}' is missing from the workbook (${sheet.path})`)
+  const strings = readSharedStrings(data, entries.get('xl/sharedStrings.xml'), bounded)
+  if (!Array.isArray(strings)) return failed(`'${fileName}': ${strings.problem}`)
+  const dateStyles = readDateStyles(data, entries.get('xl/styles.xml'))
+
+  const toValue = (cell: XlsxCell | undefined): CellValue => {
+    if (!cell) return null
+    switch (cell.kind) {
+      case 'number': return cell.date ? serialToIsoDate(cell.value) : cell.value
+      case 'text': return cell.value
+      case 'boolean': return cell.value ? 'TRUE' : 'FALSE'
+      default: return null
+    }
+  }
+  /** The first filled row of a sheet, read without the rest. */
+  const firstRowOf = (info: XlsxSheetInfo): string[] | null => {
+    const e = entries.get(info.path)
+    if (!e) return null
+    try {
+      const r = readSheet(data, e, strings, dateStyles, bounded, true)
+      if ('problem' in r) return null
+      const first = r.rows.find(x => x.cells.some(Boolean))
+      return first ? Array.from(first.cells, c => String(toValue(c) ?? '')) : null
+    }
+    catch {
+      return null
+    }
+  }
+  const looksLikeParts = (headers: string[] | null) => {
+    if (!headers) return false
+    const { mapping } = suggestMapping(headers)
+    return mapping.partNumber != null && mapping.manufacturer != null
   }
 
   const warnings = new Problems(limits.maxProblems)
   const errors = new Problems(limits.maxProblems)
-  const sheets = workbook.worksheets
-  const visible = sheets.filter(s => s.state === 'visible' || s.state === undefined)
-  if (visible.length === 0) return failed(`'${fileName}' has no visible worksheet`)
-  const sheet = visible.find(s => PREFERRED_SHEET.test(s.name.trim())) ?? visible.find(s => LIKELY_SHEET.test(s.name)) ?? visible[0]!
-  const others = sheets.filter(s => s !== sheet)
+  const others = sheetList.filter(s => s !== sheet)
   // A catalogue split over several sheets would import half of it: refuse, naming the sheets.
-  const alsoParts = visible.filter(s => s !== sheet && looksLikePartsSheet(s))
-  if (alsoParts.length > 0 && looksLikePartsSheet(sheet)) {
+  const alsoParts = visible.filter(s => s !== sheet && looksLikeParts(firstRowOf(s)))
+  if (alsoParts.length > 0 && looksLikeParts(firstRowOf(sheet))) {
     return failed(`'${fileName}' has parts on several sheets ('${sheet.name}', ${alsoParts.map(s => `'${s.name}'`).join(', ')}): put them on one sheet, or upload each sheet as its own file`, 'xlsx', { sheetName: sheet.name })
   }
   if (others.length > 0) {
-    warnings.add({ message: `read the sheet '${sheet.name}'; not read: ${others.map(s => `'${s.name}'${s.state !== 'visible' && s.state !== undefined ? ' (hidden)' : ''}`).join(', ')}` })
+    warnings.add({ message: `read the sheet '${sheet.name}'; not read: ${others.map(s => `'${s.name}'${s.state !== 'visible' ? ' (hidden)' : ''}`).join(', ')}` })
   }
-  // Far past the limit: stop before walking every cell (the exact count is given below otherwise).
-  if (sheet.actualRowCount > 2 * limits.maxRows + 10) {
-    return failed(`the sheet '${sheet.name}' has ${formatCount(sheet.actualRowCount)} filled rows; the limit is ${formatCount(limits.maxRows)} parts per upload: split the file`, 'xlsx', { sheetName: sheet.name })
+
+  let read: Exclude<ReturnType<typeof readSheet>, { problem: string }>
+  try {
+    const r = readSheet(data, sheetEntry, strings, dateStyles, bounded)
+    if ('problem' in r) return failed(`'${fileName}': ${r.problem}`)
+    read = r
+  }
+  catch (error) {
+    if (error instanceof XlsxLimitError) {
+      if (error.limit === 'rows') return failed(`'${fileName}' has more than ${formatCount(bounded.maxRows)} rows in a sheet; the limit is ${formatCount(limits.maxRows)} parts per upload: split the file`, 'xlsx', { sheetName: sheet.name })
+      if (error.limit === 'columns') return failed(`'${fileName}' has more than ${MAX_COLUMNS} columns in a row; a catalogue has about ${CATALOG_COLUMNS.length}`, 'xlsx', { sheetName: sheet.name })
+      return failed(`the sheet '${sheet.name}' has more than ${formatCount(bounded.maxCells)} filled cells; a catalogue of ${formatCount(limits.maxRows)} parts needs far fewer: remove the columns that are not part data, or split the file`, 'xlsx', { sheetName: sheet.name })
+    }
+    throw error
   }
 
   const rows: Row[] = []
-  const merges = new Map<string, { top: number, left: number, bottom: number, right: number }>()
   const hiddenRows: number[] = []
   let width = 0
-  sheet.eachRow({ includeEmpty: false }, (row, rowNumber) => {
+  for (const r of read.rows) {
     const cells: CellValue[] = []
     let filled = false
-    row.eachCell({ includeEmpty: false }, (cell, colNumber) => {
-      // Built only for messages: this runs for every cell of up to 20 000 rows.
-      const address = () => `${columnLetter(colNumber - 1)}${rowNumber}`
-      if (cell.isMerged) {
-        const master = cell.master
-        const range = merges.get(master.address) ?? { top: rowNumber, left: colNumber, bottom: rowNumber, right: colNumber }
-        range.top = Math.min(range.top, rowNumber)
-        range.left = Math.min(range.left, colNumber)
-        range.bottom = Math.max(range.bottom, rowNumber)
-        range.right = Math.max(range.right, colNumber)
-        merges.set(master.address, range)
-        if (cell.type === ExcelJS.ValueType.Merge) return
+    r.cells.forEach((cell, i) => {
+      if (!cell) return
+      const where = () => `${columnLetter(i)}${r.rowNumber}`
+      if (cell.kind === 'formula') {
+        errors.add({ row: r.rowNumber, column: columnLetter(i), message: `cell ${where()} holds a formula (=${cell.formula.slice(0, 40)}); catalogue values must be typed in literally: copy the column and paste values only` })
       }
-      const value = cell.value
-      let out: CellValue
-      if (value === null || value === undefined) out = null
-      else if (typeof value === 'number') out = value
-      else if (typeof value === 'string') out = value
-      else if (typeof value === 'boolean') out = value ? 'TRUE' : 'FALSE'
-      else if (value instanceof Date) {
-        out = value.toISOString().slice(0, 10)
-        warnings.add({ row: rowNumber, column: columnLetter(colNumber - 1), message: `cell ${address()} holds a date (${out}); if a number was meant, format the column as text or number and type it again` })
+      else if (cell.kind === 'error') {
+        errors.add({ row: r.rowNumber, column: columnLetter(i), message: `cell ${where()} shows the error ${cell.value}; type in the value instead` })
       }
-      else if ('formula' in value || 'sharedFormula' in value) {
-        const formula = 'formula' in value && value.formula ? value.formula : (value as { sharedFormula?: string }).sharedFormula
-        errors.add({ row: rowNumber, column: columnLetter(colNumber - 1), message: `cell ${address()} holds a formula (=${String(formula ?? '').slice(0, 40)}); catalogue values must be typed in literally: copy the column and paste values only` })
-        out = null
+      else if (cell.kind === 'number' && cell.date) {
+        warnings.add({ row: r.rowNumber, column: columnLetter(i), message: `cell ${where()} holds a date (${serialToIsoDate(cell.value)}); if a number was meant, format the column as text or number and type it again` })
       }
-      else if ('richText' in value) out = richTextToString(value)
-      else if ('hyperlink' in value) out = typeof value.text === 'string' ? value.text : richTextToString(value.text as unknown as { richText: { text: string }[] })
-      else if ('error' in value) {
-        errors.add({ row: rowNumber, column: columnLetter(colNumber - 1), message: `cell ${address()} shows the error ${value.error}; type in the value instead` })
-        out = null
-      }
-      else out = String(cell.text ?? '')
+      const out = toValue(cell)
       if (out !== null && !(typeof out === 'string' && out.trim() === '')) filled = true
-      cells[colNumber - 1] = out
-      width = Math.max(width, colNumber)
+      cells[i] = out
+      width = Math.max(width, i + 1)
     })
-    if (row.hidden && filled) hiddenRows.push(rowNumber)
-    rows.push({ rowNumber, cells })
-  })
+    if (r.hidden && filled) hiddenRows.push(r.rowNumber)
+    rows.push({ rowNumber: r.rowNumber, cells })
+  }
 
-  for (const range of merges.values()) {
-    if (range.top === range.bottom && range.left === range.right) continue
-    const text = `${columnLetter(range.left - 1)}${range.top}:${columnLetter(range.right - 1)}${range.bottom}`
-    errors.add({ row: range.top, column: columnLetter(range.left - 1), message: `cells ${text} are merged; unmerge them and fill every cell` })
+  for (const ref of read.merges) {
+    const range = rangeOf(ref)
+    if (!range || (range.top === range.bottom && range.left === range.right)) continue
+    errors.add({ row: range.top, column: columnLetter(range.left - 1), message: `cells ${ref} are merged; unmerge them and fill every cell` })
   }
   for (const [first, last] of groupRuns(hiddenRows)) {
     errors.add({ row: first, message: first === last ? `row ${first} is hidden; unhide it (or clear filters) or delete it, so that what you see is what is imported` : `rows ${first}–${last} are hidden; unhide them (or clear filters) or delete them, so that what you see is what is imported` })
   }
   const hiddenColumns: string[] = []
-  for (let c = 1; c <= width; c++) {
-    if (sheet.getColumn(c).hidden && rows.some(r => r.cells[c - 1] !== null && r.cells[c - 1] !== undefined)) hiddenColumns.push(columnLetter(c - 1))
+  for (let c = 0; c < width; c++) {
+    if (read.hiddenColumns.has(c) && rows.some(r => r.cells[c] !== null && r.cells[c] !== undefined)) hiddenColumns.push(columnLetter(c))
   }
   if (hiddenColumns.length > 0) {
     warnings.add({ column: hiddenColumns[0], message: `column${hiddenColumns.length > 1 ? 's' : ''} ${hiddenColumns.join(', ')} ${hiddenColumns.length > 1 ? 'are' : 'is'} hidden in the sheet but will be read; check the mapping` })
