@@ -14,7 +14,9 @@ import type { UnknownValue } from '#shared/catalog/validate'
 import { readCatalogFile } from '../catalog/read'
 import { currentVersionsOf } from './catalog'
 
-export const UPLOAD_LIMITS = { maxBytes: 10 * 1024 * 1024, maxRows: 20_000 }
+import { UPLOAD_LIMITS } from '../catalog/limits'
+
+export { UPLOAD_LIMITS }
 
 type ImportRow = typeof tables.catalogImports.$inferSelect
 
