@@ -99,6 +99,8 @@ export const catalogVersions = pgTable('catalog_versions', {
   note: text('note').notNull().default(''),
   partsAdded: integer('parts_added').notNull().default(0),
   partsUpdated: integer('parts_updated').notNull().default(0),
+  /** Parts in the catalogue after this version (kept, so the parts browser need not count them). */
+  partsTotal: integer('parts_total').notNull().default(0),
   createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
   createdAt: createdAt(),
 })
@@ -160,10 +162,21 @@ export const partVersions = pgTable('part_versions', {
   leadTimeDays: integer('lead_time_days'),
   lifecycle: text('lifecycle').notNull(),
   data: jsonb('data').notNull(),
+  /** True for the version parts.current_version_id points at: the parts browser reads only these rows. */
+  isCurrent: boolean('is_current').notNull().default(false),
   createdAt: createdAt(),
 }, t => [
   index('part_versions_part_idx').on(t.partId),
   index('part_versions_kind_voltage_idx').on(t.kind, t.voltageRating),
+  // One partial index per sort and filter the parts browser offers, over current versions only, so a
+  // page at 100 000 parts with many versions each reads an index range, not the versions table.
+  ...(['partNumber', 'manufacturer', 'kind', 'voltageRating', 'currentRating', 'unitPrice', 'stock', 'leadTimeDays', 'lifecycle'] as const)
+    .map(key => index(`part_versions_current_${key}_idx`).on(t[key], t.partId).where(sql`${t.isCurrent}`)),
+  index('part_versions_current_part_idx').on(t.partId).where(sql`${t.isCurrent}`),
+  // Trigram indexes for the search box (ILIKE '%text%'); pg_trgm is created by the migration.
+  index('part_versions_current_pn_trgm').using('gin', sql`${t.partNumber} gin_trgm_ops`).where(sql`${t.isCurrent}`),
+  index('part_versions_current_mfr_trgm').using('gin', sql`${t.manufacturer} gin_trgm_ops`).where(sql`${t.isCurrent}`),
+  index('part_versions_current_desc_trgm').using('gin', sql`(${t.data}->>'description') gin_trgm_ops`).where(sql`${t.isCurrent}`),
 ])
 
 export const partAssignments = pgTable('part_assignments', {

@@ -3,6 +3,7 @@
 import { eq, inArray, isNotNull, sql } from 'drizzle-orm'
 import type { CatalogPart, ColumnKey } from '#shared/catalog/types'
 import { canonical, mergeIncoming, storedPart, type ImportedPart } from '#shared/catalog/merge'
+import { indexParts, type PartIndex } from '#shared/catalog/matching'
 
 const BATCH = 2000
 
@@ -89,37 +90,57 @@ export async function commitParts(tx: Tx, incoming: ImportedPart[], meta: { user
         stock: v.stock, lead_time_days: v.leadTimeDays, lifecycle: v.lifecycle, data: c.part,
       }
     })
+    // The version that was current stops being so; the new one is (the parts browser reads only these).
+    await tx.execute(sql`update part_versions set is_current = false where is_current and part_id = any(${`{${slice.map(c => c.partId).join(',')}}`}::int[])`)
     await tx.execute(sql`
       with inserted as (
-        insert into part_versions (part_id, catalog_version_id, part_number, manufacturer, kind, package_config, voltage_rating, current_rating, unit_price, currency, stock, lead_time_days, lifecycle, data)
-        select x.part_id, ${version!.id}, x.part_number, x.manufacturer, x.kind, x.package_config, x.voltage_rating, x.current_rating, x.unit_price, x.currency, x.stock, x.lead_time_days, x.lifecycle, x.data
+        insert into part_versions (part_id, catalog_version_id, part_number, manufacturer, kind, package_config, voltage_rating, current_rating, unit_price, currency, stock, lead_time_days, lifecycle, data, is_current)
+        select x.part_id, ${version!.id}, x.part_number, x.manufacturer, x.kind, x.package_config, x.voltage_rating, x.current_rating, x.unit_price, x.currency, x.stock, x.lead_time_days, x.lifecycle, x.data, true
         from jsonb_to_recordset(${JSON.stringify(rows)}::jsonb) as x(part_id int, part_number text, manufacturer text, kind text, package_config text, voltage_rating float8, current_rating float8, unit_price float8, currency text, stock int, lead_time_days int, lifecycle text, data jsonb)
         returning id, part_id
       )
       update parts set current_version_id = inserted.id from inserted where parts.id = inserted.part_id`)
   }
-  await tx.update(tables.catalogVersions).set({ partsAdded: added, partsUpdated: updated }).where(eq(tables.catalogVersions.id, version!.id))
+  const [{ total }] = await tx.select({ total: sql<number>`count(*)::int` }).from(tables.parts).where(isNotNull(tables.parts.currentVersionId)) as [{ total: number }]
+  await tx.update(tables.catalogVersions).set({ partsAdded: added, partsUpdated: updated, partsTotal: total }).where(eq(tables.catalogVersions.id, version!.id))
   bumpCatalogGeneration()
   return { catalogVersionId: version!.id, number: next, added, updated, unchanged }
 }
 
 let generation = 0
-let cache: { generation: number, parts: (CatalogPart & { partVersionId: number, approved: boolean })[] } | null = null
+type CurrentPart = CatalogPart & { partVersionId: number, partId: number, approved: boolean }
+let cache: { generation: number, catalogueNumber: number, parts: CurrentPart[], index: PartIndex } | null = null
 
+/** Local changes that make no catalogue version (approval flags) drop the cache of this instance. */
 export function bumpCatalogGeneration() {
   generation++
 }
 
+/** The newest catalogue version number: the one fact every instance compares its cache with. */
+export async function catalogueNumber(): Promise<number> {
+  const [row] = await useDb().select({ n: sql<number>`coalesce(max(${tables.catalogVersions.number}), 0)::int` }).from(tables.catalogVersions)
+  return row?.n ?? 0
+}
+
+/**
+ * The current version of every part and its matching index, kept between requests until a commit
+ * (a new catalogue version number in the database, seen by every instance) or a local approval change.
+ */
+export async function currentCatalogue(): Promise<{ parts: CurrentPart[], index: PartIndex, catalogueNumber: number }> {
+  const number = await catalogueNumber()
+  if (cache && cache.generation === generation && cache.catalogueNumber === number) return cache
+  const g = generation
+  const rows = await useDb().select({ id: tables.partVersions.id, partId: tables.partVersions.partId, data: tables.partVersions.data, approved: tables.parts.approved })
+    .from(tables.partVersions).innerJoin(tables.parts, eq(tables.parts.id, tables.partVersions.partId))
+    .where(eq(tables.partVersions.isCurrent, true))
+  const parts = rows.map(r => ({ ...(r.data as CatalogPart), partVersionId: r.id, partId: r.partId, approved: r.approved }))
+  cache = { generation: g, catalogueNumber: number, parts, index: indexParts(parts) }
+  return cache
+}
+
 /** The current version of every part (cached until the catalogue changes). */
 export async function currentParts() {
-  if (cache && cache.generation === generation) return cache.parts
-  const g = generation
-  const rows = await useDb().select({ id: tables.partVersions.id, data: tables.partVersions.data, approved: tables.parts.approved })
-    .from(tables.parts).innerJoin(tables.partVersions, eq(tables.partVersions.id, tables.parts.currentVersionId))
-    .where(isNotNull(tables.parts.currentVersionId))
-  const parts = rows.map(r => ({ ...(r.data as CatalogPart), partVersionId: r.id, approved: r.approved }))
-  cache = { generation: g, parts }
-  return parts
+  return (await currentCatalogue()).parts
 }
 
 export async function partVersionsById(ids: number[]) {

@@ -3,10 +3,10 @@
 import { eq } from 'drizzle-orm'
 import { evaluateDesign } from '#shared/engine'
 import type { DesignInput, DesignResult } from '#shared/engine/types'
-import { indexParts, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, whyNothingFits, type Candidate, type MatchPolicy, type PositionDuty } from '#shared/catalog/matching'
+import { matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, whyNothingFits, type Candidate, type MatchPolicy, type PositionDuty } from '#shared/catalog/matching'
 import type { CatalogPart } from '#shared/catalog/types'
 import type { BomSettings } from '#shared/schemas/design'
-import { currentParts, partVersionsById } from './catalog'
+import { currentCatalogue, partVersionsById } from './catalog'
 import { loadDesign } from './designs'
 
 export type Side = 'machine' | 'grid'
@@ -61,11 +61,11 @@ export async function matchDesign(designId: number, limit = 40) {
   const input = design.input as DesignInput
   const result = withEngine(() => evaluateDesign(input))
   const policy = matchPolicy(input, result, design.bomSettings as BomSettings)
-  const parts = await currentParts()
+  // The part index is kept between requests until the catalogue version number changes.
+  const { parts, index } = await currentCatalogue()
   const assignments = await useDb().select().from(tables.partAssignments).where(eq(tables.partAssignments.designId, designId))
   const pinned = await partVersionsById(assignments.map(a => a.partVersionId))
   const currentIds = new Set(parts.map(p => p.partVersionId))
-  const index = indexParts(parts)
   const positions: PositionMatch[] = designPositions(input, result).map(({ side, duty, label }) => {
     const m = matchPosition(duty, index, policy)
     const candidates = m.candidates.slice(0, limit).map(c => ({ ...c, partVersionId: (c.part as Part).partVersionId, approved: (c.part as Part & { approved: boolean }).approved }))
