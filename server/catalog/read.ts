@@ -158,7 +158,6 @@ function readCsv(data: Buffer, fileName: string, limits: Limits): RawTable {
 
 type Row = { rowNumber: number, cells: CellValue[] }
 
-
 /** Excel's day count (1900 date system) as an ISO date. */
 function serialToIsoDate(serial: number): string {
   return new Date(Date.UTC(1899, 11, 30) + Math.round(serial * 86_400_000)).toISOString().slice(0, 10)
@@ -189,7 +188,7 @@ async function readXlsx(data: Buffer, fileName: string, limits: Limits): Promise
   // Every part is inflated once first (slice by slice, nothing kept), so a part whose directory
   // understates its size is refused before anything is read from it.
   for (const entry of zip.entries) {
-    const problem = inflateEntry(data, entry, bounded.maxEntryBytes, () => {})
+    const problem = inflateEntry(data, entry, bounded.maxEntryBytes, () => undefined)
     if (problem) return failed(`'${fileName}': ${problem}`)
   }
   const sheetList = readSheetList(data, entries)
@@ -469,4 +468,3 @@ function buildTable(allRows: Row[], sheetName: string, format: RawTable['format'
     errors: errors.finish('problems'),
   }
 }
-

@@ -41,7 +41,7 @@ const SLICE = 16 * 1024
  * Inflates one entry slice by slice, handing each piece of output to `onData`; stops when onData
  * returns false. Output beyond the declared size (or `maxBytes`) is refused: the caller gets the reason.
  */
-export function inflateEntry(buffer: Buffer, entry: ZipEntry, maxBytes: number, onData: (chunk: Uint8Array) => boolean | void): string | null {
+export function inflateEntry(buffer: Buffer, entry: ZipEntry, maxBytes: number, onData: (chunk: Uint8Array) => boolean | undefined): string | null {
   const at = entry.localHeaderOffset
   if (at + 30 > buffer.length || buffer.readUInt32LE(at) !== 0x04034b50) return `the zip structure of the file is broken (entry '${entry.name}')`
   const start = at + 30 + buffer.readUInt16LE(at + 26) + buffer.readUInt16LE(at + 28)
@@ -93,7 +93,7 @@ function decode(text: string): string {
 
 function attributes(tag: string): Record<string, string> {
   const out: Record<string, string> = {}
-  for (const m of tag.matchAll(/([\w:]+)\s*=\s*(?:"([^"]*)"|'([^']*)')/g)) out[m[1]!.replace(/^\w+:/, (p) => (p === 'r:' ? 'r:' : ''))] = decode(m[2] ?? m[3] ?? '')
+  for (const m of tag.matchAll(/([\w:]+)\s*=\s*(?:"([^"]*)"|'([^']*)')/g)) out[m[1]!.replace(/^\w+:/, p => (p === 'r:' ? 'r:' : ''))] = decode(m[2] ?? m[3] ?? '')
   return out
 }
 
@@ -106,7 +106,7 @@ class XmlStream {
   private readonly decoder = new TextDecoder('utf-8')
   constructor(private readonly onTag: (name: string, tag: string, selfClosing: boolean, closing: boolean) => void, private readonly onText: (text: string) => void) {}
   push(chunk: Uint8Array, final = false) {
-    let s = this.rest + this.decoder.decode(chunk, { stream: !final })
+    const s = this.rest + this.decoder.decode(chunk, { stream: !final })
     let i = 0
     for (;;) {
       const lt = s.indexOf('<', i)
@@ -134,14 +134,16 @@ class XmlStream {
       i = gt + 1
     }
     this.rest = s.slice(i)
-    s = ''
   }
 }
 
 function readWhole(buffer: Buffer, entry: ZipEntry | undefined, maxBytes: number): { text: string } | { problem: string } | null {
   if (!entry) return null
   const parts: Uint8Array[] = []
-  const problem = inflateEntry(buffer, entry, maxBytes, (c) => { parts.push(c) })
+  const problem = inflateEntry(buffer, entry, maxBytes, (c) => {
+    parts.push(c)
+    return undefined
+  })
   if (problem) return { problem }
   return { text: Buffer.concat(parts).toString('utf8') }
 }
@@ -191,7 +193,7 @@ export function readSharedStrings(buffer: Buffer, entry: ZipEntry | undefined, l
   })
   const problem = inflateEntry(buffer, entry, limits.maxEntryBytes, (c) => {
     xml.push(c)
-    if (strings.length > limits.maxCells) return false
+    return strings.length <= limits.maxCells
   })
   if (problem) return { problem }
   return strings

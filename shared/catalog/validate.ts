@@ -185,9 +185,11 @@ export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerR
   if (indexOf.currency === undefined && !constants.currency && indexOf.priceBreaks !== undefined) {
     currencyFromHeader = currencyInHeader(table.headers[indexOf.priceBreaks]!)
   }
-  const constantOf: Partial<Record<ColumnKey, string>> = { ...constants }
-  if (currencyFromHeader) constantOf.currency = currencyFromHeader
-  for (const key of Object.keys(constantOf) as ColumnKey[]) if (indexOf[key] !== undefined || !constantOf[key]) delete constantOf[key]
+  // Constants stand only for columns the file lacks.
+  const constantOf: Partial<Record<ColumnKey, string>> = Object.fromEntries(
+    Object.entries({ ...constants, ...(currencyFromHeader ? { currency: currencyFromHeader } : {}) })
+      .filter(([key, value]) => value && indexOf[key as ColumnKey] === undefined),
+  )
   const carried = CATALOG_COLUMNS.map(c => c.key).filter(k => indexOf[k] !== undefined || constantOf[k] !== undefined)
 
   const separatorOf = (key: ColumnKey): DecimalSeparator => opts.columnDecimalSeparators?.[key] ?? opts.decimalSeparator

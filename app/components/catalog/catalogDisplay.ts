@@ -33,9 +33,18 @@ export interface ImportDescription {
   decimalSeparator: '.' | ','
   warnings: TableProblem[]
   preview: {
-    rowsRead: number, rowsWithErrors: number, validParts: number, issues: ValidationIssue[], issueCount: number, truncated: boolean, sample: CatalogPart[]
-    duplicatesSkipped: { rowNumber: number, sameAs: number }[], unknownValues: UnknownValueInfo[], currencyFromHeader: string | null
-    carried: ColumnKey[], decimalSeparators: ColumnSeparatorInfo[]
+    rowsRead: number
+    rowsWithErrors: number
+    validParts: number
+    issues: ValidationIssue[]
+    issueCount: number
+    truncated: boolean
+    sample: CatalogPart[]
+    duplicatesSkipped: { rowNumber: number, sameAs: number }[]
+    unknownValues: UnknownValueInfo[]
+    currencyFromHeader: string | null
+    carried: ColumnKey[]
+    decimalSeparators: ColumnSeparatorInfo[]
   }
 }
 
