@@ -98,6 +98,9 @@ export interface CatalogColumn {
 }
 
 const SEMIS = SEMICONDUCTOR_KINDS
+// A switch's own diode figures and R_th(c-h) are optional: a part without them imports with them empty
+// and matching says which figure is missing (losses or T_j not computed). A diode part needs its own.
+const DIODE_ONLY: readonly PartKind[] = ['diode']
 const ALL = PART_KINDS
 
 export const CATALOG_COLUMNS: readonly CatalogColumn[] = [
@@ -171,13 +174,13 @@ export const CATALOG_COLUMNS: readonly CatalogColumn[] = [
     aliases: ['rce', 'r ce', 'rt switch', 'r switch', 'switch r', 'igbt r', 'rds(on)', 'rdson', 'rds on', 'slope resistance switch', 'on resistance'],
   },
   {
-    key: 'diodeThresholdVoltage', header: 'Diode threshold voltage V0', unit: 'V', type: 'number', requiredFor: DIODE_KINDS, min: 0, max: 10,
+    key: 'diodeThresholdVoltage', header: 'Diode threshold voltage V0', unit: 'V', type: 'number', requiredFor: DIODE_ONLY, min: 0, max: 10,
     description: 'On-state model of the diode, v = V0 + r·i, hot.',
     examples: { 'switch-diode': 0.9, 'diode': 1.1 },
     aliases: ['vf0', 'v f0', 'vt0 diode', 'v0 diode', 'diode v0', 'vto diode', 'threshold voltage diode'],
   },
   {
-    key: 'diodeSlopeResistance', header: 'Diode slope resistance r', unit: 'Ω', type: 'number', requiredFor: DIODE_KINDS, min: 0, max: 10,
+    key: 'diodeSlopeResistance', header: 'Diode slope resistance r', unit: 'Ω', type: 'number', requiredFor: DIODE_ONLY, min: 0, max: 10,
     description: 'On-state slope resistance of the diode, hot.',
     examples: { 'switch-diode': '1.6 mΩ', 'diode': '0.9 mΩ' },
     aliases: ['rf', 'r f', 'rd', 'rt diode', 'r diode', 'diode r', 'slope resistance diode'],
@@ -195,7 +198,7 @@ export const CATALOG_COLUMNS: readonly CatalogColumn[] = [
     aliases: ['eoff', 'e off', 'turn off energy', 'turn-off loss'],
   },
   {
-    key: 'recoveryEnergy', header: 'Reverse-recovery energy Err', unit: 'J', type: 'number', requiredFor: DIODE_KINDS, min: 0, max: 100,
+    key: 'recoveryEnergy', header: 'Reverse-recovery energy Err', unit: 'J', type: 'number', requiredFor: DIODE_ONLY, min: 0, max: 100,
     description: 'Diode reverse-recovery energy per event at the test voltage and current, hot; 0 for a SiC Schottky diode.',
     examples: { 'switch-diode': '30 mJ', 'diode': '0.9 J' },
     aliases: ['err', 'erec', 'e rec', 'e rr', 'recovery energy', 'reverse recovery energy'],
@@ -219,13 +222,13 @@ export const CATALOG_COLUMNS: readonly CatalogColumn[] = [
     aliases: ['rthjc switch', 'rth jc switch', 'rth(j-c) igbt', 'rthjc igbt', 'rth jc igbt', 'rth(j-c) switch', 'rthjc', 'rth jc', 'rth(j-c)', 'rthjc transistor'],
   },
   {
-    key: 'rthJunctionCaseDiode', header: 'Rth junction-case diode', unit: 'K/W', type: 'number', requiredFor: DIODE_KINDS, min: 0.0001, max: 50,
+    key: 'rthJunctionCaseDiode', header: 'Rth junction-case diode', unit: 'K/W', type: 'number', requiredFor: DIODE_ONLY, min: 0.0001, max: 50,
     description: 'Thermal resistance junction to case of one diode.',
     examples: { 'switch-diode': 0.11, 'diode': 0.02 },
     aliases: ['rthjc diode', 'rth jc diode', 'rth(j-c) diode', 'rthjc fwd', 'rth(j-c) fwd', 'rth jc d'],
   },
   {
-    key: 'rthCaseHeatsink', header: 'Rth case-heatsink', unit: 'K/W', type: 'number', requiredFor: SEMIS, min: 0, max: 50,
+    key: 'rthCaseHeatsink', header: 'Rth case-heatsink', unit: 'K/W', type: 'number', requiredFor: [], min: 0, max: 50,
     description: 'Thermal resistance case to heatsink per switch or diode, with the specified interface material.',
     examples: { 'switch-diode': 0.03, 'switch': 0.04, 'diode': 0.01 },
     aliases: ['rthch', 'rth ch', 'rth(c-h)', 'rth(c-s)', 'rthcs', 'rth cs', 'rth case heatsink', 'rth case sink'],

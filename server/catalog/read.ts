@@ -2,12 +2,12 @@
 // cannot be imported faithfully: not a spreadsheet, empty, too large, zip bombs, formulas, merged
 // cells, hidden rows, duplicates. Every problem names the row and cell as the user sees them.
 
-import ExcelJS from 'exceljs'
 import { CATALOG_COLUMNS, isUnitsRow } from '../../catalog/columns'
-import { columnLetter, suggestMapping } from '../../shared/catalog/mapping'
-import type { CellValue, RawTable, TableProblem } from '../../shared/catalog/types'
+import { columnLetter, isUnitText, suggestMapping } from '../../shared/catalog/mapping'
+import type { CellValue, HeaderCandidate, RawTable, SkippedRow, TableProblem } from '../../shared/catalog/types'
 import { detectDelimiter, parseCsv } from './csv'
-import { readZipDirectory, verifyZipEntries } from './zip'
+import { readZipDirectory } from './zip'
+import { inflateEntry, readDateStyles, readSharedStrings, readSheet, readSheetList, XlsxLimitError, type StreamLimits, type XlsxCell, type XlsxSheetInfo } from './xlsx-stream'
 
 export interface ReadOptions {
   /** bytes, upload size limit (default 5 MB) */
@@ -20,12 +20,15 @@ export interface ReadOptions {
   maxCompressionRatio?: number
   /** problems listed before summarising the rest (default 500) */
   maxProblems?: number
+  /** row number of the header row as the user sees it; absent = detected */
+  headerRow?: number
+  /** filled cells one sheet may hold (default 80 per allowed row) */
+  maxCells?: number
 }
 
 export const DEFAULT_READ_LIMITS = { maxBytes: 5 * 1024 * 1024, maxRows: 20_000, maxUncompressedBytes: 100 * 1024 * 1024, maxCompressionRatio: 200, maxProblems: 500 }
+type Limits = typeof DEFAULT_READ_LIMITS & { headerRow?: number, maxCells?: number }
 
-// Worksheet parts that carry nothing a catalogue import reads (hyperlink targets included: the cell text is used).
-const IGNORED_SHEET_NODES = ['dataValidations', 'conditionalFormatting', 'extLst', 'drawing', 'picture', 'pageSetup', 'pageMargins', 'headerFooter', 'printOptions', 'rowBreaks', 'tableParts', 'sheetProtection', 'hyperlinks']
 const MAX_COLUMNS = 1000
 
 const PREFERRED_SHEET = /^(parts?|catalog(ue)?|components?|parts? list)$/i
@@ -60,26 +63,13 @@ class Problems {
 }
 
 function failed(message: string, format: RawTable['format'] = 'xlsx', extra: Partial<RawTable> = {}): RawTable {
-  return { sheetName: '', format, headerRowNumber: 0, headers: [], rows: [], warnings: [], errors: [{ message }], ...extra }
+  return { sheetName: '', format, headerRowNumber: 0, headers: [], rows: [], skipped: [], headerCandidates: [], warnings: [], errors: [{ message }], ...extra }
 }
 
 type Sniffed = 'zip' | 'csv' | { refuse: string }
 
 function startsWith(buffer: Buffer, bytes: number[]): boolean {
   return bytes.every((b, i) => buffer[i] === b)
-}
-
-/** True when a sheet's first filled row has headers for both part number and manufacturer. */
-function looksLikePartsSheet(sheet: ExcelJS.Worksheet): boolean {
-  let headers: string[] | null = null
-  sheet.eachRow({ includeEmpty: false }, (row) => {
-    if (headers) return
-    const values = Array.isArray(row.values) ? row.values.slice(1) : []
-    headers = values.map(v => (v === null || v === undefined ? '' : String(typeof v === 'object' && 'text' in (v as object) ? (v as { text: unknown }).text : v)))
-  })
-  if (!headers) return false
-  const { mapping } = suggestMapping(headers)
-  return mapping.partNumber != null && mapping.manufacturer != null
 }
 
 /** Tells spreadsheets from other files by their first bytes. */
@@ -140,7 +130,7 @@ function decodeText(data: Buffer): { text: string, warning?: string } {
   }
 }
 
-function readCsv(data: Buffer, fileName: string, limits: typeof DEFAULT_READ_LIMITS): RawTable {
+function readCsv(data: Buffer, fileName: string, limits: Limits): RawTable {
   const { text, warning } = decodeText(data)
   if (text.trim() === '') return failed(`'${fileName}' is empty (no text)`, 'csv')
   const delimiter = detectDelimiter(text)
@@ -168,117 +158,144 @@ function readCsv(data: Buffer, fileName: string, limits: typeof DEFAULT_READ_LIM
 
 type Row = { rowNumber: number, cells: CellValue[] }
 
-function richTextToString(value: { richText: { text: string }[] }): string {
-  return value.richText.map(r => r.text).join('')
+/** Excel's day count (1900 date system) as an ISO date. */
+function serialToIsoDate(serial: number): string {
+  return new Date(Date.UTC(1899, 11, 30) + Math.round(serial * 86_400_000)).toISOString().slice(0, 10)
 }
 
-async function readXlsx(data: Buffer, fileName: string, limits: typeof DEFAULT_READ_LIMITS): Promise<RawTable> {
+function rangeOf(ref: string): { top: number, left: number, bottom: number, right: number } | null {
+  const m = /^([A-Z]+)(\d+)(?::([A-Z]+)(\d+))?$/.exec(ref.toUpperCase())
+  if (!m) return null
+  const col = (letters: string) => [...letters].reduce((n, ch) => n * 26 + ch.charCodeAt(0) - 64, 0)
+  return { top: Number(m[2]), left: col(m[1]!), bottom: Number(m[4] ?? m[2]), right: col(m[3] ?? m[1]!) }
+}
+
+/** Limits of the streaming read: rows and cells of one sheet, bytes one workbook part may unpack to. */
+function streamLimits(limits: Limits): StreamLimits {
+  return { maxRows: 2 * limits.maxRows + 10, maxCells: limits.maxCells ?? limits.maxRows * 80, maxColumns: MAX_COLUMNS, maxEntryBytes: limits.maxUncompressedBytes }
+}
+
+async function readXlsx(data: Buffer, fileName: string, limits: Limits): Promise<RawTable> {
   const zip = readZipDirectory(data, { maxUncompressedBytes: limits.maxUncompressedBytes, maxCompressionRatio: limits.maxCompressionRatio })
   if (!zip.ok) return failed(`'${fileName}': ${zip.reason}`)
-  const names = new Set(zip.entries.map(e => e.name))
-  if (!names.has('xl/workbook.xml')) {
-    if (names.has('content.xml')) return failed(`'${fileName}' is an OpenDocument file (.ods), not .xlsx: save it as .xlsx or .csv`)
-    if (names.has('word/document.xml')) return failed(`'${fileName}' is a Word document, not a spreadsheet`)
+  const entries = new Map(zip.entries.map(e => [e.name, e]))
+  if (!entries.has('xl/workbook.xml')) {
+    if (entries.has('content.xml')) return failed(`'${fileName}' is an OpenDocument file (.ods), not .xlsx: save it as .xlsx or .csv`)
+    if (entries.has('word/document.xml')) return failed(`'${fileName}' is a Word document, not a spreadsheet`)
     return failed(`'${fileName}' is a zip archive but not an Excel workbook (.xlsx)`)
   }
-  const inflation = verifyZipEntries(data, zip.entries)
-  if (inflation) return failed(`'${fileName}': ${inflation}`)
-
-  const workbook = new ExcelJS.Workbook()
-  try {
-    // exceljs' typings want its own Buffer flavour and omit maxRows / maxCols, which its parser honours:
-    // they stop a far-too-large sheet early. Parts we never read are skipped.
-    const options = { ignoreNodes: IGNORED_SHEET_NODES, maxRows: 2 * limits.maxRows + 10, maxCols: MAX_COLUMNS }
-    await workbook.xlsx.load(data as unknown as ExcelJS.Buffer, options as Partial<ExcelJS.XlsxReadOptions>)
+  const bounded = streamLimits(limits)
+  // Every part is inflated once first (slice by slice, nothing kept), so a part whose directory
+  // understates its size is refused before anything is read from it.
+  for (const entry of zip.entries) {
+    const problem = inflateEntry(data, entry, bounded.maxEntryBytes, () => undefined)
+    if (problem) return failed(`'${fileName}': ${problem}`)
   }
-  catch (error) {
-    const message = (error as Error).message
-    if (/Max row count/.test(message)) return failed(`'${fileName}' has more than ${formatCount(2 * limits.maxRows + 10)} rows in a sheet; the limit is ${formatCount(limits.maxRows)} parts per upload: split the file`)
-    if (/Max column count/.test(message)) return failed(`'${fileName}' has more than ${MAX_COLUMNS} columns in a row; a catalogue has about ${CATALOG_COLUMNS.length}`)
-    return failed(`'${fileName}' could not be read as an .xlsx workbook (${message})`)
+  const sheetList = readSheetList(data, entries)
+  if (!Array.isArray(sheetList)) return failed(`'${fileName}': ${sheetList.problem}`)
+  const visible = sheetList.filter(s => s.state === 'visible')
+  if (visible.length === 0) return failed(`'${fileName}' has no visible worksheet`)
+  const sheet = visible.find(s => PREFERRED_SHEET.test(s.name.trim())) ?? visible.find(s => LIKELY_SHEET.test(s.name)) ?? visible[0]!
+  const sheetEntry = entries.get(sheet.path)
+  if (!sheetEntry) return failed(`'${fileName}': the sheet '${sheet.name}' is missing from the workbook (${sheet.path})`)
+  const strings = readSharedStrings(data, entries.get('xl/sharedStrings.xml'), bounded)
+  if (!Array.isArray(strings)) return failed(`'${fileName}': ${strings.problem}`)
+  const dateStyles = readDateStyles(data, entries.get('xl/styles.xml'))
+
+  const toValue = (cell: XlsxCell | undefined): CellValue => {
+    if (!cell) return null
+    switch (cell.kind) {
+      case 'number': return cell.date ? serialToIsoDate(cell.value) : cell.value
+      case 'text': return cell.value
+      case 'boolean': return cell.value ? 'TRUE' : 'FALSE'
+      default: return null
+    }
+  }
+  /** The first filled row of a sheet, read without the rest. */
+  const firstRowOf = (info: XlsxSheetInfo): string[] | null => {
+    const e = entries.get(info.path)
+    if (!e) return null
+    try {
+      const r = readSheet(data, e, strings, dateStyles, bounded, true)
+      if ('problem' in r) return null
+      const first = r.rows.find(x => x.cells.some(Boolean))
+      return first ? Array.from(first.cells, c => String(toValue(c) ?? '')) : null
+    }
+    catch {
+      return null
+    }
+  }
+  const looksLikeParts = (headers: string[] | null) => {
+    if (!headers) return false
+    const { mapping } = suggestMapping(headers)
+    return mapping.partNumber != null && mapping.manufacturer != null
   }
 
   const warnings = new Problems(limits.maxProblems)
   const errors = new Problems(limits.maxProblems)
-  const sheets = workbook.worksheets
-  const visible = sheets.filter(s => s.state === 'visible' || s.state === undefined)
-  if (visible.length === 0) return failed(`'${fileName}' has no visible worksheet`)
-  const sheet = visible.find(s => PREFERRED_SHEET.test(s.name.trim())) ?? visible.find(s => LIKELY_SHEET.test(s.name)) ?? visible[0]!
-  const others = sheets.filter(s => s !== sheet)
+  const others = sheetList.filter(s => s !== sheet)
   // A catalogue split over several sheets would import half of it: refuse, naming the sheets.
-  const alsoParts = visible.filter(s => s !== sheet && looksLikePartsSheet(s))
-  if (alsoParts.length > 0 && looksLikePartsSheet(sheet)) {
+  const alsoParts = visible.filter(s => s !== sheet && looksLikeParts(firstRowOf(s)))
+  if (alsoParts.length > 0 && looksLikeParts(firstRowOf(sheet))) {
     return failed(`'${fileName}' has parts on several sheets ('${sheet.name}', ${alsoParts.map(s => `'${s.name}'`).join(', ')}): put them on one sheet, or upload each sheet as its own file`, 'xlsx', { sheetName: sheet.name })
   }
   if (others.length > 0) {
-    warnings.add({ message: `read the sheet '${sheet.name}'; not read: ${others.map(s => `'${s.name}'${s.state !== 'visible' && s.state !== undefined ? ' (hidden)' : ''}`).join(', ')}` })
+    warnings.add({ message: `read the sheet '${sheet.name}'; not read: ${others.map(s => `'${s.name}'${s.state !== 'visible' ? ' (hidden)' : ''}`).join(', ')}` })
   }
-  // Far past the limit: stop before walking every cell (the exact count is given below otherwise).
-  if (sheet.actualRowCount > 2 * limits.maxRows + 10) {
-    return failed(`the sheet '${sheet.name}' has ${formatCount(sheet.actualRowCount)} filled rows; the limit is ${formatCount(limits.maxRows)} parts per upload: split the file`, 'xlsx', { sheetName: sheet.name })
+
+  let read: Exclude<ReturnType<typeof readSheet>, { problem: string }>
+  try {
+    const r = readSheet(data, sheetEntry, strings, dateStyles, bounded)
+    if ('problem' in r) return failed(`'${fileName}': ${r.problem}`)
+    read = r
+  }
+  catch (error) {
+    if (error instanceof XlsxLimitError) {
+      if (error.limit === 'rows') return failed(`'${fileName}' has more than ${formatCount(bounded.maxRows)} rows in a sheet; the limit is ${formatCount(limits.maxRows)} parts per upload: split the file`, 'xlsx', { sheetName: sheet.name })
+      if (error.limit === 'columns') return failed(`'${fileName}' has more than ${MAX_COLUMNS} columns in a row; a catalogue has about ${CATALOG_COLUMNS.length}`, 'xlsx', { sheetName: sheet.name })
+      return failed(`the sheet '${sheet.name}' has more than ${formatCount(bounded.maxCells)} filled cells; a catalogue of ${formatCount(limits.maxRows)} parts needs far fewer: remove the columns that are not part data, or split the file`, 'xlsx', { sheetName: sheet.name })
+    }
+    throw error
   }
 
   const rows: Row[] = []
-  const merges = new Map<string, { top: number, left: number, bottom: number, right: number }>()
   const hiddenRows: number[] = []
   let width = 0
-  sheet.eachRow({ includeEmpty: false }, (row, rowNumber) => {
+  for (const r of read.rows) {
     const cells: CellValue[] = []
     let filled = false
-    row.eachCell({ includeEmpty: false }, (cell, colNumber) => {
-      // Built only for messages: this runs for every cell of up to 20 000 rows.
-      const address = () => `${columnLetter(colNumber - 1)}${rowNumber}`
-      if (cell.isMerged) {
-        const master = cell.master
-        const range = merges.get(master.address) ?? { top: rowNumber, left: colNumber, bottom: rowNumber, right: colNumber }
-        range.top = Math.min(range.top, rowNumber)
-        range.left = Math.min(range.left, colNumber)
-        range.bottom = Math.max(range.bottom, rowNumber)
-        range.right = Math.max(range.right, colNumber)
-        merges.set(master.address, range)
-        if (cell.type === ExcelJS.ValueType.Merge) return
+    r.cells.forEach((cell, i) => {
+      if (!cell) return
+      const where = () => `${columnLetter(i)}${r.rowNumber}`
+      if (cell.kind === 'formula') {
+        errors.add({ row: r.rowNumber, column: columnLetter(i), message: `cell ${where()} holds a formula (=${cell.formula.slice(0, 40)}); catalogue values must be typed in literally: copy the column and paste values only` })
       }
-      const value = cell.value
-      let out: CellValue
-      if (value === null || value === undefined) out = null
-      else if (typeof value === 'number') out = value
-      else if (typeof value === 'string') out = value
-      else if (typeof value === 'boolean') out = value ? 'TRUE' : 'FALSE'
-      else if (value instanceof Date) {
-        out = value.toISOString().slice(0, 10)
-        warnings.add({ row: rowNumber, column: columnLetter(colNumber - 1), message: `cell ${address()} holds a date (${out}); if a number was meant, format the column as text or number and type it again` })
+      else if (cell.kind === 'error') {
+        errors.add({ row: r.rowNumber, column: columnLetter(i), message: `cell ${where()} shows the error ${cell.value}; type in the value instead` })
       }
-      else if ('formula' in value || 'sharedFormula' in value) {
-        const formula = 'formula' in value && value.formula ? value.formula : (value as { sharedFormula?: string }).sharedFormula
-        errors.add({ row: rowNumber, column: columnLetter(colNumber - 1), message: `cell ${address()} holds a formula (=${String(formula ?? '').slice(0, 40)}); catalogue values must be typed in literally: copy the column and paste values only` })
-        out = null
+      else if (cell.kind === 'number' && cell.date) {
+        warnings.add({ row: r.rowNumber, column: columnLetter(i), message: `cell ${where()} holds a date (${serialToIsoDate(cell.value)}); if a number was meant, format the column as text or number and type it again` })
       }
-      else if ('richText' in value) out = richTextToString(value)
-      else if ('hyperlink' in value) out = typeof value.text === 'string' ? value.text : richTextToString(value.text as unknown as { richText: { text: string }[] })
-      else if ('error' in value) {
-        errors.add({ row: rowNumber, column: columnLetter(colNumber - 1), message: `cell ${address()} shows the error ${value.error}; type in the value instead` })
-        out = null
-      }
-      else out = String(cell.text ?? '')
+      const out = toValue(cell)
       if (out !== null && !(typeof out === 'string' && out.trim() === '')) filled = true
-      cells[colNumber - 1] = out
-      width = Math.max(width, colNumber)
+      cells[i] = out
+      width = Math.max(width, i + 1)
     })
-    if (row.hidden && filled) hiddenRows.push(rowNumber)
-    rows.push({ rowNumber, cells })
-  })
+    if (r.hidden && filled) hiddenRows.push(r.rowNumber)
+    rows.push({ rowNumber: r.rowNumber, cells })
+  }
 
-  for (const range of merges.values()) {
-    if (range.top === range.bottom && range.left === range.right) continue
-    const text = `${columnLetter(range.left - 1)}${range.top}:${columnLetter(range.right - 1)}${range.bottom}`
-    errors.add({ row: range.top, column: columnLetter(range.left - 1), message: `cells ${text} are merged; unmerge them and fill every cell` })
+  for (const ref of read.merges) {
+    const range = rangeOf(ref)
+    if (!range || (range.top === range.bottom && range.left === range.right)) continue
+    errors.add({ row: range.top, column: columnLetter(range.left - 1), message: `cells ${ref} are merged; unmerge them and fill every cell` })
   }
   for (const [first, last] of groupRuns(hiddenRows)) {
     errors.add({ row: first, message: first === last ? `row ${first} is hidden; unhide it (or clear filters) or delete it, so that what you see is what is imported` : `rows ${first}–${last} are hidden; unhide them (or clear filters) or delete them, so that what you see is what is imported` })
   }
   const hiddenColumns: string[] = []
-  for (let c = 1; c <= width; c++) {
-    if (sheet.getColumn(c).hidden && rows.some(r => r.cells[c - 1] !== null && r.cells[c - 1] !== undefined)) hiddenColumns.push(columnLetter(c - 1))
+  for (let c = 0; c < width; c++) {
+    if (read.hiddenColumns.has(c) && rows.some(r => r.cells[c] !== null && r.cells[c] !== undefined)) hiddenColumns.push(columnLetter(c))
   }
   if (hiddenColumns.length > 0) {
     warnings.add({ column: hiddenColumns[0], message: `column${hiddenColumns.length > 1 ? 's' : ''} ${hiddenColumns.join(', ')} ${hiddenColumns.length > 1 ? 'are' : 'is'} hidden in the sheet but will be read; check the mapping` })
@@ -303,19 +320,85 @@ function isEmptyRow(cells: CellValue[]): boolean {
   return cells.every(c => c === null || (typeof c === 'string' && c.trim() === ''))
 }
 
-/** Finds the header row, skips the template's units row, trims empty rows and checks limits and duplicates. */
-function buildTable(allRows: Row[], sheetName: string, format: RawTable['format'], limits: typeof DEFAULT_READ_LIMITS, warnings: Problems, errors: Problems): RawTable {
+/** Rows above the header looked at when detecting it. */
+const HEADER_SEARCH_ROWS = 30
+
+function filledCount(cells: readonly CellValue[]): number {
+  let n = 0
+  for (const c of cells) if (c !== null && !(typeof c === 'string' && c.trim() === '')) n++
+  return n
+}
+
+/** How many catalogue columns a row's cells would name if it were the header (numbers name none). */
+export function headerRowScore(cells: readonly CellValue[]): number {
+  const texts = cells.map(c => (typeof c === 'string' ? c : ''))
+  if (texts.filter(t => t.trim() !== '').length < 2) return 0
+  const { mapping } = suggestMapping(texts)
+  return Object.values(mapping).filter(v => v !== null && v !== undefined).length
+}
+
+/** A row of units under the header ("V", "mJ", "K/W", "—"), as suppliers and the template write it. */
+function isUnitsLikeRow(cells: readonly CellValue[]): boolean {
+  if (isUnitsRow(cells)) return true
+  const filled = cells.filter(c => c !== null && String(c).trim() !== '')
+  if (filled.length < 2) return false
+  return filled.every(c => typeof c === 'string' && (isUnitText(c) || ['-', '—', '–', 'unit', 'units', 'per piece', 'text', '%'].includes(c.trim().toLowerCase())))
+}
+
+function preview(cells: readonly CellValue[]): string {
+  const text = cells.filter(c => c !== null && String(c).trim() !== '').map(c => String(c).trim()).join(' ')
+  return text.length > 60 ? `${text.slice(0, 57)}…` : text
+}
+
+/**
+ * Finds the header row (the row whose cells best match the catalogue columns, or `headerRow` when the
+ * user chose one), skips title rows above it, a units row below it, empty rows and trailing notes
+ * rows, each with a note of what was skipped; then checks limits.
+ */
+function buildTable(allRows: Row[], sheetName: string, format: RawTable['format'], limits: Limits, warnings: Problems, errors: Problems): RawTable {
   const nonEmpty = allRows.filter(r => !isEmptyRow(r.cells))
-  const base = { sheetName, format, headerRowNumber: 0, headers: [] as string[], rows: [] as Row[] }
+  const base = { sheetName, format, headerRowNumber: 0, headers: [] as string[], rows: [] as Row[], skipped: [] as SkippedRow[], headerCandidates: [] as HeaderCandidate[] }
   if (nonEmpty.length === 0) {
     errors.add({ message: `the sheet '${sheetName}' is empty` })
     return { ...base, warnings: warnings.finish('warnings'), errors: errors.finish('problems') }
   }
-  const headerRow = nonEmpty[0]!
+  const candidates = nonEmpty.slice(0, HEADER_SEARCH_ROWS).map(r => ({ rowNumber: r.rowNumber, score: headerRowScore(r.cells), text: preview(r.cells) }))
+  let headerIndex = 0
+  if (limits.headerRow !== undefined) {
+    headerIndex = nonEmpty.findIndex(r => r.rowNumber === limits.headerRow)
+    if (headerIndex < 0) {
+      errors.add({ row: limits.headerRow, message: `row ${limits.headerRow} is empty or not in the sheet '${sheetName}'; choose the row that holds the column headers` })
+      return { ...base, headerCandidates: candidates, warnings: warnings.finish('warnings'), errors: errors.finish('problems') }
+    }
+  }
+  else {
+    let best = 0
+    candidates.forEach((c, i) => {
+      if (c.score > best) {
+        best = c.score
+        headerIndex = i
+      }
+    })
+  }
+  const headerRow = nonEmpty[headerIndex]!
+  const skipped: SkippedRow[] = []
+  for (const r of nonEmpty.slice(0, headerIndex)) skipped.push({ rowNumber: r.rowNumber, reason: 'above-header', text: preview(r.cells) })
+
   let lastHeader = headerRow.cells.length - 1
   while (lastHeader >= 0 && (headerRow.cells[lastHeader] === null || String(headerRow.cells[lastHeader]).trim() === '')) lastHeader--
-  let dataRows = nonEmpty.slice(1)
-  if (dataRows[0] && isUnitsRow(dataRows[0].cells)) dataRows = dataRows.slice(1)
+  let dataRows = nonEmpty.slice(headerIndex + 1)
+  let units: CellValue[] | null = null
+  if (dataRows[0] && isUnitsLikeRow(dataRows[0].cells)) {
+    units = dataRows[0].cells
+    skipped.push({ rowNumber: dataRows[0].rowNumber, reason: 'units', text: preview(dataRows[0].cells) })
+    dataRows = dataRows.slice(1)
+  }
+  // Notes under the table ("prices valid until …", "* preliminary"): a row filling at most two cells
+  // of a table at least four wide is a note, not a part.
+  const headerWidth = filledCount(headerRow.cells)
+  const notes: Row[] = []
+  while (headerWidth >= 4 && dataRows.length > 0 && filledCount(dataRows.at(-1)!.cells) <= 2) notes.unshift(dataRows.pop()!)
+  for (const r of notes) skipped.push({ rowNumber: r.rowNumber, reason: 'notes', text: preview(r.cells) })
 
   const dataWidth = Math.max(lastHeader + 1, ...dataRows.map((r) => {
     let w = r.cells.length
@@ -335,6 +418,9 @@ function buildTable(allRows: Row[], sheetName: string, format: RawTable['format'
     const earlier = seenHeaders.get(key)
     if (earlier) warnings.add({ row: headerRow.rowNumber, column: columnLetter(c), message: `the header '${header}' appears twice (columns ${earlier} and ${columnLetter(c)})` })
     else seenHeaders.set(key, columnLetter(c))
+    // A unit from the units row joins its header, so "Eon" over "mJ" reads bare numbers as millijoules.
+    const unit = units?.[c]
+    if (typeof unit === 'string' && !isUnitsRow(units!) && isUnitText(unit) && !/[([{]/.test(header)) header = `${header} (${unit.trim()})`
     headers.push(header)
   }
 
@@ -343,7 +429,7 @@ function buildTable(allRows: Row[], sheetName: string, format: RawTable['format'
   }
   if (dataRows.length > limits.maxRows) {
     errors.add({ message: `the sheet '${sheetName}' has ${formatCount(dataRows.length)}${format === 'csv' && dataRows.length > limits.maxRows ? ' or more' : ''} rows of parts; the limit is ${formatCount(limits.maxRows)} per upload: split the file` })
-    return { ...base, headerRowNumber: headerRow.rowNumber, headers, warnings: warnings.finish('warnings'), errors: errors.finish('problems') }
+    return { ...base, headerRowNumber: headerRow.rowNumber, headers, headerCandidates: candidates, skipped, warnings: warnings.finish('warnings'), errors: errors.finish('problems') }
   }
 
   const firstData = dataRows[0]?.rowNumber ?? 0
@@ -355,44 +441,30 @@ function buildTable(allRows: Row[], sheetName: string, format: RawTable['format'
     for (let n = firstData + 1; n < lastData; n++) if (!present.has(n)) gaps.push(n)
     gaps.sort((a, b) => a - b)
   }
+  const above = skipped.filter(s => s.reason === 'above-header')
+  if (above.length > 0) {
+    warnings.add({ row: above[0]!.rowNumber, message: `the headers were found on row ${headerRow.rowNumber}; row${above.length > 1 ? 's' : ''} ${groupRuns(above.map(s => s.rowNumber)).map(([a, b]) => (a === b ? `${a}` : `${a}–${b}`)).join(', ')} above ${above.length > 1 ? 'them were' : 'it was'} skipped ('${above[0]!.text}')` })
+  }
+  if (units && !isUnitsRow(units)) warnings.add({ row: headerRow.rowNumber + 1, message: `row ${skipped.find(s => s.reason === 'units')!.rowNumber} holds units; they were added to the headers above them` })
   if (gaps.length > 0) {
     const runs = groupRuns(gaps).map(([a, b]) => (a === b ? `${a}` : `${a}–${b}`))
     warnings.add({ row: gaps[0], message: `empty row${gaps.length > 1 ? 's' : ''} ${runs.join(', ')} skipped` })
+    for (const n of gaps) skipped.push({ rowNumber: n, reason: 'blank', text: '' })
+  }
+  if (notes.length > 0) {
+    warnings.add({ row: notes[0]!.rowNumber, message: `row${notes.length > 1 ? 's' : ''} ${groupRuns(notes.map(r => r.rowNumber)).map(([a, b]) => (a === b ? `${a}` : `${a}–${b}`)).join(', ')} below the parts ${notes.length > 1 ? 'look like notes and were' : 'looks like a note and was'} skipped ('${preview(notes[0]!.cells)}')` })
   }
   const rows = dataRows.map(r => ({ rowNumber: r.rowNumber, cells: headers.map((_, i) => r.cells[i] ?? null) }))
-
-  findDuplicates(headers, rows, errors)
+  skipped.sort((a, b) => a.rowNumber - b.rowNumber)
   return {
     sheetName,
     format,
     headerRowNumber: headerRow.rowNumber,
     headers,
     rows,
+    skipped,
+    headerCandidates: candidates,
     warnings: warnings.finish('warnings'),
     errors: errors.finish('problems'),
-  }
-}
-
-/**
- * Same manufacturer and part number on two rows, found through the suggested mapping (only when both
- * columns are recognised with confidence). Validation repeats the check with the user's final mapping.
- */
-function findDuplicates(headers: string[], rows: Row[], errors: Problems) {
-  const { suggestions } = suggestMapping(headers)
-  const partNumber = suggestions.find(s => s.key === 'partNumber')
-  const manufacturer = suggestions.find(s => s.key === 'manufacturer')
-  if (!partNumber || partNumber.index === null || partNumber.score < 0.9) return
-  if (!manufacturer || manufacturer.index === null || manufacturer.score < 0.9) return
-  const first = new Map<string, number>()
-  for (const row of rows) {
-    const pn = row.cells[partNumber.index]
-    const mfr = row.cells[manufacturer.index]
-    if (pn === null || mfr === null) continue
-    const key = `${String(mfr).trim().toLowerCase().replace(/\s+/g, ' ')}\u0000${String(pn).toLowerCase().replace(/\s+/g, '')}`
-    const earlier = first.get(key)
-    if (earlier === undefined) first.set(key, row.rowNumber)
-    else {
-      errors.add({ row: row.rowNumber, column: partNumber.column, message: `rows ${earlier} and ${row.rowNumber} are the same part (${String(mfr).trim()} ${String(pn).trim()}): keep one` })
-    }
   }
 }

@@ -3,6 +3,7 @@ import { sql } from 'drizzle-orm'
 import {
   boolean, doublePrecision, index, integer, jsonb, pgTable, serial, text, timestamp, uniqueIndex,
 } from 'drizzle-orm/pg-core'
+import type { ImportSettings } from '../../shared/catalog/types'
 
 const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 
@@ -98,6 +99,8 @@ export const catalogVersions = pgTable('catalog_versions', {
   note: text('note').notNull().default(''),
   partsAdded: integer('parts_added').notNull().default(0),
   partsUpdated: integer('parts_updated').notNull().default(0),
+  /** Parts in the catalogue after this version (kept, so the parts browser need not count them). */
+  partsTotal: integer('parts_total').notNull().default(0),
   createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
   createdAt: createdAt(),
 })
@@ -116,6 +119,10 @@ export const catalogImports = pgTable('catalog_imports', {
   issueCount: integer('issue_count').notNull().default(0),
   catalogVersionId: integer('catalog_version_id').references(() => catalogVersions.id),
   uploadedBy: integer('uploaded_by').references(() => users.id, { onDelete: 'set null' }),
+  /** Reading choices beside the mapping: header row, per-column decimal marks, value mapping, constants. */
+  settings: jsonb('settings').$type<ImportSettings>().notNull().default({}),
+  /** Rows left out by a partial commit. */
+  refusedCount: integer('refused_count').notNull().default(0),
   createdAt: createdAt(),
 })
 
@@ -124,6 +131,8 @@ export const headerMappings = pgTable('header_mappings', {
   userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
   signature: text('signature').notNull(),
   mapping: jsonb('mapping').notNull(),
+  /** Value mapping and constants remembered with the column mapping. */
+  settings: jsonb('settings').$type<Pick<ImportSettings, 'valueMapping' | 'constants'>>().notNull().default({}),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [uniqueIndex('header_mappings_key').on(t.userId, t.signature)])
 
@@ -163,10 +172,21 @@ export const partVersions = pgTable('part_versions', {
   leadTimeDays: integer('lead_time_days'),
   lifecycle: text('lifecycle').notNull(),
   data: jsonb('data').notNull(),
+  /** True for the version parts.current_version_id points at: the parts browser reads only these rows. */
+  isCurrent: boolean('is_current').notNull().default(false),
   createdAt: createdAt(),
 }, t => [
   index('part_versions_part_idx').on(t.partId),
   index('part_versions_kind_voltage_idx').on(t.kind, t.voltageRating),
+  // One partial index per sort and filter the parts browser offers, over current versions only, so a
+  // page at 100 000 parts with many versions each reads an index range, not the versions table.
+  ...(['partNumber', 'manufacturer', 'kind', 'voltageRating', 'currentRating', 'unitPrice', 'stock', 'leadTimeDays', 'lifecycle'] as const)
+    .map(key => index(`part_versions_current_${key}_idx`).on(t[key], t.partId).where(sql`${t.isCurrent}`)),
+  index('part_versions_current_part_idx').on(t.partId).where(sql`${t.isCurrent}`),
+  // Trigram indexes for the search box (ILIKE '%text%'); pg_trgm is created by the migration.
+  index('part_versions_current_pn_trgm').using('gin', sql`${t.partNumber} gin_trgm_ops`).where(sql`${t.isCurrent}`),
+  index('part_versions_current_mfr_trgm').using('gin', sql`${t.manufacturer} gin_trgm_ops`).where(sql`${t.isCurrent}`),
+  index('part_versions_current_desc_trgm').using('gin', sql`(${t.data}->>'description') gin_trgm_ops`).where(sql`${t.isCurrent}`),
 ])
 
 export const partAssignments = pgTable('part_assignments', {

@@ -1,19 +1,27 @@
 // Catalogue versions: a commit writes every part of an import in one transaction as a new
 // catalogue version; a part that changed gets a new part version, earlier versions stay readable.
 import { eq, inArray, isNotNull, sql } from 'drizzle-orm'
-import type { CatalogPart } from '#shared/catalog/types'
+import type { CatalogPart, ColumnKey } from '#shared/catalog/types'
+import { canonical, mergeIncoming, storedPart, type ImportedPart } from '#shared/catalog/merge'
+import { indexParts, type PartIndex } from '#shared/catalog/matching'
 
 const BATCH = 2000
-/** JSON with sorted keys: jsonb does not keep key order, so a plain stringify would see every part as changed. */
-function canonical(value: unknown): string {
-  if (Array.isArray(value)) return `[${value.map(canonical).join(',')}]`
-  if (value && typeof value === 'object') {
-    return `{${Object.keys(value).filter(k => (value as Record<string, unknown>)[k] !== undefined).sort().map(k => `${JSON.stringify(k)}:${canonical((value as Record<string, unknown>)[k])}`).join(',')}}`
-  }
-  return JSON.stringify(value)
-}
 
 const key = (manufacturer: string, partNumber: string) => `${manufacturer.trim().toLowerCase()}\u0000${partNumber.trim().toLowerCase()}`
+
+export interface ExistingPart { id: number, manufacturer: string, partNumber: string, approved: boolean, data: CatalogPart | null }
+
+/** The current version of the parts with these makers and part numbers (by the parts_key index, not a scan). */
+export async function currentVersionsOf(db: Db | Tx, keys: readonly Pick<CatalogPart, 'manufacturer' | 'partNumber'>[]): Promise<Map<string, ExistingPart>> {
+  if (keys.length === 0) return new Map()
+  const wanted = JSON.stringify(keys.map(k => ({ m: k.manufacturer.toLowerCase(), n: k.partNumber.toLowerCase() })))
+  const rows = await db.execute<{ id: number, manufacturer: string, part_number: string, approved: boolean, data: CatalogPart | null }>(sql`
+    select distinct p.id, p.manufacturer, p.part_number, p.approved, v.data
+    from jsonb_to_recordset(${wanted}::jsonb) as x(m text, n text)
+    join parts p on lower(p.manufacturer) = x.m and lower(p.part_number) = x.n
+    left join part_versions v on v.id = p.current_version_id`)
+  return new Map(rows.map(r => [key(r.manufacturer, r.part_number), { id: r.id, manufacturer: r.manufacturer, partNumber: r.part_number, approved: r.approved, data: r.data }]))
+}
 
 /** Columns of part_versions that the parts browser filters and sorts on. */
 function versionColumns(part: CatalogPart) {
@@ -33,14 +41,9 @@ function versionColumns(part: CatalogPart) {
   }
 }
 
-function stripImportFields(part: CatalogPart): CatalogPart {
-  const { sourceRow: _, ...rest } = part
-  return rest
-}
+/** catalogVersionId / number are null when nothing changed (no new catalogue version is made). */
+export interface CommitSummary { catalogVersionId: number | null, number: number | null, added: number, updated: number, unchanged: number }
 
-export interface CommitSummary { catalogVersionId: number, number: number, added: number, updated: number, unchanged: number }
-
-/** Writes the parts as a new catalogue version (inside the caller's transaction). */
 /**
  * Serialises catalogue changes across requests and instances: a transaction-level advisory lock,
  * held until commit. Catalogue version numbers (max + 1) and part edits (read, change, write a new
@@ -51,27 +54,31 @@ export async function lockCatalog(tx: Tx) {
   await tx.execute(sql`select pg_advisory_xact_lock(hashtext('stratavolt:catalog'))`)
 }
 
-export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userId: number | null, importId?: number, note: string, approve: boolean, onProgress?: (done: number, total: number) => Promise<void> }): Promise<CommitSummary> {
+/**
+ * Writes the parts as a new catalogue version (inside the caller's transaction). With `carried` (the
+ * columns an import file has), an existing part keeps every other field as it is: stock, lead time and
+ * lifecycle set in the app survive a file without those columns. Nothing changed → no new version.
+ */
+export async function commitParts(tx: Tx, incoming: ImportedPart[], meta: { userId: number | null, importId?: number, note: string, approve: boolean, carried?: readonly ColumnKey[], onProgress?: (done: number, total: number) => Promise<void> }): Promise<CommitSummary> {
   await lockCatalog(tx)
-  const [{ next }] = await tx.select({ next: sql<number>`coalesce(max(${tables.catalogVersions.number}), 0) + 1` }).from(tables.catalogVersions) as [{ next: number }]
-  const [version] = await tx.insert(tables.catalogVersions).values({ number: next, importId: meta.importId ?? null, note: meta.note, createdBy: meta.userId }).returning()
-  const existing = await tx.select({ id: tables.parts.id, manufacturer: tables.parts.manufacturer, partNumber: tables.parts.partNumber, currentVersionId: tables.parts.currentVersionId, data: tables.partVersions.data })
-    .from(tables.parts).leftJoin(tables.partVersions, eq(tables.partVersions.id, tables.parts.currentVersionId))
-  const byKey = new Map(existing.map(p => [key(p.manufacturer, p.partNumber), p]))
+  const byKey = await currentVersionsOf(tx, incoming)
 
   let added = 0
   let unchanged = 0
   const fresh: CatalogPart[] = []
   const changed: { partId: number, part: CatalogPart }[] = []
   for (const raw of incoming) {
-    const part = stripImportFields(raw)
-    const found = byKey.get(key(part.manufacturer, part.partNumber))
+    const found = byKey.get(key(raw.manufacturer, raw.partNumber))
+    const part = found?.data && meta.carried ? mergeIncoming(found.data as CatalogPart, raw, meta.carried) : storedPart(raw)
     if (!found) fresh.push(part)
     else if (canonical(found.data) !== canonical(part)) changed.push({ partId: found.id, part })
     else unchanged++
   }
+  if (fresh.length === 0 && changed.length === 0) return { catalogVersionId: null, number: null, added: 0, updated: 0, unchanged }
   // work units for progress: one per new part inserted, one per part version written (new and changed parts)
   const units = fresh.length * 2 + changed.length
+  const [{ next }] = await tx.select({ next: sql<number>`coalesce(max(${tables.catalogVersions.number}), 0) + 1` }).from(tables.catalogVersions) as [{ next: number }]
+  const [version] = await tx.insert(tables.catalogVersions).values({ number: next, importId: meta.importId ?? null, note: meta.note, createdBy: meta.userId }).returning()
   // Each batch travels as one JSON parameter expanded by PostgreSQL: far fewer bind parameters than a
   // multi-row VALUES list, which is what makes a 20 000-part import fast.
   for (let i = 0; i < fresh.length; i += BATCH) {
@@ -97,24 +104,28 @@ export async function commitParts(tx: Tx, incoming: CatalogPart[], meta: { userI
         stock: v.stock, lead_time_days: v.leadTimeDays, lifecycle: v.lifecycle, data: c.part,
       }
     })
+    // The version that was current stops being so; the new one is (the parts browser reads only these).
+    await tx.execute(sql`update part_versions set is_current = false where is_current and part_id = any(${`{${slice.map(c => c.partId).join(',')}}`}::int[])`)
     await tx.execute(sql`
       with inserted as (
-        insert into part_versions (part_id, catalog_version_id, part_number, manufacturer, kind, package_config, voltage_rating, current_rating, unit_price, currency, stock, lead_time_days, lifecycle, data)
-        select x.part_id, ${version!.id}, x.part_number, x.manufacturer, x.kind, x.package_config, x.voltage_rating, x.current_rating, x.unit_price, x.currency, x.stock, x.lead_time_days, x.lifecycle, x.data
+        insert into part_versions (part_id, catalog_version_id, part_number, manufacturer, kind, package_config, voltage_rating, current_rating, unit_price, currency, stock, lead_time_days, lifecycle, data, is_current)
+        select x.part_id, ${version!.id}, x.part_number, x.manufacturer, x.kind, x.package_config, x.voltage_rating, x.current_rating, x.unit_price, x.currency, x.stock, x.lead_time_days, x.lifecycle, x.data, true
         from jsonb_to_recordset(${JSON.stringify(rows)}::jsonb) as x(part_id int, part_number text, manufacturer text, kind text, package_config text, voltage_rating float8, current_rating float8, unit_price float8, currency text, stock int, lead_time_days int, lifecycle text, data jsonb)
         returning id, part_id
       )
       update parts set current_version_id = inserted.id from inserted where parts.id = inserted.part_id`)
     await meta.onProgress?.(fresh.length + i + slice.length, units)
   }
-  await tx.update(tables.catalogVersions).set({ partsAdded: added, partsUpdated: updated }).where(eq(tables.catalogVersions.id, version!.id))
+  const [{ total }] = await tx.select({ total: sql<number>`count(*)::int` }).from(tables.parts).where(isNotNull(tables.parts.currentVersionId)) as [{ total: number }]
+  await tx.update(tables.catalogVersions).set({ partsAdded: added, partsUpdated: updated, partsTotal: total }).where(eq(tables.catalogVersions.id, version!.id))
   return { catalogVersionId: version!.id, number: next, added, updated, unchanged }
 }
 
-type CurrentPart = CatalogPart & { partVersionId: number, approved: boolean }
-// A copy of the current parts, tagged with the catalogue generation it was read at. The generation lives in
-// PostgreSQL (catalog_state, moved on by triggers), so this copy is never trusted without asking for it.
-let cache: { generation: number, parts: CurrentPart[] } | null = null
+type CurrentPart = CatalogPart & { partVersionId: number, partId: number, approved: boolean }
+// A copy of the current parts and their matching index, tagged with the catalogue generation it was read at.
+// The generation lives in PostgreSQL (catalog_state, moved on by triggers on every parts / part_versions
+// write, approvals included), so this copy is never trusted without asking for it.
+let cache: { generation: number, parts: CurrentPart[], index: PartIndex } | null = null
 
 /** The catalogue generation: one primary-key read, changes with every committed part or part-version write. */
 export async function catalogGeneration(): Promise<number> {
@@ -122,22 +133,28 @@ export async function catalogGeneration(): Promise<number> {
   return row?.generation ?? 0
 }
 
-/** The current version of every part with the generation it belongs to (read again when the generation moved on). */
-export async function currentCatalog(): Promise<{ generation: number, parts: CurrentPart[] }> {
-  // Read the generation before the parts: a commit in between leaves newer parts under an older tag, which only
-  // costs one more read on the next request — never a stale answer.
+/**
+ * The current version of every part and its matching index, kept between requests until the generation
+ * moves on (any instance's commit or edit). Read the generation before the parts: a commit in between
+ * leaves newer parts under an older tag, which only costs one more read — never a stale answer.
+ */
+export async function currentCatalogue(): Promise<{ generation: number, parts: CurrentPart[], index: PartIndex }> {
   const generation = await catalogGeneration()
   if (cache && cache.generation === generation) return cache
-  const rows = await useDb().select({ id: tables.partVersions.id, data: tables.partVersions.data, approved: tables.parts.approved })
-    .from(tables.parts).innerJoin(tables.partVersions, eq(tables.partVersions.id, tables.parts.currentVersionId))
-    .where(isNotNull(tables.parts.currentVersionId))
-  cache = { generation, parts: rows.map(r => ({ ...(r.data as CatalogPart), partVersionId: r.id, approved: r.approved })) }
+  const rows = await useDb().select({ id: tables.partVersions.id, partId: tables.partVersions.partId, data: tables.partVersions.data, approved: tables.parts.approved })
+    .from(tables.partVersions).innerJoin(tables.parts, eq(tables.parts.id, tables.partVersions.partId))
+    .where(eq(tables.partVersions.isCurrent, true))
+  const parts = rows.map(r => ({ ...(r.data as CatalogPart), partVersionId: r.id, partId: r.partId, approved: r.approved }))
+  cache = { generation, parts, index: indexParts(parts) }
   return cache
 }
 
-/** The current version of every part. */
+/** Same as currentCatalogue (the name the worker-pool callers use). */
+export const currentCatalog = currentCatalogue
+
+/** The current version of every part (cached until the catalogue changes). */
 export async function currentParts() {
-  return (await currentCatalog()).parts
+  return (await currentCatalogue()).parts
 }
 
 export async function partVersionsById(ids: number[]) {

@@ -4,11 +4,11 @@
 import { eq, inArray } from 'drizzle-orm'
 import { evaluateDesign, legLayout } from '#shared/engine'
 import type { CapacitorEnvelope, DesignInput, DesignResult } from '#shared/engine/types'
-import { approvalRank, indexParts, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, rateAssignment, whyNothingFits, type Candidate, type MatchPolicy, type PositionDuty } from '#shared/catalog/matching'
+import { approvalRank, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, rateAssignment, whyNothingFits, type Candidate, type MatchPolicy, type PositionDuty } from '#shared/catalog/matching'
 import { moduleCoverage, type LegPosition } from '#shared/bom/coverage'
 import type { CatalogPart } from '#shared/catalog/types'
 import type { BomSettings } from '#shared/schemas/design'
-import { currentParts, partVersionsById } from './catalog'
+import { currentCatalogue, partVersionsById } from './catalog'
 import { loadDesign } from './designs'
 
 /** 'dc-link' = the DC link a back-to-back pair shares (one bank for both converters). */
@@ -146,12 +146,12 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
   const input = design.input as DesignInput
   const result = withEngine(() => evaluateDesign(input))
   const policy = matchPolicy(input, result, design.bomSettings as BomSettings)
-  const parts = await currentParts()
+  // The part index is kept between requests until the catalogue generation changes.
+  const { parts, index } = await currentCatalogue()
   const assignments = await useDb().select().from(tables.partAssignments).where(eq(tables.partAssignments.designId, designId))
   const pinned = await partVersionsById(assignments.map(a => a.partVersionId))
   const approval = await approvalOf(assignments.map(a => a.partVersionId))
   const currentIds = new Set(parts.map(p => p.partVersionId))
-  const index = indexParts(parts)
   const legs = new Map<Side, LegPosition[]>((['machine', 'grid'] as const).map(s => [s, legPositions(input, s)]))
   const positions: PositionMatch[] = designPositions(input, result).map(({ side, duty, label }) => {
     const m = matchPosition(duty, index, policy)

@@ -19,7 +19,8 @@ export function columnLetter(index: number): string {
 
 const EXTRA_UNIT_WORDS = new Set(['pcs', 'pc', 'pieces', 'days', 'weeks', 'wks', 'eur', 'usd', 'gbp', 'chf', 'sek', '€', '$', '£', 'si'])
 
-function isUnitText(text: string): boolean {
+/** True when the text is a unit ("mJ", "K/W", "pcs", "€"), as written in brackets or a units row. */
+export function isUnitText(text: string): boolean {
   const t = text.trim()
   if (t === '') return false
   if (EXTRA_UNIT_WORDS.has(t.toLowerCase())) return true

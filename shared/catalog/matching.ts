@@ -13,7 +13,7 @@
 //               bound for multilevel positions (they switch during part of their conducting half-cycle).
 //   junction    T_j = T_heatsink + P·(R_th,jc + R_th,ch)            per device (no coupling between chips)
 
-import { PACKAGE_CONFIGURATIONS, type PartKind } from '../../catalog/columns'
+import { COLUMN_BY_KEY, PACKAGE_CONFIGURATIONS, type ColumnKey, type PartKind } from '../../catalog/columns'
 import type { CapacitorEnvelope, DeviceEnvelope, TopologyId } from '../engine/types'
 import { priceAtQuantity } from './prices'
 import type { CatalogPart, Lifecycle } from './types'
@@ -103,6 +103,8 @@ export interface Candidate {
   capacitanceMarginPct?: number
   /** null when the part lacks loss data */
   losses: CandidateLosses | null
+  /** Catalogue figures the part lacks for this position (why losses or T_j are not computed), by column header. */
+  missingData?: string[]
   /** °C, semiconductors with thermal data */
   junctionTemperatureC?: number
   /** °C, T_j,max − margin */
@@ -215,6 +217,19 @@ function capacitorSizing(part: CatalogPart, duty: PositionDuty, maxSeries: numbe
   const parallel = Math.max(1, byRipple, byCapacitance)
   if (parallel > maxParallel) return byCapacitance >= byRipple ? 'capacitance' : 'current'
   return { series, parallel }
+}
+
+/** Column headers of the figures a semiconductor part lacks for the position's losses and / or T_j. */
+export function missingFigures(part: CatalogPart, duty: PositionDuty, what: readonly ('losses' | 'thermal')[]): string[] {
+  const asSwitch = duty.kind === 'switch'
+  const keys: ColumnKey[] = []
+  if (what.includes('losses')) {
+    keys.push(...(asSwitch ? ['switchThresholdVoltage', 'switchSlopeResistance', 'turnOnEnergy', 'turnOffEnergy'] as const : ['diodeThresholdVoltage', 'diodeSlopeResistance'] as const))
+    const energy = asSwitch ? (part.turnOnEnergy ?? 0) + (part.turnOffEnergy ?? 0) : (part.recoveryEnergy ?? 0)
+    if (energy > 0 && duty.switchingHz > 0) keys.push('energyReferenceVoltage', 'energyReferenceCurrent')
+  }
+  if (what.includes('thermal')) keys.push(asSwitch ? 'rthJunctionCaseSwitch' : 'rthJunctionCaseDiode', 'junctionTemperatureMax')
+  return keys.filter(k => part[k as keyof CatalogPart] === undefined).map(k => COLUMN_BY_KEY[k].header)
 }
 
 /** Losses per device of a semiconductor part at the position, or null when the part lacks the data. */
@@ -365,6 +380,7 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
   let junctionTemperatureC: number | undefined
   let junctionLimitC: number | undefined
   let thermalOk = true
+  let missingData: string[] | undefined
 
   if (isCapacitor) {
     const rippleNeeded = duty.requiredRippleRating ?? duty.currentRms
@@ -389,9 +405,15 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
         if (!thermalOk) warnings.push(`T_j ${junctionTemperatureC} °C exceeds ${junctionLimitC} °C (T_j,max ${part.junctionTemperatureMax} °C − ${policy.junctionMarginC} °C margin)`)
         if (part.rthCaseHeatsink === undefined) warnings.push('no R_th case-heatsink in the catalogue: T_j leaves it out')
       }
-      else warnings.push('no thermal data: junction temperature not computed')
+      else {
+        missingData = missingFigures(part, duty, ['thermal'])
+        warnings.push(`missing ${missingData.join(', ')}: junction temperature not computed`)
+      }
     }
-    else warnings.push('loss data incomplete: losses and junction temperature not computed')
+    else {
+      missingData = missingFigures(part, duty, ['losses', 'thermal'])
+      warnings.push(`missing ${missingData.join(', ')}: losses and junction temperature not computed`)
+    }
   }
 
   const needed = packagesPerDesign * policy.buildQuantity
@@ -412,6 +434,7 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
     voltageMarginPct,
     currentMarginPct,
     losses,
+    ...(missingData ? { missingData } : {}),
     thermalOk,
     slotsPerPackage: slots,
     packagesPerConverter: packages,

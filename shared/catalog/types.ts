@@ -89,6 +89,24 @@ export interface RawTable {
   suggestedDecimalSeparator?: '.' | ','
   warnings: TableProblem[]
   errors: TableProblem[]
+  /** Rows not read as parts, and why (title above the header, units, blank, notes under the table). */
+  skipped: SkippedRow[]
+  /** Rows the header could be on, with how many catalogue columns each names (for choosing another). */
+  headerCandidates: HeaderCandidate[]
+}
+
+export interface SkippedRow {
+  rowNumber: number
+  reason: 'above-header' | 'units' | 'blank' | 'notes' | 'duplicate'
+  /** The row's text, shortened, so the user recognises it. */
+  text: string
+}
+
+export interface HeaderCandidate {
+  rowNumber: number
+  /** Catalogue columns the row's cells would name as headers. */
+  score: number
+  text: string
 }
 
 /** A problem with the file: `row` as the user sees it, `column` a letter such as "C". */
@@ -110,4 +128,16 @@ export interface ValidationIssue {
   message: string
   /** 'error' rejects the row; 'warning' imports it but tells the user. */
   severity: 'error' | 'warning'
+}
+
+/** How an upload is read, beside the column mapping (stored per import; value mapping and constants also per uploader). */
+export interface ImportSettings {
+  /** Row number of the header row, when the user chose it (absent = detected). */
+  headerRow?: number
+  /** Decimal mark per column, chosen by the user (absent = detected from the cells). */
+  columnDecimalSeparators?: Partial<Record<ColumnKey, '.' | ','>>
+  /** Uploaded enum value (normalised) → ours, per column. */
+  valueMapping?: Partial<Record<ColumnKey, Record<string, string>>>
+  /** Values standing in for columns the file lacks. */
+  constants?: Partial<Record<ColumnKey, string>>
 }

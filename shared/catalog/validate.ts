@@ -7,17 +7,27 @@ import {
 } from '../../catalog/columns'
 import { checkMapping, columnLetter } from './mapping'
 import { parsePriceBreaks } from './prices'
-import type { CatalogPart, CellValue, ColumnKey, ColumnMapping, PriceBreak, RawTable, ValidationIssue } from './types'
+import type { CatalogPart, CellValue, ColumnKey, ColumnMapping, Currency, PriceBreak, RawTable, ValidationIssue } from './types'
 import { parseQuantity, unitScaleFromHeader, type DecimalSeparator } from './units'
+import type { ImportedPart } from './merge'
+import { cellDecimalMark, currencyInHeader, normaliseValue, suggestValue, type ValueMapping } from './values'
 
 export interface ValidateOptions {
+  /** Decimal mark of columns that have none of their own in `columnDecimalSeparators`. */
   decimalSeparator: DecimalSeparator
+  /** Decimal mark per column (detected from its cells, or chosen by the user). */
+  columnDecimalSeparators?: Partial<Record<ColumnKey, DecimalSeparator>>
+  /** Uploaded enum values → ours, per column; keys normalised with normaliseValue. */
+  valueMapping?: ValueMapping
+  /** Values standing in for columns the file lacks (e.g. currency 'EUR', a manufacturer). */
+  constants?: Partial<Record<ColumnKey, string>>
   /** Stop listing issues after this many (the count of bad rows stays exact). Default 2000. */
   maxIssues?: number
 }
 
 export interface ValidationResult {
-  parts: CatalogPart[]
+  /** Valid rows as parts; `defaulted` names fields filled by a default because the cell was blank. */
+  parts: ImportedPart[]
   issues: ValidationIssue[]
   /** Data rows looked at. */
   rowsRead: number
@@ -25,6 +35,28 @@ export interface ValidationResult {
   rowsWithErrors: number
   /** True when more issues existed than maxIssues. */
   truncated: boolean
+  /** Every issue found, listed or not. */
+  issueCount: number
+  /** Refused rows with every reason, for the refused-rows sheet (not capped). */
+  refused: { rowNumber: number, reasons: string[] }[]
+  /** Rows that repeat an earlier row exactly: skipped, not refused. */
+  duplicatesSkipped: { rowNumber: number, sameAs: number }[]
+  /** Enum values that are not ours and not mapped, with a suggestion. */
+  unknownValues: UnknownValue[]
+  /** Catalogue columns the file carries (mapped, or given a constant): only these change existing parts. */
+  carried: ColumnKey[]
+  /** Currency read from the price header ("Price €"), when no currency column or constant is given. */
+  currencyFromHeader: Currency | null
+}
+
+export interface UnknownValue {
+  field: ColumnKey
+  /** As written in the file. */
+  value: string
+  /** Rows that hold it. */
+  rowCount: number
+  firstRow: number
+  suggestion: string | null
 }
 
 const TEXT_MAX_LENGTH: Partial<Record<ColumnKey, number>> = { description: 2000, datasheetUrl: 2000 }
@@ -97,7 +129,9 @@ function parseCell(column: CatalogColumn, raw: CellValue, decimalSeparator: Deci
     case 'number':
     case 'integer': {
       const unit = column.type === 'integer' && column.unit === '' ? 'pcs' : column.unit
-      const result = parseQuantity(raw, unit, { decimalSeparator, bareNumberScale })
+      // A value with its unit typed in ("2,1 mΩ") carries its own decimal mark when it is unambiguous.
+      const own = typeof raw === 'string' ? cellDecimalMark(raw) : null
+      const result = parseQuantity(raw, unit, { decimalSeparator: own ?? decimalSeparator, bareNumberScale })
       if (!result.ok) return result
       const value = result.value
       const unitText = column.unit === '' || column.unit === 'pcs' ? '' : ` ${column.unit}`
@@ -111,59 +145,94 @@ function parseCell(column: CatalogColumn, raw: CellValue, decimalSeparator: Deci
   }
 }
 
+const fieldLabel = (key: ColumnKey) => COLUMN_BY_KEY[key].header
+
+function kindsList(kinds: Iterable<PartKind>): string {
+  return [...kinds].join(', ')
+}
+
 /**
  * Validates mapped rows into parts. Required cells depend on the row's kind (columns.ts `requiredFor`);
- * a required column that is not mapped at all is reported once, on the header row.
+ * every required column that is not mapped is reported once, on the header row, all at once.
+ * Each message names the field once in the user's words; the row and column letter travel beside it.
  */
 export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerRowNumber'>, mapping: ColumnMapping, opts: ValidateOptions): ValidationResult {
   const maxIssues = opts.maxIssues ?? 2000
-  const issues: ValidationIssue[] = []
-  let truncated = false
-  const push = (issue: ValidationIssue) => {
-    if (issues.length < maxIssues) issues.push(issue)
-    else truncated = true
-  }
+  const headerIssues: ValidationIssue[] = []
+  const rowIssues: ValidationIssue[] = []
   const headerRow = table.headerRowNumber ?? 1
+  const constants = opts.constants ?? {}
+  const valueMapping = opts.valueMapping ?? {}
 
   for (const problem of checkMapping(mapping, table.headers)) {
     const index = mapping[problem.field]
-    push({ row: headerRow, column: typeof index === 'number' && index >= 0 && index < table.headers.length ? columnLetter(index) : '', field: problem.field, message: problem.message, severity: 'error' })
+    headerIssues.push({ row: headerRow, column: typeof index === 'number' && index >= 0 && index < table.headers.length ? columnLetter(index) : '', field: problem.field, message: problem.message, severity: 'error' })
   }
 
   const scales: Partial<Record<ColumnKey, number>> = {}
-  for (const column of CATALOG_COLUMNS) {
-    const index = mapping[column.key]
-    if (typeof index === 'number' && table.headers[index] !== undefined) {
-      scales[column.key] = unitScaleFromHeader(table.headers[index]!, column.unit) ?? 1
-    }
-  }
-
-  const unmappedReported = new Set<string>()
-  // Column index and letter per mapped field, looked up directly in each row (no per-cell objects).
   const indexOf: Partial<Record<ColumnKey, number>> = {}
   const letterOf: Partial<Record<ColumnKey, string>> = {}
   for (const column of CATALOG_COLUMNS) {
     const index = mapping[column.key]
-    if (typeof index === 'number' && index >= 0) {
+    if (typeof index === 'number' && index >= 0 && table.headers[index] !== undefined) {
       indexOf[column.key] = index
       letterOf[column.key] = columnLetter(index)
+      scales[column.key] = unitScaleFromHeader(table.headers[index]!, column.unit) ?? 1
     }
   }
+  // A currency named in the price header stands for a missing currency column.
+  let currencyFromHeader: Currency | null = null
+  if (indexOf.currency === undefined && !constants.currency && indexOf.priceBreaks !== undefined) {
+    currencyFromHeader = currencyInHeader(table.headers[indexOf.priceBreaks]!)
+  }
+  // Constants stand only for columns the file lacks.
+  const constantOf: Partial<Record<ColumnKey, string>> = Object.fromEntries(
+    Object.entries({ ...constants, ...(currencyFromHeader ? { currency: currencyFromHeader } : {}) })
+      .filter(([key, value]) => value && indexOf[key as ColumnKey] === undefined),
+  )
+  const carried = CATALOG_COLUMNS.map(c => c.key).filter(k => indexOf[k] !== undefined || constantOf[k] !== undefined)
+
+  const separatorOf = (key: ColumnKey): DecimalSeparator => opts.columnDecimalSeparators?.[key] ?? opts.decimalSeparator
   const rows = table.rows
   const parts: CatalogPart[] = []
-  const rowsWithErrors = new Set<number>()
-  const seen = new Map<string, { rowNumber: number, partIndex: number | null }>()
+  const refused = new Map<number, string[]>()
+  const seen = new Map<string, { rowNumber: number, partIndex: number | null, fingerprint: string }>()
+  const duplicatesSkipped: { rowNumber: number, sameAs: number }[] = []
   const exampleNumbers = new Set(TEMPLATE_EXAMPLE_PART_NUMBERS.map(n => n.toLowerCase()))
+  const unknown = new Map<string, UnknownValue>()
+  /** Unmapped required columns, with the kinds that needed them. */
+  const missingColumns = new Map<ColumnKey, Set<PartKind>>()
+  const refuse = (rowNumber: number, reason: string) => {
+    const list = refused.get(rowNumber)
+    if (list) list.push(reason)
+    else refused.set(rowNumber, [reason])
+  }
+
+  const enumValue = (column: CatalogColumn, raw: CellValue, rowNumber: number): { ok: true, value: string } | { ok: false, reason: string } => {
+    const parsed = parseEnumValue(column, raw)
+    if (parsed.ok) return parsed
+    const text = String(raw).trim()
+    const mapped = valueMapping[column.key]?.[normaliseValue(text)]
+    if (mapped && (column.values ?? []).includes(mapped)) return { ok: true, value: mapped }
+    const tag = `${column.key}\u0000${normaliseValue(text)}`
+    const entry = unknown.get(tag)
+    if (entry) entry.rowCount++
+    else unknown.set(tag, { field: column.key, value: text, rowCount: 1, firstRow: rowNumber, suggestion: suggestValue(column, text) })
+    const suggestion = unknown.get(tag)!.suggestion
+    return { ok: false, reason: `unknown value '${text}'; expected one of: ${(column.values ?? []).join(', ')}${suggestion ? ` (it looks like '${suggestion}': confirm it under "Values")` : ' (say what it means under "Values")'}` }
+  }
 
   for (const row of rows) {
     let rowHasError = false
     const error = (field: ColumnKey, message: string, letterField: ColumnKey = field) => {
       rowHasError = true
-      push({ row: row.rowNumber, column: letterOf[letterField] ?? '', field, message, severity: 'error' })
+      rowIssues.push({ row: row.rowNumber, column: letterOf[letterField] ?? '', field, message, severity: 'error' })
+      refuse(row.rowNumber, message)
     }
     const valueOf = (key: ColumnKey): CellValue | undefined => {
       const index = indexOf[key]
-      return index === undefined ? undefined : (row.cells[index] ?? null)
+      if (index === undefined) return constantOf[key]
+      return row.cells[index] ?? null
     }
     const values: Partial<Record<ColumnKey, unknown>> = {}
 
@@ -172,14 +241,13 @@ export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerR
     let kind: PartKind | null = null
     if (kindCell === undefined) {
       rowHasError = true
-      if (!unmappedReported.has('kind')) {
-        unmappedReported.add('kind')
-        push({ row: headerRow, column: '', field: 'kind', message: `the required column '${COLUMN_BY_KEY.kind.header}' is not mapped: every row needs a kind (${kindsText(PART_KINDS)})`, severity: 'error' })
-      }
+      const set = missingColumns.get('kind') ?? new Set<PartKind>()
+      missingColumns.set('kind', set)
+      refuse(row.rowNumber, `${fieldLabel('kind')}: no column is mapped to it`)
     }
     else if (isBlank(kindCell)) error('kind', `${COLUMN_BY_KEY.kind.header} is empty; expected one of: ${PART_KINDS.join(', ')}`)
     else {
-      const parsed = parseEnumValue(COLUMN_BY_KEY.kind, kindCell)
+      const parsed = enumValue(COLUMN_BY_KEY.kind, kindCell, row.rowNumber)
       if (parsed.ok) kind = parsed.value as PartKind
       else error('kind', `${COLUMN_BY_KEY.kind.header}: ${parsed.reason}`)
     }
@@ -191,11 +259,10 @@ export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerR
       if (cell === undefined) {
         if (required) {
           rowHasError = true
-          const tag = `${column.key}:${kind}`
-          if (!unmappedReported.has(tag)) {
-            unmappedReported.add(tag)
-            push({ row: headerRow, column: '', field: column.key, message: `'${column.header}' is required for ${kind} parts but no uploaded column is mapped to it`, severity: 'error' })
-          }
+          const set = missingColumns.get(column.key) ?? new Set<PartKind>()
+          set.add(kind!)
+          missingColumns.set(column.key, set)
+          refuse(row.rowNumber, `${column.header}: required for ${kind} parts but no column is mapped to it`)
         }
         continue
       }
@@ -203,7 +270,9 @@ export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerR
         if (required) error(column.key, `${column.header} is required for ${kind} parts and is empty${column.unit && column.unit !== 'pcs' ? ` (unit ${column.unit})` : ''}`)
         continue
       }
-      const parsed = parseCell(column, cell, opts.decimalSeparator, scales[column.key] ?? 1)
+      const parsed = column.type === 'enum'
+        ? enumValue(column, cell, row.rowNumber)
+        : parseCell(column, cell, separatorOf(column.key), scales[column.key] ?? 1)
       if (parsed.ok) values[column.key] = parsed.value
       else error(column.key, `${column.header}: ${parsed.reason}`)
     }
@@ -223,7 +292,7 @@ export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerR
     }
     const breaks = values.priceBreaks as PriceBreak[] | undefined
     if (breaks && breaks.length > 0 && !values.currency) {
-      error('currency', `${COLUMN_BY_KEY.currency.header} is required when prices are given`, letterOf.currency ? 'currency' : 'priceBreaks')
+      error('currency', `${COLUMN_BY_KEY.currency.header} is required when prices are given (map a currency column, give one for the whole file, or name it in the price header, e.g. 'Price €')`, letterOf.currency ? 'currency' : 'priceBreaks')
     }
     const rating = values.voltageRating as number | undefined
     const testVoltage = values.energyReferenceVoltage as number | undefined
@@ -231,39 +300,67 @@ export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerR
       error('energyReferenceVoltage', `${COLUMN_BY_KEY.energyReferenceVoltage.header} ${formatNumber(testVoltage)} V is above the voltage rating ${formatNumber(rating)} V`)
     }
 
-    // Same manufacturer and part number twice: both rows are refused, each naming the other.
+    // Same manufacturer and part number twice: an exact repeat is skipped and reported; differing
+    // rows are both refused, each naming the other.
     const manufacturer = values.manufacturer as string | undefined
-    let duplicateOf: { rowNumber: number, partIndex: number | null } | undefined
+    let duplicateOf: { rowNumber: number, partIndex: number | null, fingerprint: string } | undefined
     let dedupeKey: string | undefined
+    const fingerprint = JSON.stringify(CATALOG_COLUMNS.map(c => values[c.key] ?? null).concat([kind]))
     if (partNumber && manufacturer) {
       dedupeKey = `${manufacturer.toLowerCase().replace(/\s+/g, ' ')}\u0000${partNumber.toLowerCase().replace(/\s+/g, '')}`
       duplicateOf = seen.get(dedupeKey)
+      if (duplicateOf && !rowHasError && duplicateOf.fingerprint === fingerprint) {
+        duplicatesSkipped.push({ rowNumber: row.rowNumber, sameAs: duplicateOf.rowNumber })
+        rowIssues.push({ row: row.rowNumber, column: letterOf.partNumber ?? '', field: 'partNumber', message: `repeats row ${duplicateOf.rowNumber} exactly; skipped`, severity: 'warning' })
+        continue
+      }
       if (duplicateOf) {
-        error('partNumber', `duplicate: ${manufacturer} ${partNumber} is also on row ${duplicateOf.rowNumber}`)
+        error('partNumber', `duplicate: ${manufacturer} ${partNumber} is also on row ${duplicateOf.rowNumber} with other values: keep one`)
         if (duplicateOf.partIndex !== null) {
           parts[duplicateOf.partIndex] = undefined as unknown as CatalogPart
-          rowsWithErrors.add(duplicateOf.rowNumber)
           duplicateOf.partIndex = null
         }
-        push({ row: duplicateOf.rowNumber, column: letterOf.partNumber ?? '', field: 'partNumber', message: `duplicate: ${manufacturer} ${partNumber} is also on row ${row.rowNumber}`, severity: 'error' })
+        const message = `duplicate: ${manufacturer} ${partNumber} is also on row ${row.rowNumber} with other values: keep one`
+        rowIssues.push({ row: duplicateOf.rowNumber, column: letterOf.partNumber ?? '', field: 'partNumber', message, severity: 'error' })
+        refuse(duplicateOf.rowNumber, message)
       }
     }
 
     if (rowHasError || kind === null) {
-      rowsWithErrors.add(row.rowNumber)
-      if (dedupeKey && !duplicateOf) seen.set(dedupeKey, { rowNumber: row.rowNumber, partIndex: null })
+      if (dedupeKey && !duplicateOf) seen.set(dedupeKey, { rowNumber: row.rowNumber, partIndex: null, fingerprint })
+      if (!refused.has(row.rowNumber)) refuse(row.rowNumber, 'refused')
       continue
     }
-    const part = { ...values, kind, packageConfiguration: configuration ?? 'single', lifecycle: values.lifecycle ?? COLUMN_BY_KEY.lifecycle.defaultValue, priceBreaks: breaks ?? [], sourceRow: row.rowNumber } as CatalogPart
+    const defaulted: ColumnKey[] = []
+    if (values.lifecycle === undefined) defaulted.push('lifecycle')
+    if (configuration === undefined) defaulted.push('packageConfiguration')
+    if (breaks === undefined) defaulted.push('priceBreaks')
+    const part = { ...values, kind, packageConfiguration: configuration ?? 'single', lifecycle: values.lifecycle ?? COLUMN_BY_KEY.lifecycle.defaultValue, priceBreaks: breaks ?? [], sourceRow: row.rowNumber, ...(defaulted.length ? { defaulted } : {}) } as CatalogPart
     parts.push(part)
-    if (dedupeKey) seen.set(dedupeKey, { rowNumber: row.rowNumber, partIndex: parts.length - 1 })
+    if (dedupeKey) seen.set(dedupeKey, { rowNumber: row.rowNumber, partIndex: parts.length - 1, fingerprint })
   }
 
+  for (const [key, kinds] of missingColumns) {
+    const column = COLUMN_BY_KEY[key]
+    const message = key === 'kind'
+      ? `the required column '${column.header}' is not mapped: every row needs a kind (${kindsText(PART_KINDS)})`
+      : `'${column.header}' is required for ${kindsList(kinds)} parts but no uploaded column is mapped to it`
+    headerIssues.push({ row: headerRow, column: '', field: key, message, severity: 'error' })
+  }
+  rowIssues.sort((a, b) => a.row - b.row)
+  const all = [...headerIssues, ...rowIssues]
+  const refusedRows = [...refused.entries()].sort((a, b) => a[0] - b[0]).map(([rowNumber, reasons]) => ({ rowNumber, reasons }))
   return {
     parts: parts.filter(Boolean),
-    issues,
+    issues: all.slice(0, maxIssues),
     rowsRead: rows.length,
-    rowsWithErrors: rowsWithErrors.size,
-    truncated,
+    rowsWithErrors: refusedRows.length,
+    truncated: all.length > maxIssues,
+    issueCount: all.length,
+    refused: refusedRows,
+    duplicatesSkipped,
+    unknownValues: [...unknown.values()],
+    carried,
+    currencyFromHeader,
   }
 }

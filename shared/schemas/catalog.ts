@@ -12,10 +12,35 @@ function columnMax(key: string): number {
 
 export const decimalSeparatorSchema = z.enum(['.', ','], { message: 'Choose \'.\' or \',\'' })
 
+const columnKey = z.enum(columnKeys, { message: 'Not a catalogue column' })
+
 export const importMappingSchema = z.object({
-  mapping: z.record(z.enum(columnKeys, { message: 'Not a catalogue column' }), z.number().int().min(0).max(16383, 'A sheet has at most 16 384 columns').nullable()),
+  mapping: z.record(columnKey, z.number().int().min(0).max(16383, 'A sheet has at most 16 384 columns').nullable()),
+  /** Decimal mark of columns whose cells show none of their own. */
   decimalSeparator: decimalSeparatorSchema.default('.'),
+  /** Row the headers are on (as the spreadsheet numbers it); a change re-reads the file and re-suggests the mapping. */
+  headerRow: z.number().int().min(1).max(1_000_000).optional(),
+  /** Decimal mark chosen for single columns, over what their cells suggest. */
+  columnDecimalSeparators: z.partialRecord(columnKey, decimalSeparatorSchema).optional(),
+  /** Uploaded value → ours, per enum column. */
+  valueMapping: z.partialRecord(columnKey, z.record(z.string().max(200), z.string().max(60)).refine(v => Object.keys(v).length <= 500, { message: 'At most 500 values per column' })).optional(),
+  /** A value for every row of a column the file lacks (e.g. currency, manufacturer). */
+  constants: z.partialRecord(columnKey, z.string().trim().max(200)).optional(),
 })
+
+export const importCommitSchema = importMappingSchema.extend({
+  /** The number of refused rows the user agreed to leave out; must equal the count the preview shows. */
+  leaveRefused: z.number().int().min(0).optional(),
+})
+
+export const partsBulkSchema = z.object({
+  ids: z.array(z.number().int().min(1)).min(1, { message: 'Choose at least one part' }).max(5000, { message: 'At most 5000 parts at once' }),
+  approved: z.boolean().optional(),
+  lifecycle: z.enum(LIFECYCLES).optional(),
+  /** Must equal ids.length: the count the confirmation named. */
+  confirm: z.number().int().min(1),
+}).refine(v => v.approved !== undefined || v.lifecycle !== undefined, { message: 'Give approved or lifecycle' })
+  .refine(v => v.confirm === v.ids.length, { message: 'The confirmation must name how many parts change', path: ['confirm'] })
 
 export const partsQuerySchema = z.object({
   q: z.string().trim().max(100).optional(),

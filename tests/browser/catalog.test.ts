@@ -75,7 +75,7 @@ describe('catalogue upload in Chromium', () => {
     const kind = page.getByLabel('Kind', { exact: true })
     expect(await kind.inputValue()).toBe('')
     await kind.selectOption({ label: 'C · Part class' })
-    await expect.poll(() => page.getByRole('status').filter({ hasText: 'mapping changed' }).count()).toBe(1)
+    await expect.poll(() => page.getByRole('status').filter({ hasText: 'changed since the last check' }).count()).toBe(1)
     await screenshot(page, 'catalog-mapping')
 
     // Step 3: the wrongly suggested lifecycle column refuses every row, each explained by row and cell.

@@ -14,19 +14,42 @@ export { CATALOG_COLUMNS, COLUMN_BY_KEY, LIFECYCLES, PART_KINDS }
 export const UPLOAD_LIMITS = { maxBytes: 10 * 1024 * 1024, maxRows: 20_000 }
 
 /** The answer of upload, GET import and preview (server/services/catalog-import.ts describeImport). */
+export interface ColumnSeparatorInfo { key: ColumnKey, separator: '.' | ',', source: 'cells' | 'file', chosen: boolean, comma: number, dot: number }
+export interface UnknownValueInfo { field: ColumnKey, value: string, rowCount: number, firstRow: number, suggestion: string | null }
+export interface FieldChangeInfo { key: ColumnKey, label: string, old: unknown, new: unknown }
+
 export interface ImportDescription {
-  import: { id: number, filename: string, sizeBytes: number, status: string, sheetName: string, createdAt: string, catalogVersionId: number | null }
+  import: { id: number, filename: string, sizeBytes: number, status: string, sheetName: string, createdAt: string, catalogVersionId: number | null, refusedCount?: number }
   headers: string[]
   headerRowNumber: number
+  headerCandidates: { rowNumber: number, score: number, text: string }[]
+  skipped: { rowNumber: number, reason: 'above-header' | 'units' | 'blank' | 'notes' | 'duplicate', text: string }[]
+  valueMapping: Partial<Record<ColumnKey, Record<string, string>>>
+  constants: Partial<Record<ColumnKey, string>>
+  changes: { added: number, changed: number, unchanged: number, listedAll: boolean, changes: { partId: number, manufacturer: string, partNumber: string, row: number | null, fields: FieldChangeInfo[] }[] }
   suggestions: MappingSuggestion[]
   unusedHeaders: { index: number, header: string, column: string }[]
   mapping: ColumnMapping
   decimalSeparator: '.' | ','
   warnings: TableProblem[]
-  preview: { rowsRead: number, rowsWithErrors: number, validParts: number, issues: ValidationIssue[], truncated: boolean, sample: CatalogPart[] }
+  preview: {
+    rowsRead: number
+    rowsWithErrors: number
+    validParts: number
+    issues: ValidationIssue[]
+    issueCount: number
+    truncated: boolean
+    sample: CatalogPart[]
+    duplicatesSkipped: { rowNumber: number, sameAs: number }[]
+    unknownValues: UnknownValueInfo[]
+    currencyFromHeader: string | null
+    carried: ColumnKey[]
+    decimalSeparators: ColumnSeparatorInfo[]
+  }
 }
 
-export interface CommitSummary { catalogVersionId: number, number: number, added: number, updated: number, unchanged: number }
+/** number / catalogVersionId are null when the file changed nothing (no new version). */
+export interface CommitSummary { catalogVersionId: number | null, number: number | null, added: number, updated: number, unchanged: number, refused: number }
 
 export const kindLabels: Record<PartKind, string> = {
   'switch-diode': 'Switch + diode',

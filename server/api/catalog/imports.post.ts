@@ -1,5 +1,5 @@
-import { readUpload, storeUpload, rememberedMapping, rememberTable, describeImport } from '~~/server/services/catalog-import'
-import { suggestMapping } from '#shared/catalog/mapping'
+import { eq } from 'drizzle-orm'
+import { readUpload, storeUpload, rememberTable, describeImport, initialChoice, settingsOf } from '~~/server/services/catalog-import'
 
 // Upload a catalogue spreadsheet (.xlsx / .csv, multipart field "file"): read, suggest a mapping, preview.
 export default defineEventHandler(async (event) => {
@@ -12,14 +12,17 @@ export default defineEventHandler(async (event) => {
   const decimalField = form?.find(p => p.name === 'decimalSeparator')?.data.toString()
   const table = await readUpload(file.data, filename)
   const decimalSeparator = decimalField === ',' || decimalField === '.' ? decimalField : (table.suggestedDecimalSeparator ?? '.')
-  const mapping = (await rememberedMapping(user.id, table.headers)) ?? suggestMapping(table.headers).mapping
+  const choice = await initialChoice(user.id, table, decimalSeparator)
   const storageKey = await storeUpload(file.data, filename)
   await rememberTable(storageKey, table)
   const [row] = await useDb().insert(tables.catalogImports).values({
     filename, storageKey, sizeBytes: file.data.length, status: 'preview', sheetName: table.sheetName,
-    headers: table.headers, mapping, decimalSeparator, rowCount: table.rows.length, uploadedBy: user.id,
+    headers: table.headers, mapping: choice.mapping, decimalSeparator, settings: settingsOf(choice), rowCount: table.rows.length, uploadedBy: user.id,
   }).returning()
+  const described = await describeImport(row!, table, choice)
+  // The imports list shows the real count from this first check on.
+  await useDb().update(tables.catalogImports).set({ issueCount: described.preview.issueCount }).where(eq(tables.catalogImports.id, row!.id))
   await audit(event, 'catalogue file uploaded', { subject: filename, details: { importId: row!.id, rows: table.rows.length } })
   setResponseStatus(event, 201)
-  return describeImport(row!, table, mapping, decimalSeparator)
+  return described
 })

@@ -1,14 +1,17 @@
-import { and, asc, desc, eq, gte, ilike, isNotNull, or, sql } from 'drizzle-orm'
+import { and, asc, desc, eq, gte, ilike, or, sql } from 'drizzle-orm'
 import { partsQuerySchema } from '#shared/schemas/catalog'
 
 // The parts browser: current version of every part, filtered, sorted and paginated on the server.
+// Reads only current versions (partial indexes per sort and filter, trigram indexes for the search);
+// the unfiltered total is the count kept with the newest catalogue version.
 export default defineEventHandler(async (event) => {
   await requireRole(event, 'catalog:read')
   const q = queryValid(event, partsQuerySchema)
   const v = tables.partVersions
   const p = tables.parts
+  const filtered = !!(q.q || q.kind || q.lifecycle || q.approved || q.minVoltage !== undefined || q.minCurrent !== undefined)
   const where = and(
-    isNotNull(p.currentVersionId),
+    eq(v.isCurrent, true),
     q.q ? or(ilike(v.partNumber, `%${q.q}%`), ilike(v.manufacturer, `%${q.q}%`), ilike(sql`${v.data}->>'description'`, `%${q.q}%`)) : undefined,
     q.kind ? eq(v.kind, q.kind) : undefined,
     q.lifecycle ? eq(v.lifecycle, q.lifecycle) : undefined,
@@ -16,15 +19,19 @@ export default defineEventHandler(async (event) => {
     q.minVoltage !== undefined ? gte(v.voltageRating, q.minVoltage) : undefined,
     q.minCurrent !== undefined ? gte(v.currentRating, q.minCurrent) : undefined,
   )
+  // Ties broken by part id, the second column of every sort index.
   const order = (q.dir === 'asc' ? asc : desc)(v[q.sort])
+  const tie = (q.dir === 'asc' ? asc : desc)(v.partId)
   const db = useDb()
-  const [rows, [count]] = await Promise.all([
+  const [rows, total] = await Promise.all([
     db.select({
-      id: p.id, versionId: v.id, partNumber: v.partNumber, manufacturer: v.manufacturer, kind: v.kind, packageConfig: v.packageConfig,
+      id: v.partId, versionId: v.id, partNumber: v.partNumber, manufacturer: v.manufacturer, kind: v.kind, packageConfig: v.packageConfig,
       voltageRating: v.voltageRating, currentRating: v.currentRating, unitPrice: v.unitPrice, currency: v.currency, stock: v.stock,
       leadTimeDays: v.leadTimeDays, lifecycle: v.lifecycle, approved: p.approved,
-    }).from(p).innerJoin(v, eq(v.id, p.currentVersionId)).where(where).orderBy(order, asc(p.id)).limit(q.pageSize).offset((q.page - 1) * q.pageSize),
-    db.select({ n: sql<number>`count(*)::int` }).from(p).innerJoin(v, eq(v.id, p.currentVersionId)).where(where),
+    }).from(v).innerJoin(p, eq(p.id, v.partId)).where(where).orderBy(order, tie).limit(q.pageSize).offset((q.page - 1) * q.pageSize),
+    filtered
+      ? db.select({ n: sql<number>`count(*)::int` }).from(v).innerJoin(p, eq(p.id, v.partId)).where(where).then(r => r[0]?.n ?? 0)
+      : db.select({ n: tables.catalogVersions.partsTotal }).from(tables.catalogVersions).orderBy(desc(tables.catalogVersions.number)).limit(1).then(r => r[0]?.n ?? 0),
   ])
-  return { rows, total: count?.n ?? 0, page: q.page, pageSize: q.pageSize }
+  return { rows, total, page: q.page, pageSize: q.pageSize }
 })

@@ -299,3 +299,18 @@ describe('duty from the engine envelope', () => {
     })
   })
 })
+
+describe('parts without optional figures', () => {
+  it('stay candidates and say per candidate which figure is missing', () => {
+    const noDiodeData = igbt({ partNumber: 'T-NODIODE', currentRating: 600, diodeThresholdVoltage: undefined, diodeSlopeResistance: undefined, rthJunctionCaseDiode: undefined, rthCaseHeatsink: undefined })
+    const diode = matchPosition(twoLevel('diode'), [noDiodeData], policy).candidates[0]!
+    expect(diode.losses).toBeNull()
+    expect(diode.missingData).toEqual(['Diode threshold voltage V0', 'Diode slope resistance r', 'Rth junction-case diode'])
+    expect(diode.warnings.join('\n')).toMatch(/missing Diode threshold voltage V0, Diode slope resistance r, Rth junction-case diode: losses and junction temperature not computed/)
+    // The switch position of the same part has its figures: losses computed, T_j without R_th(c-h) said so.
+    const sw = matchPosition(twoLevel('switch'), [noDiodeData], policy).candidates[0]!
+    expect(sw.losses).not.toBeNull()
+    expect(sw.missingData).toBeUndefined()
+    expect(sw.warnings.join('\n')).toMatch(/no R_th case-heatsink/)
+  })
+})

@@ -94,10 +94,15 @@ describe('readCatalogFile: .xlsx', () => {
     expect(messages(table.warnings)).toMatch(/not read: 'Sheet2'/)
   })
 
-  it('reports duplicate parts naming both rows', async () => {
+  it('leaves duplicate parts to validation, which names both rows (the file itself is readable)', async () => {
     const buffer = await workbookBuffer([{ name: 'Parts', rows: templateSheet([exampleRow(0, 'P-1'), exampleRow(1, 'P-2'), exampleRow(0, 'p-1')]) }])
     const table = await readCatalogFile(buffer, 'd.xlsx')
-    expect(table.errors).toEqual([{ row: 5, column: 'A', message: 'rows 3 and 5 are the same part (Example Semiconductor p-1): keep one' }])
+    expect(table.errors).toEqual([])
+    const result = validateRows(table, suggestMapping(table.headers).mapping, { decimalSeparator: '.' })
+    expect(result.issues.filter(i => i.field === 'partNumber').map(i => `${i.row}: ${i.message}`)).toEqual([
+      '3: duplicate: Example Semiconductor p-1 is also on row 5 with other values: keep one',
+      '5: duplicate: Example Semiconductor p-1 is also on row 3 with other values: keep one',
+    ])
   })
 
   it('refuses an empty sheet and a header-only sheet', async () => {
@@ -311,7 +316,9 @@ describe('readCatalogFile: .csv', () => {
   it('reports duplicates with row numbers', async () => {
     const text = 'Manufacturer,Part number\nAcme,X-1\nAcme,Y-2\nACME ,x-1\n'
     const table = await readCatalogFile(Buffer.from(text), 'dup.csv')
-    expect(table.errors).toEqual([{ row: 4, column: 'B', message: 'rows 2 and 4 are the same part (ACME x-1): keep one' }])
+    expect(table.errors).toEqual([])
+    const result = validateRows(table, suggestMapping(table.headers).mapping, { decimalSeparator: '.' })
+    expect(result.issues.filter(i => i.field === 'partNumber').map(i => i.row)).toEqual([2, 4])
   })
 })
 

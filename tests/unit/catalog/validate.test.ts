@@ -121,8 +121,9 @@ describe('validateRows: every bad cell explained', () => {
     const result = validate([row(0, 'DUP-1'), row(1, 'X'), row(0, 'dup-1 ')])
     expect(result.parts.map(p => p.partNumber)).toEqual(['X'])
     const messages = result.issues.map(i => `${i.row}: ${i.message}`)
-    expect(messages).toContain('5: duplicate: Example Semiconductor dup-1 is also on row 3')
-    expect(messages).toContain('3: duplicate: Example Semiconductor dup-1 is also on row 5')
+    expect(messages).toContain('5: duplicate: Example Semiconductor dup-1 is also on row 3 with other values: keep one')
+    expect(messages).toContain('3: duplicate: Example Semiconductor dup-1 is also on row 5 with other values: keep one')
+    expect(result.refused.map(r => r.rowNumber)).toEqual([3, 5])
   })
 
   it('reports an unmapped required column once, on the header row', () => {

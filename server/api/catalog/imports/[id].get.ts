@@ -1,7 +1,6 @@
-import { loadImportTable, describeImport } from '~~/server/services/catalog-import'
 import { eq } from 'drizzle-orm'
+import { loadImportTable, describeImport, choiceOf } from '~~/server/services/catalog-import'
 import { idParam } from '#shared/schemas/auth'
-import type { ColumnMapping } from '#shared/catalog/types'
 
 export default defineEventHandler(async (event) => {
   await requireRole(event, 'catalog:read')
@@ -9,5 +8,5 @@ export default defineEventHandler(async (event) => {
   const [row] = await useDb().select().from(tables.catalogImports).where(eq(tables.catalogImports.id, id))
   if (!row) throw createError({ statusCode: 404, message: 'No such import.' })
   const table = await loadImportTable(row)
-  return describeImport(row, table, (row.mapping ?? {}) as ColumnMapping, row.decimalSeparator as '.' | ',')
+  return describeImport(row, table, choiceOf(row))
 })
