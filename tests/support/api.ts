@@ -40,7 +40,7 @@ export function client(cookie = '', base = baseUrl): Client {
     async request(method, path, body, headers = {}) {
       // State changes must name our origin, as a browser does (CSRF rule); a test may override or
       // drop it by passing `origin` ('' = no Origin header).
-      const h: Record<string, string> = { origin: baseUrl, ...headers }
+      const h: Record<string, string> = { origin: base, ...headers }
       if (h.origin === '') delete h.origin
       if (c.cookie) h.cookie = c.cookie
       let payload: BodyInit | undefined
