@@ -1,7 +1,9 @@
 import { createHash, randomBytes } from 'node:crypto'
-import type { H3Event } from 'h3'
+import type { H3Event, SessionConfig } from 'h3'
 import { eq, lt, sql } from 'drizzle-orm'
 import { can, isRole, type Permission, type Role } from '#shared/roles'
+
+type CookieSerializeOptions = Exclude<NonNullable<SessionConfig['cookie']>, false>
 
 export interface CurrentUser {
   id: number
@@ -35,7 +37,7 @@ export function dummyPasswordHash() {
  * request came over TLS (also behind a proxy that says so in X-Forwarded-Proto; that can only make
  * the cookie stricter); NUXT_COOKIE_SECURE=true / false forces it (plain-http intranet: false).
  */
-export function sessionCookie(event: H3Event) {
+export function sessionCookie(event: H3Event): { cookie: CookieSerializeOptions } {
   const config = useRuntimeConfig(event)
   const setting = String(config.cookieSecure ?? '').trim().toLowerCase()
   const secure = setting === 'true' || setting === '1'
@@ -43,7 +45,7 @@ export function sessionCookie(event: H3Event) {
     : setting === 'false' || setting === '0'
       ? false
       : String(config.appUrl).startsWith('https:') || getRequestProtocol(event, { xForwardedProto: true }) === 'https'
-  return { cookie: { ...config.session?.cookie, secure } }
+  return { cookie: { ...(config.session?.cookie as CookieSerializeOptions | undefined), secure } }
 }
 
 async function userFromBearer(event: H3Event, token: string): Promise<CurrentUser | null> {
