@@ -4,6 +4,7 @@ import { runCatalogBench } from './catalog'
 import { runEngineBench } from './engine'
 import { runImportApiBench } from './import-api'
 import { runLoadBench } from './load'
+import { runScaleBench } from './scale'
 
 interface Figure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
 
@@ -13,6 +14,7 @@ const suites: [string, () => Promise<Figure[]>][] = [
   ['bom', runBomBench],
   ['import-api', runImportApiBench],
   ['load', runLoadBench],
+  ['scale', runScaleBench],
 ]
 const only = process.argv[2]?.startsWith('--') ? undefined : process.argv[2]
 

@@ -154,16 +154,18 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
   const currentIds = new Set(parts.map(p => p.partVersionId))
   const legs = new Map<Side, LegPosition[]>((['machine', 'grid'] as const).map(s => [s, legPositions(input, s)]))
   const positions: PositionMatch[] = designPositions(input, result).map(({ side, duty, label }) => {
-    const m = matchPosition(duty, index, policy)
     const leg = legs.get(side) ?? []
     const a = assignments.find(x => x.side === side && x.position === duty.positionName)
     const coveredBy = a?.coveredBy ?? null
-    let pool = m.candidates
-    const preferred = pool.filter(c => approvalRank(c.part as Part) === 0)
-    const hiddenCandidates = options.showAll ? 0 : pool.length - preferred.length
-    if (!options.showAll) pool = preferred
-    // A covered position lists its host's module first: its own candidates never rank above it.
-    if (coveredBy && a) pool = [...pool.filter(c => (c.part as Part).partVersionId === a.partVersionId), ...pool.filter(c => (c.part as Part).partVersionId !== a.partVersionId)]
+    // By default only approved, active parts; a covered position lists its host's module first, so
+    // its own candidates never rank above it.
+    const host = coveredBy && a ? a.partVersionId : null
+    const offered = (part: CatalogPart) => options.showAll || approvalRank(part as Part) === 0
+    const m = matchPosition(duty, index, policy, { limit, only: part => offered(part) && (part as Part).partVersionId !== host })
+    const hiddenCandidates = options.showAll ? 0 : m.leftOut
+    const hostPart = host !== null ? parts.find(p => p.partVersionId === host) : undefined
+    const hostCandidate = hostPart && offered(hostPart) ? matchPosition(duty, [hostPart], policy).candidates[0] : undefined
+    const pool = hostCandidate ? [hostCandidate, ...m.candidates] : m.candidates
     const candidates = pool.slice(0, limit).map(c => ({
       ...c,
       partVersionId: (c.part as Part).partVersionId,
@@ -178,7 +180,7 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
       const review: AssignmentReview = { ratedRevision: a.designRevision, fits, needed, stale: !fits && a.designRevision < design.revision && !confirmed, confirmed }
       assigned = { partVersionId: a.partVersionId, current: currentIds.has(a.partVersionId), approved: approval.get(a.partVersionId) ?? false, seriesCount: a.seriesCount, parallelCount: a.parallelCount, evaluation: rated, review, coveredBy, part }
     }
-    const nothingFits = m.candidates.length ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.')
+    const nothingFits = m.fitting + m.leftOut + (hostCandidate ? 1 : 0) > 0 ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.')
     return { side, position: duty.positionName, label, duty, candidates, hiddenCandidates, nothingFits, coveredBy, assigned }
   })
   return { design, input, result, policy, positions, summary: lossSummary(input, positions) }

@@ -69,7 +69,7 @@ export function tradeStudyRows(duty: TradeStudyInput, parts: PartIndex): { rows:
     let cost: number | null = 0
     const unmatched: string[] = []
     for (const { duty: d } of designPositions(input, result)) {
-      const best = matchPosition(d, parts, policy).candidates[0]
+      const best = matchPosition(d, parts, policy, { limit: 1 }).candidates[0]
       if (!best) { unmatched.push(d.positionName); continue }
       lossW = lossW === null || best.losses === null ? null : lossW + best.losses.perConverter
       cost = cost === null || best.costPerDesign === null ? null : cost + best.costPerDesign

@@ -132,7 +132,12 @@ export interface Candidate {
 }
 
 export interface MatchResult {
+  /** Best first; at most MatchOptions.limit of them. */
   candidates: Candidate[]
+  /** Parts that fit and are offered (candidates is the first `limit` of them). */
+  fitting: number
+  /** Parts that fit but MatchOptions.only left out. */
+  leftOut: number
   /** Problems with the duty itself (then there are no candidates). */
   dutyProblems: string[]
   /** Parts looked at, and why the others were left out. */
@@ -286,7 +291,97 @@ export function checkDuty(duty: PositionDuty): string[] {
  * Candidate parts for one position that meet the derated ratings (with series / parallel parts where
  * the policy allows). Sorted: thermally fine first, then lifecycle, then cost per design, then losses.
  */
-export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] | PartIndex, policy: MatchPolicy): MatchResult {
+/** What a caller wants back from matchPosition: at most `limit` candidates (best first), of the parts `only` keeps. */
+export interface MatchOptions {
+  /** Candidates built and returned; the rest are only counted (`fitting`). Default: all. */
+  limit?: number
+  /** Parts to offer; the others that fit are counted in `leftOut`. */
+  only?: (part: CatalogPart) => boolean
+}
+
+interface RankEntry { part: CatalogPart, slots: number, sizing: Sizing, group: number, cost: number, loss: number, order: number }
+
+/** sortCandidates' order on rank entries; ties keep catalogue order. */
+function compareRank(a: RankEntry, b: RankEntry): number {
+  return a.group - b.group || (a.cost === b.cost ? 0 : a.cost < b.cost ? -1 : 1) || (a.loss === b.loss ? 0 : a.loss < b.loss ? -1 : 1) || a.order - b.order
+}
+
+/**
+ * The ranking keys of sortCandidates (T_j within its limit, approval and lifecycle, cost per design,
+ * losses per converter) from numbers alone, written into `into`: ranking a large catalogue builds only
+ * the candidates shown. Must agree with buildCandidate (a unit test compares the two orders).
+ */
+function rankKeys(into: RankEntry, part: CatalogPart, duty: PositionDuty, policy: MatchPolicy, sizing: Sizing, slots: number, order: number): RankEntry {
+  const { series, parallel } = sizing
+  const devices = series * parallel
+  const devicesPerConverter = devices * duty.positionsPerPhase * duty.phases
+  const isCapacitor = duty.kind === 'capacitor'
+  const phasesPerPackage = isCapacitor ? 1 : PACKAGE_CONFIGURATIONS[part.packageConfiguration].phasesPerPackage
+  const packagesPerDesign = packagesPerConverter(duty, devices, slots, phasesPerPackage) * duty.converters
+  let loss = Infinity
+  let thermalOk = true
+  if (isCapacitor) {
+    if (part.esr !== undefined) loss = round(part.esr * (duty.currentRms / parallel) ** 2 * devicesPerConverter, 2)
+  }
+  else {
+    const perDevice = deviceLosses(part, duty, series, parallel)
+    if (perDevice) {
+      const total = perDevice.conduction + perDevice.switching
+      loss = round(total * devicesPerConverter, 2)
+      const rthJc = duty.kind === 'switch' ? part.rthJunctionCaseSwitch : part.rthJunctionCaseDiode
+      if (rthJc !== undefined && part.junctionTemperatureMax !== undefined) {
+        thermalOk = round(policy.heatsinkTemperatureC + total * (rthJc + (part.rthCaseHeatsink ?? 0)), 1) <= part.junctionTemperatureMax - policy.junctionMarginC
+      }
+    }
+  }
+  const price = priceAtQuantity(part.priceBreaks, packagesPerDesign * policy.buildQuantity, part.minimumOrderQuantity ?? 1)
+  into.part = part
+  into.slots = slots
+  into.sizing = sizing
+  into.group = (thermalOk ? 0 : 6) + approvalRank(part as CatalogPart & { approved?: boolean })
+  into.cost = price ? round(price.unitPrice * packagesPerDesign, 2) : Infinity
+  into.loss = loss
+  into.order = order
+  return into
+}
+
+/** Keeps the best `limit` rank entries seen (all of them without a limit), in order. */
+class BestRanks {
+  readonly entries: RankEntry[] = []
+  private scratch = BestRanks.blank()
+  constructor(private readonly limit: number | undefined) {}
+  static blank(): RankEntry {
+    return { part: undefined as unknown as CatalogPart, slots: 0, sizing: { series: 0, parallel: 0 }, group: 0, cost: 0, loss: 0, order: 0 }
+  }
+
+  /** The entry to fill for the next part; offer() then keeps it or reuses it. */
+  next(): RankEntry { return this.scratch }
+  offer(): void {
+    const e = this.scratch
+    const list = this.entries
+    if (this.limit === undefined) { list.push(e); this.scratch = BestRanks.blank(); return }
+    if (this.limit <= 0) return
+    if (list.length === this.limit && compareRank(e, list[list.length - 1]!) >= 0) return
+    // binary search for the insertion point in the sorted, bounded list
+    let lo = 0
+    let hi = list.length
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1
+      if (compareRank(list[mid]!, e) <= 0) lo = mid + 1
+      else hi = mid
+    }
+    list.splice(lo, 0, e)
+    if (list.length > this.limit) list.pop()
+    this.scratch = BestRanks.blank()
+  }
+
+  sorted(): RankEntry[] {
+    if (this.limit === undefined) this.entries.sort(compareRank)
+    return this.entries
+  }
+}
+
+export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] | PartIndex, policy: MatchPolicy, options: MatchOptions = {}): MatchResult {
   const index = isPartIndex(parts) ? parts : indexParts(parts)
   const maxSeries = policy.maxSeries?.[duty.kind] ?? DEFAULT_MAX_SERIES[duty.kind]
   const maxParallel = policy.maxParallel?.[duty.kind] ?? DEFAULT_MAX_PARALLEL[duty.kind]
@@ -297,8 +392,11 @@ export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] 
   const candidates: Candidate[] = []
   const isCapacitor = duty.kind === 'capacitor'
   const dutyProblems = checkDuty(duty)
-  if (dutyProblems.length > 0) return { candidates, dutyProblems, considered: 0, rejected: { ...rejected, wrongKind: 0 } }
+  if (dutyProblems.length > 0) return { candidates, fitting: 0, leftOut: 0, dutyProblems, considered: 0, rejected: { ...rejected, wrongKind: 0 } }
 
+  const best = new BestRanks(options.limit)
+  let fitting = 0
+  let leftOut = 0
   for (const { part, slots } of pool) {
     if (!fitsTopology(part, duty)) { rejected.wrongTopology++; continue }
     const sizing = isCapacitor
@@ -306,9 +404,12 @@ export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] 
       : semiconductorSizing(part, duty, maxSeries, maxParallel, parallelSharing, seriesSharing)
     if (typeof sizing === 'string') { rejected[sizing]++; continue }
     if (part.lifecycle === 'obsolete' && !policy.includeObsolete) { rejected.obsolete++; continue }
-    candidates.push(buildCandidate(part, duty, policy, sizing, slots))
+    if (options.only && !options.only(part)) { leftOut++; continue }
+    rankKeys(best.next(), part, duty, policy, sizing, slots, fitting++)
+    best.offer()
   }
-  return { candidates: sortCandidates(candidates), dutyProblems, considered: index.size, rejected }
+  for (const r of best.sorted()) candidates.push(buildCandidate(r.part, duty, policy, r.sizing, r.slots))
+  return { candidates, fitting, leftOut, dutyProblems, considered: index.size, rejected }
 }
 
 /**
@@ -495,9 +596,9 @@ function formatCapacitance(farad: number): string {
  */
 export function whyNothingFits(duty: PositionDuty, catalogue: readonly CatalogPart[] | PartIndex, policy: MatchPolicy): string | null {
   const index = isPartIndex(catalogue) ? catalogue : indexParts(catalogue)
-  const result = matchPosition(duty, index, policy)
+  const result = matchPosition(duty, index, policy, { limit: 0 })
   if (result.dutyProblems.length > 0) return result.dutyProblems.join('; ')
-  if (result.candidates.length > 0) return null
+  if (result.fitting > 0) return null
   const maxSeries = policy.maxSeries?.[duty.kind] ?? DEFAULT_MAX_SERIES[duty.kind]
   const maxParallel = policy.maxParallel?.[duty.kind] ?? DEFAULT_MAX_PARALLEL[duty.kind]
   const noun = describePosition(duty.kind)

@@ -314,3 +314,44 @@ describe('parts without optional figures', () => {
     expect(sw.warnings.join('\n')).toMatch(/no R_th case-heatsink/)
   })
 })
+
+describe('ranking on cheap keys (a large catalogue builds only the candidates shown)', () => {
+  // Varied parts: some too hot for the T_j limit, some unapproved or NRND, prices and losses spread,
+  // ties in price, some without loss data. The bounded ranking must give the first `limit` of the full order,
+  // and the full order must be sortCandidates' order of the built candidates.
+  const parts: CatalogPart[] = []
+  for (let i = 0; i < 300; i++) {
+    parts.push({
+      ...igbt({
+        partNumber: `R-${i}`,
+        currentRating: 500 + (i % 7) * 50,
+        switchSlopeResistance: i % 11 === 0 ? undefined : 1.5e-3 + (i % 5) * 0.4e-3,
+        rthJunctionCaseSwitch: i % 13 === 0 ? 0.4 : 0.065,
+        lifecycle: i % 17 === 0 ? 'nrnd' : 'active',
+        priceBreaks: [{ minQuantity: 1, unitPrice: 100 + (i % 9) * 10 }],
+      }),
+      ...(i % 19 === 0 ? { approved: false } : {}),
+    } as CatalogPart)
+  }
+
+  it('the first 25 of a bounded ranking are the first 25 of the full order, which is sortCandidates\' order', async () => {
+    const { sortCandidates } = await import('../../../shared/catalog/matching')
+    const full = matchPosition(twoLevel('switch'), parts, policy)
+    const bounded = matchPosition(twoLevel('switch'), parts, policy, { limit: 25 })
+    expect(full.candidates.length).toBe(300)
+    expect(bounded.candidates.length).toBe(25)
+    expect(bounded.fitting).toBe(300)
+    expect(bounded.candidates.map(c => c.part.partNumber)).toEqual(full.candidates.slice(0, 25).map(c => c.part.partNumber))
+    // sorting the built candidates by their own figures changes nothing: the cheap keys agree with them
+    expect(sortCandidates([...full.candidates]).map(c => c.part.partNumber)).toEqual(full.candidates.map(c => c.part.partNumber))
+    // the hot parts (T_j over the limit) come last
+    expect(full.candidates.at(-1)!.thermalOk).toBe(false)
+  })
+
+  it('counts the fitting parts that `only` leaves out', () => {
+    const approvedOnly = matchPosition(twoLevel('switch'), parts, policy, { limit: 5, only: p => (p as CatalogPart & { approved?: boolean }).approved !== false })
+    expect(approvedOnly.leftOut).toBe(parts.filter((_, i) => i % 19 === 0).length)
+    expect(approvedOnly.fitting + approvedOnly.leftOut).toBe(300)
+    expect(approvedOnly.candidates.every(c => (c.part as CatalogPart & { approved?: boolean }).approved !== false)).toBe(true)
+  })
+})
