@@ -141,7 +141,7 @@ async function approvalOf(versionIds: number[]) {
  * active parts are listed (ranked first anyway); `showAll` lists every fitting part, ranked by
  * approvalRank after the thermal check.
  */
-export async function matchDesign(designId: number, limit = 40, options: { showAll?: boolean } = {}) {
+export async function matchDesign(designId: number, limit = 40, options: { showAll?: boolean, summaryOnly?: boolean } = {}) {
   const design = await loadDesign(designId)
   const input = design.input as DesignInput
   const result = withEngine(() => evaluateDesign(input))
@@ -161,10 +161,13 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
     // its own candidates never rank above it.
     const host = coveredBy && a ? a.partVersionId : null
     const offered = (part: CatalogPart) => options.showAll || approvalRank(part as Part) === 0
-    const m = matchPosition(duty, index, policy, { limit, only: part => offered(part) && (part as Part).partVersionId !== host })
+    // summaryOnly: the assigned parts alone (the design page's figures), no candidate search
+    const m = options.summaryOnly
+      ? { candidates: [], fitting: 0, leftOut: 0 }
+      : matchPosition(duty, index, policy, { limit, only: part => offered(part) && (part as Part).partVersionId !== host })
     const hiddenCandidates = options.showAll ? 0 : m.leftOut
     const hostPart = host !== null ? parts.find(p => p.partVersionId === host) : undefined
-    const hostCandidate = hostPart && offered(hostPart) ? matchPosition(duty, [hostPart], policy).candidates[0] : undefined
+    const hostCandidate = hostPart && offered(hostPart) && !options.summaryOnly ? matchPosition(duty, [hostPart], policy).candidates[0] : undefined
     const pool = hostCandidate ? [hostCandidate, ...m.candidates] : m.candidates
     const candidates = pool.slice(0, limit).map(c => ({
       ...c,
@@ -180,7 +183,7 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
       const review: AssignmentReview = { ratedRevision: a.designRevision, fits, needed, stale: !fits && a.designRevision < design.revision && !confirmed, confirmed }
       assigned = { partVersionId: a.partVersionId, current: currentIds.has(a.partVersionId), approved: approval.get(a.partVersionId) ?? false, seriesCount: a.seriesCount, parallelCount: a.parallelCount, evaluation: rated, review, coveredBy, part }
     }
-    const nothingFits = m.fitting + m.leftOut + (hostCandidate ? 1 : 0) > 0 ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.')
+    const nothingFits = options.summaryOnly || m.fitting + m.leftOut + (hostCandidate ? 1 : 0) > 0 ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.')
     return { side, position: duty.positionName, label, duty, candidates, hiddenCandidates, nothingFits, coveredBy, assigned }
   })
   return { design, input, result, policy, positions, summary: lossSummary(input, positions) }

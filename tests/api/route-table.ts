@@ -81,6 +81,7 @@ export const routeTable: RouteCase[] = [
   { file: 'designs/[id]/bom/settings.put.ts', method: 'PUT', path: '/api/designs/1/bom/settings', access: 'bom:release', body: {} },
   { file: 'designs/[id]/bom/release.post.ts', method: 'POST', path: '/api/designs/999999/bom/release', access: 'bom:release' },
   { file: 'designs/[id]/bom/acknowledgements.put.ts', method: 'PUT', path: '/api/designs/1/bom/acknowledgements', access: 'bom:release', body: {} },
+  { file: 'designs/[id]/parts/summary.get.ts', method: 'GET', path: '/api/designs/1/parts/summary', access: 'designs:read' },
   { file: 'designs/[id]/parts/confirm.post.ts', method: 'POST', path: '/api/designs/1/parts/confirm', access: 'parts:assign', body: {} },
   { file: 'catalog/parts/[id]/usage.get.ts', method: 'GET', path: '/api/catalog/parts/1/usage', access: 'catalog:read' },
   { file: 'admin/outbox.get.ts', method: 'GET', path: '/api/admin/outbox', access: 'mail:read' },
