@@ -1,5 +1,7 @@
 // Pages need a session, except the sign-in and password pages; a page that names a permission
 // (definePageMeta({ permission })) sends other roles home with a note instead of a broken page.
+// Every client-side navigation first re-reads the user from the server, so a role change applies at once
+// and a disabled account's open tab goes to sign-in.
 import { can, type Permission } from '#shared/roles'
 
 const publicPages = new Set(['/sign-in', '/set-password', '/forgot-password'])
@@ -10,8 +12,13 @@ declare module '#app' {
   }
 }
 
-export default defineNuxtRouteMiddleware((to) => {
+export default defineNuxtRouteMiddleware(async (to) => {
   const { loggedIn, user } = useUserSession()
+  // the server has just read the session for the first render: no second request while hydrating
+  if (import.meta.client && !useNuxtApp().isHydrating && loggedIn.value) {
+    const signIn = await useSessionRefresh()()
+    if (signIn && !publicPages.has(to.path)) return navigateTo(signIn + (to.fullPath !== '/' ? `&next=${encodeURIComponent(to.fullPath)}` : ''))
+  }
   if (!loggedIn.value && !publicPages.has(to.path)) {
     return navigateTo({ path: '/sign-in', query: to.fullPath !== '/' ? { next: to.fullPath } : {} })
   }
