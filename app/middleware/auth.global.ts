@@ -13,14 +13,16 @@ declare module '#app' {
 }
 
 export default defineNuxtRouteMiddleware(async (to) => {
-  const { loggedIn, user } = useUserSession()
+  const { loggedIn, user, session } = useUserSession()
   // the server has just read the session for the first render: no second request while hydrating
   if (import.meta.client && !useNuxtApp().isHydrating && loggedIn.value) {
     const signIn = await useSessionRefresh()()
     if (signIn && !publicPages.has(to.path)) return navigateTo(signIn + (to.fullPath !== '/' ? `&next=${encodeURIComponent(to.fullPath)}` : ''))
   }
   if (!loggedIn.value && !publicPages.has(to.path)) {
-    return navigateTo({ path: '/sign-in', query: to.fullPath !== '/' ? { next: to.fullPath } : {} })
+    // a page (re)loaded with a cookie whose session has ended says why, as an open tab does
+    const ended = (session.value as { ended?: string } | null)?.ended
+    return navigateTo({ path: '/sign-in', query: { ...(ended ? { ended } : {}), ...(to.fullPath !== '/' ? { next: to.fullPath } : {}) } })
   }
   const permission = to.meta.permission
   if (permission && !can(user.value?.role, permission)) {
