@@ -3,7 +3,7 @@
 // keeps those paths in `data.issues[].path` and sends the message rewritten here.
 
 /** The label of each input field as the forms show it, by its key (the last part of the path). */
-export const FIELD_LABELS: Readonly<Record<string, string>> = {
+export const FIELD_LABELS = {
   topology: 'Topology',
   levels: 'Levels (N)',
   dcVoltage: 'DC link, nominal',
@@ -36,7 +36,10 @@ export const FIELD_LABELS: Readonly<Record<string, string>> = {
   password: 'Password',
   role: 'Role',
   revision: 'Revision',
-}
+} as const satisfies Record<string, string>
+
+/** The same map, looked up by any key (a path's key may have no label). */
+const LABELS: Readonly<Record<string, string>> = FIELD_LABELS
 
 /** Utilisations are fractions in the data and percentages on screen. */
 const PERCENT_FIELDS = new Set(['semiconductorVoltageUtilisation', 'semiconductorCurrentUtilisation', 'capacitorVoltageUtilisation', 'capacitorRippleUtilisation'])
@@ -56,7 +59,7 @@ function keyOf(path: string): string {
 export function labelOf(path: string): string {
   const key = keyOf(path)
   if (!key) return 'This value'
-  return FIELD_LABELS[key] ?? humanise(key)
+  return LABELS[key] ?? humanise(key)
 }
 
 /** Where a field sits, for a message shown away from the field: "grid side, operating point 2". */
@@ -69,7 +72,7 @@ export function placeOf(path: string): string {
 }
 
 function amount(text: string, key: string): string {
-  if (Object.hasOwn(FIELD_LABELS, text)) return `“${FIELD_LABELS[text]}”`
+  if (Object.hasOwn(LABELS, text)) return `“${LABELS[text]}”`
   const n = Number(text.replace('\u2212', '-'))
   if (PERCENT_FIELDS.has(key) && Number.isFinite(n)) return `${Number((n * 100).toPrecision(6))} %`
   return text
@@ -106,13 +109,13 @@ const KEY_PHRASES: [RegExp, (label: string, m: RegExpExecArray, key: string) => 
   [/^ is required(?: \(([^)]*)\))?(.*)$/, (l, m) => `${l} is required: enter a value${unitIn(m[1]) ? ` in ${unitIn(m[1])}` : ''}${m[2] ?? ''}.`],
   [/^ must be a (?:finite )?number(?: \(([^)]*)\))?$/, (l, m) => `${l} must be a number: enter a value${unitIn(m[1]) ? ` in ${unitIn(m[1])}` : ''}.`],
   [/^ must be (?:greater than|above) (\S+)(?: \(([^)]*)\))?$/, (l, m, k) => `${l} must be greater than ${amount(m[1]!, k)}${unitIn(m[2]) && unitIn(m[2]) !== '°C' ? ` ${unitIn(m[2])}` : ''}: enter a larger value.`],
-  [/^ must be at least (\S+(?: °C)?)(?: \(([^)]*)\))?$/, (l, m, k) => `${l} must be at least ${amount(m[1]!, k)}${unitIn(m[2]) && !Object.hasOwn(FIELD_LABELS, m[1]!) ? ` ${unitIn(m[2])}` : ''}: enter that or more.`],
+  [/^ must be at least (\S+(?: °C)?)(?: \(([^)]*)\))?$/, (l, m, k) => `${l} must be at least ${amount(m[1]!, k)}${unitIn(m[2]) && !Object.hasOwn(LABELS, m[1]!) ? ` ${unitIn(m[2])}` : ''}: enter that or more.`],
   [/^ must be at most (\S+(?: °C)?)(?: \(([^)]*)\))?$/, (l, m, k) => `${l} must be at most ${amount(m[1]!, k)}${unitIn(m[2]) ? ` ${unitIn(m[2])}` : ''}: enter that or less.`],
   [/^ must be above (\S+) and at most (\S+)(?: \(([^)]*)\))?$/, (l, m, k) => `${l} must be above ${amount(m[1]!, k)} and at most ${amount(m[2]!, k)}: enter a value in that range.`],
   [/^ must be at least (\S+) and at most (\S+)(?: \(([^)]*)\))?$/, (l, m, k) => `${l} must be from ${amount(m[1]!, k)} to ${amount(m[2]!, k)}: enter a value in that range.`],
 ]
 
-const KEY_PATTERN = new RegExp(`\\b(?:(?:machineSide|gridSide|derating)\\.)?(${Object.keys(FIELD_LABELS).filter(k => k.length > 4).sort((a, b) => b.length - a.length).join('|')})\\b`, 'g')
+const KEY_PATTERN = new RegExp(`\\b(?:(?:machineSide|gridSide|derating)\\.)?(${Object.keys(LABELS).filter(k => k.length > 4).sort((a, b) => b.length - a.length).join('|')})\\b`, 'g')
 
 /** One validation message in plain words naming the field by its label (path: the machine path of the field). */
 export function plainMessage(path: string, message: string): string {
@@ -131,11 +134,11 @@ export function plainMessage(path: string, message: string): string {
       const m = pattern.exec(rest)
       if (m) return say(label, m, key)
     }
-    return `${label}${rest.startsWith(' ') ? '' : ' '}${rest.replace(KEY_PATTERN, (_, k: string) => `“${FIELD_LABELS[k]!}”`)}`
+    return `${label}${rest.startsWith(' ') ? '' : ' '}${rest.replace(KEY_PATTERN, (_, k: string) => `“${LABELS[k]!}”`)}`
   }
   // Any other machine key in the sentence ("… must be at least dcVoltage") becomes its label; a message
   // that does not name its field ("Enter a valid e-mail address") gets the label in front.
-  const replaced = message.replace(KEY_PATTERN, (_, k: string) => `“${FIELD_LABELS[k]!}”`)
+  const replaced = message.replace(KEY_PATTERN, (_, k: string) => `“${LABELS[k]!}”`)
   if (!key || replaced.toLowerCase().includes(label.toLowerCase())) return replaced.charAt(0).toUpperCase() + replaced.slice(1)
   return `${label}: ${replaced.charAt(0).toLowerCase()}${replaced.slice(1)}`
 }
