@@ -1,4 +1,5 @@
 import type { z } from 'zod'
+import { plainIssues } from '#shared/schemas/messages'
 
 /** Field errors from the shared zod schema (before sending) and from the server's 4xx answer (after). */
 export function useFormErrors() {
@@ -17,7 +18,7 @@ export function useFormErrors() {
   function validate<T extends z.ZodType>(schema: T, value: unknown): value is z.infer<T> {
     const r = schema.safeParse(value)
     if (r.success) return true
-    setIssues(r.error.issues.map(i => ({ path: i.path.join('.'), message: i.message })))
+    setIssues(plainIssues(r.error.issues.map(i => ({ path: i.path.join('.'), message: i.message }))))
     return false
   }
 

@@ -46,6 +46,8 @@ export const useDesignStore = defineStore('design', () => {
   const evaluating = ref(false)
   const evaluationError = ref('')
   const fieldErrors = ref<Record<string, string>>({})
+  // Fields whose typed text was refused in the browser (the model keeps the last good value).
+  const refusedFields = ref<string[]>([])
   const saving = ref(false)
   const saveError = ref('')
   const conflict = ref<{ currentRevision: number } | null>(null)
@@ -56,6 +58,14 @@ export const useDesignStore = defineStore('design', () => {
   let sequence = 0
 
   const result = computed<DesignResult | null>(() => preview.value?.result ?? null)
+  /** The results on screen belong to input that is now refused (by a field or by the server). */
+  const outOfDate = computed(() => !!preview.value && (refusedFields.value.length > 0 || !!evaluationError.value))
+
+  function setRefused(fieldId: string, refused: boolean) {
+    const has = refusedFields.value.includes(fieldId)
+    if (refused && !has) refusedFields.value = [...refusedFields.value, fieldId]
+    else if (!refused && has) refusedFields.value = refusedFields.value.filter(f => f !== fieldId)
+  }
 
   function reset(from = blankDesign(), designId: number | null = null, designRevision = 0) {
     id.value = designId
@@ -65,6 +75,8 @@ export const useDesignStore = defineStore('design', () => {
     input.value = structuredClone(toRaw(from.input))
     preview.value = null
     fieldErrors.value = {}
+    refusedFields.value = []
+    evaluationError.value = ''
     saveError.value = ''
     conflict.value = null
     baseline.value = snapshot()
@@ -128,5 +140,5 @@ export const useDesignStore = defineStore('design', () => {
     }
   }
 
-  return { id, revision, name, description, input, preview, result, evaluating, evaluationError, fieldErrors, saving, saveError, conflict, dirty, reset, evaluate, save }
+  return { id, revision, name, description, input, preview, result, outOfDate, refusedFields, setRefused, evaluating, evaluationError, fieldErrors, saving, saveError, conflict, dirty, reset, evaluate, save }
 })

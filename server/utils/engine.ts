@@ -1,4 +1,5 @@
 import { EngineInputError } from '#shared/engine'
+import { plainMessage, plainSummary } from '#shared/schemas/messages'
 
 /** Runs the engine; an input the engine refuses becomes a 422 naming the field. */
 export function withEngine<T>(compute: () => T, fieldPrefix = ''): T {
@@ -8,7 +9,8 @@ export function withEngine<T>(compute: () => T, fieldPrefix = ''): T {
   catch (err) {
     if (err instanceof EngineInputError) {
       const path = fieldPrefix ? `${fieldPrefix}.${err.field}` : err.field
-      throw createError({ statusCode: 422, message: `Invalid field: ${path} — ${err.message}`, data: { issues: [{ path, message: err.message }] } })
+      const issue = { path, message: plainMessage(path, err.message) }
+      throw createError({ statusCode: 422, message: plainSummary(issue, 'The input is not valid.'), data: { issues: [issue] } })
     }
     throw err
   }

@@ -1,17 +1,17 @@
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
+import { labelOf, plainIssues, plainSummary } from '#shared/schemas/messages'
 
-/** zod issues as { path, message } pairs a form can put beside its fields. */
+/** zod issues as { path, message } pairs a form can put beside its fields: machine path, message in plain words naming the field's label. */
 export function issuesOf(error: z.ZodError) {
-  return error.issues.map(i => ({ path: i.path.join('.'), message: i.message }))
+  return plainIssues(error.issues.map(i => ({ path: i.path.join('.'), message: i.message })))
 }
 
 function fail(statusCode: number, what: string, error: z.ZodError): never {
   const issues = issuesOf(error)
-  const first = issues[0]
   throw createError({
     statusCode,
-    message: first ? `${what}: ${first.path || 'value'} — ${first.message}` : `${what} is not valid`,
+    message: plainSummary(issues[0], `${what}: the request is not valid.`),
     data: { issues },
   })
 }
@@ -61,7 +61,7 @@ export async function readValid<T extends z.ZodType>(event: H3Event, schema: T, 
   }
   const nul = pathWithNul(body)
   if (nul !== null) {
-    throw createError({ statusCode: 422, message: `Invalid field: ${nul || 'value'} — contains a NUL character`, data: { issues: [{ path: nul, message: 'Contains a NUL character' }] } })
+    throw createError({ statusCode: 422, message: `${labelOf(nul)} contains a NUL character: remove it.`, data: { issues: [{ path: nul, message: `${labelOf(nul)} contains a NUL character: remove it.` }] } })
   }
   const r = schema.safeParse(body)
   if (!r.success) fail(invalidStatus, 'Invalid field', r.error)

@@ -51,6 +51,7 @@ export const UNIT_SPECS: Readonly<Record<string, UnitSpec>> = {
   'H': { noun: 'an inductance', examples: ['60 nH', '0.06 µH'], spellings: [withPrefixes('H'), word('henry')] },
   'A/s': { noun: 'a current slope', examples: ['2e9 A/s', '2 kA/µs'], spellings: [withPrefixes('A/s'), { text: 'A/µs', factor: 1e6, prefixes: true }, { text: 'A/us', factor: 1e6, prefixes: true }] },
   'Hz': { noun: 'a frequency', examples: ['4 kHz', '4000 Hz'], spellings: [withPrefixes('Hz', true), word('hertz')] },
+  '%': { noun: 'a percentage', examples: ['85 %', '85'], spellings: [{ text: '%', factor: 0.01 }, word('percent', 0.01, false)] },
   'pcs': { noun: 'a number of pieces', examples: ['100', '100 pcs'], spellings: [word('pcs', 1, false), word('pc', 1, false), word('pce', 1, false), word('pieces', 1, false), word('piece', 1, false), word('units', 1, false), word('ea', 1, false)] },
   '': { noun: 'a number', examples: ['12', '12.5'], spellings: [] },
 }
@@ -82,7 +83,7 @@ export function unitFactor(unitText: string, expectedUnit: string): number | nul
 }
 
 /** The quantity a unit text belongs to ("a current" for "kA"), to tell the user what they typed instead. */
-function recogniseOtherQuantity(unitText: string, expectedUnit: string): string | null {
+export function recogniseOtherQuantity(unitText: string, expectedUnit: string): string | null {
   for (const [symbol, spec] of Object.entries(UNIT_SPECS)) {
     if (symbol === expectedUnit || symbol === '' || symbol === 'pcs') continue
     if (unitFactor(unitText, symbol) !== null) return spec.noun
@@ -141,6 +142,18 @@ export function parseNumberText(text: string, decimalSeparator: DecimalSeparator
 
 // Leading number: digits with group separators, decimal marks and an optional exponent; the rest is the unit.
 const NUMBER_AT_START = /^\s*([+\-\u2212]?\s*(?:\d[\d\s\u00A0\u2009\u202F'.,]*\d|\d|[.,]\d+)(?:[eE][+-]?\d+)?)(.*)$/s
+
+/** Splits typed text into its leading number and the unit text after it; null when it does not start with a number. */
+export function splitQuantityText(text: string): { numberText: string, unitText: string } | null {
+  const match = NUMBER_AT_START.exec(text.trim())
+  if (!match) return null
+  return { numberText: match[1]!.replace(/\s+$/, ''), unitText: match[2]!.trim() }
+}
+
+/** The SI prefix factor of a bare prefix ("k" → 1e3, "u" or "µ" → 1e-6), or null. */
+export function prefixFactor(text: string): number | null {
+  return Object.hasOwn(SI_PREFIXES, text) ? SI_PREFIXES[text]! : null
+}
 
 // 12 significant digits drop binary noise such as 18 mJ → 0.018000000000000002.
 function scaled(value: number, factor: number): number {

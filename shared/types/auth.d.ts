@@ -9,6 +9,8 @@ declare module '#auth-utils' {
   }
   interface UserSession {
     sessionVersion: number
+    /** Set (with no user) by GET /api/_auth/session when this session no longer counts. */
+    ended?: 'disabled' | 'ended'
   }
 }
 

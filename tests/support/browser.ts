@@ -13,8 +13,8 @@ export async function launch(): Promise<Browser> {
   })
 }
 
-export async function newPage(browser: Browser, width = 1280): Promise<Page> {
-  const context = await browser.newContext({ baseURL: baseUrl, viewport: { width, height: 900 }, acceptDownloads: true })
+export async function newPage(browser: Browser, width = 1280, locale = 'en-GB'): Promise<Page> {
+  const context = await browser.newContext({ baseURL: baseUrl, viewport: { width, height: 900 }, acceptDownloads: true, locale })
   const page = await context.newPage()
   // The app must never reach outside this machine.
   await page.route(url => !url.toString().startsWith(baseUrl) && !url.toString().startsWith('data:') && !url.toString().startsWith('blob:'), route => route.abort())
