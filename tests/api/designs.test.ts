@@ -83,6 +83,9 @@ describe('designs', () => {
     expect(s1.candidates.length).toBeGreaterThan(0)
     const c = s1.candidates[0]
     expect(c.part.voltageRating * c.seriesCount).toBeGreaterThanOrEqual(s1.duty.requiredVoltageRating)
+    // candidates name their part by version id; its catalogue data comes once in `parts`
+    expect(r.body.parts[c.partVersionId]).toMatchObject({ partNumber: c.part.partNumber, manufacturer: c.part.manufacturer, voltageRating: c.part.voltageRating })
+    expect(c.part.priceBreaks).toBeUndefined()
     const put = await a.json('PUT', `/api/designs/${design.id}/parts`, { side: 'machine', position: 'S1', partVersionId: c.partVersionId, seriesCount: c.seriesCount, parallelCount: c.parallelCount })
     expect(put.status).toBe(200)
     const after = await a.json('GET', `/api/designs/${design.id}/parts`)

@@ -9,9 +9,18 @@ const query = z.object({ show: z.enum(['preferred', 'all'], { message: 'Use show
 
 type Assigned = NonNullable<PositionMatch['assigned']>
 /** A position as a role sees it: catalogue fields (restrictedFields.catalogue) only with catalogue read. */
+type ListedCandidate = Omit<PositionMatch['candidates'][number], 'part'> & { part: ReturnType<typeof partLabel> }
 type ShownPosition = Omit<PositionMatch, 'candidates' | 'hiddenCandidates' | 'nothingFits' | 'assigned'>
-  & Partial<Pick<PositionMatch, 'candidates' | 'hiddenCandidates' | 'nothingFits'>>
+  & Partial<Pick<PositionMatch, 'hiddenCandidates' | 'nothingFits'>> & { candidates?: ListedCandidate[] }
   & { assigned: null | (Omit<Assigned, 'part' | 'evaluation'> & { part: Pick<CatalogPart, 'partNumber' | 'manufacturer' | 'kind' | 'packageConfiguration'> & Partial<CatalogPart>, evaluation: Partial<Candidate> | null }) }
+
+/** What a candidate row shows of its part; the rest is in the answer's `parts` by partVersionId. */
+function partLabel(part: CatalogPart): Pick<CatalogPart, 'partNumber' | 'manufacturer' | 'kind' | 'packageConfiguration' | 'voltageRating'> & Partial<Pick<CatalogPart, 'currentRating' | 'capacitance'>> {
+  const label: ReturnType<typeof partLabel> = { partNumber: part.partNumber, manufacturer: part.manufacturer, kind: part.kind, packageConfiguration: part.packageConfiguration, voltageRating: part.voltageRating }
+  if (part.currentRating !== undefined) label.currentRating = part.currentRating
+  if (part.capacitance !== undefined) label.capacitance = part.capacitance
+  return label
+}
 
 function strip<T extends object>(o: T, keys: readonly string[]) {
   return Object.fromEntries(Object.entries(o).filter(([k]) => !keys.includes(k)))
@@ -26,7 +35,17 @@ export default defineEventHandler(async (event) => {
   const { design, positions, summary, policy } = await matchDesign(id, 40, { showAll: show === 'all' })
   const head = { id: design.id, name: design.name, revision: design.revision }
   if (sees(user.role, 'catalogue')) {
-    return { design: head, policy, positions: positions as ShownPosition[], summary: summary as (typeof summary[number] & { costPerDesign: number | null })[] }
+    // Candidates refer to their part by partVersionId with a short label; the full catalogue data of
+    // each part is sent once in `parts`, however many positions list it.
+    const parts: Record<number, CatalogPart> = {}
+    const listed = positions.map(p => ({
+      ...p,
+      candidates: p.candidates.map((c) => {
+        parts[c.partVersionId] ??= c.part
+        return { ...c, part: partLabel(c.part) }
+      }),
+    }))
+    return { design: head, policy, positions: listed as ShownPosition[], parts, summary: summary as (typeof summary[number] & { costPerDesign: number | null })[] }
   }
   const shown = positions.map(p => ({
     ...strip(p, restrictedFields.catalogue.position),
