@@ -32,10 +32,12 @@ interface CurrentFigures {
   lowFrequencyRms: number
   /** A, mean (DC part) */
   mean: number
-  /** C, peak-to-peak charge swing from the low-frequency current */
+  /** C, peak-to-peak charge swing of the switching-period-averaged current alone (over the fundamental period) */
   chargeLowFrequency: number
-  /** C, largest peak-to-peak charge swing within one switching period */
+  /** C, largest peak-to-peak charge swing within one switching period alone */
   chargeSwitching: number
+  /** C, peak-to-peak of the whole charge: low-frequency charge plus the within-period swing on top of it, over the fundamental period */
+  charge: number
 }
 
 /**
@@ -49,7 +51,8 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
   const sum = new Float64Array(J)
   const sumSq = new Float64Array(J)
   const series = new Float64Array(J * points)
-  const swing = new Float64Array(J)
+  // half the peak-to-peak charge swing within the switching period centred on each sample, C
+  const halfSwing = new Float64Array(J * points)
   const base = new Int32Array(3)
   const frac = new Float64Array(3)
   const cur = new Float64Array(3)
@@ -104,78 +107,100 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
         avg += len * ic
         ms += len * ic * ic
       }
-      // Charge swing within the switching period: the carrier sweeps the intervals in order over T_sw/2.
+      // Charge within the switching period about its local average: the rising carrier sweeps the
+      // intervals upward over T_sw/2 (path P(c), P(0) = P(1) = 0), the falling carrier sweeps them back
+      // (path −P(c)); so the charge spans ±max|P| around a zero period-mean, whatever the sign of P.
       let acc = 0
-      let hi = 0
-      let lo = 0
+      let peak = 0
       for (let q = 0; q < 4; q++) {
         acc += (bounds[q + 1]! - bounds[q]!) * (values[q * J + j]! - avg)
-        if (acc > hi) hi = acc
-        if (acc < lo) lo = acc
+        const a = acc < 0 ? -acc : acc
+        if (a > peak) peak = a
       }
-      const dq = (hi - lo) / (2 * switchingHz)
-      if (dq > swing[j]!) swing[j] = dq
+      halfSwing[j * points + k] = peak / (2 * switchingHz)
       sum[j]! += avg
       sumSq[j]! += ms
       series[j * points + k] = avg
     }
   }
-  return Array.from({ length: J }, (_, j) => figures(sum[j]! / points, sumSq[j]! / points, series.subarray(j * points, (j + 1) * points), swing[j]!, fundamentalHz))
+  return Array.from({ length: J }, (_, j) => figures(sum[j]! / points, sumSq[j]! / points, series.subarray(j * points, (j + 1) * points), halfSwing.subarray(j * points, (j + 1) * points), fundamentalHz))
 }
 
-function figures(mean: number, meanSquare: number, averaged: Float64Array, chargeSwitching: number, fundamentalHz: number): CurrentFigures {
+/**
+ * Peak-to-peak charge over the fundamental period, in one pass: the charge of the switching-period
+ * averaged current (integrated to the centre of each sample) carries the within-period swing ±h_k of
+ * the switching period there; the ripple spans max(Q_k + h_k) − min(Q_k − h_k). With no low-frequency
+ * current this is the largest within-period swing, with no switching swing the low-frequency swing,
+ * and where both act their sum at the angles where they add.
+ */
+function figures(mean: number, meanSquare: number, averaged: Float64Array, halfSwing: Float64Array, fundamentalHz: number): CurrentFigures {
   const n = averaged.length
   const dt = 1 / (fundamentalHz * n)
   let lf = 0
   let q = 0
-  let qMax = 0
-  let qMin = 0
+  let qMax = -Infinity
+  let qMin = Infinity
+  let hi = -Infinity
+  let lo = Infinity
+  let swing = 0
   for (let k = 0; k < n; k++) {
     const ac = averaged[k]! - mean
     lf += ac * ac
+    const centre = q + 0.5 * ac * dt
     q += ac * dt
-    if (q > qMax) qMax = q
-    if (q < qMin) qMin = q
+    const h = halfSwing[k]!
+    if (centre > qMax) qMax = centre
+    if (centre < qMin) qMin = centre
+    if (centre + h > hi) hi = centre + h
+    if (centre - h < lo) lo = centre - h
+    if (2 * h > swing) swing = 2 * h
   }
   return {
     rms: Math.sqrt(Math.max(0, meanSquare - mean * mean)),
     lowFrequencyRms: Math.sqrt(lf / n),
     mean,
     chargeLowFrequency: qMax - qMin,
-    chargeSwitching,
+    chargeSwitching: swing,
+    charge: hi - lo,
   }
 }
 
 /**
  * Flying capacitor between two adjacent cells under phase-shifted carriers (shift 1/(N−1) of a
  * period): it carries ±i while the two cells' states differ, 2·min(d, 1/(N−1), 1 − d) of each
- * switching period with cell duty d = (1 + m)/2; its switching-period average is zero.
+ * switching period with cell duty d = (1 + m)/2; its switching-period average is zero. Within a
+ * period the charge steps by +i·t·T_sw (one cell's pulse) and back by −i·t·T_sw (the neighbour's,
+ * half a cell shift later), t = min(d, 1/(N−1), 1 − d): a peak-to-peak swing |i|·t·T_sw symmetric
+ * about the period mean, so the ripple over the fundamental is its largest value.
  */
-function flyingCurrents(N: number, reference: (theta: number) => number, currentPeak: number, phi: number, points: number, switchingHz: number): CurrentFigures {
+function flyingCurrents(N: number, reference: (theta: number) => number, currentPeak: number, phi: number, points: number, switchingHz: number, fundamentalHz: number): CurrentFigures {
   const delta = 1 / (N - 1)
+  const averaged = new Float64Array(points)
+  const halfSwing = new Float64Array(points)
   let ms = 0
-  let swing = 0
   for (let k = 0; k < points; k++) {
     const theta = ((k + 0.5) * TWO_PI) / points
     const d = (1 + reference(theta)) / 2
     const i = currentPeak * Math.sin(theta - phi)
     const t = Math.min(d, delta, 1 - d)
     ms += 2 * t * i * i
-    swing = Math.max(swing, (Math.abs(i) * t) / switchingHz)
+    halfSwing[k] = (Math.abs(i) * t) / (2 * switchingHz)
   }
-  return { rms: Math.sqrt(ms / points), lowFrequencyRms: 0, mean: 0, chargeLowFrequency: 0, chargeSwitching: swing }
+  return { ...figures(0, ms / points, averaged, halfSwing, fundamentalHz), rms: Math.sqrt(ms / points) }
 }
 
 /**
  * H-bridge cell capacitor under unipolar PWM (legs at duties (1 ± m)/2 on one carrier): it carries
  * the phase current while the cell outputs ±V_cell, |m| of the period; the average m·i holds the
- * second harmonic M·Î/(2√2) RMS that dominates; the cell's DC source is taken ripple-free.
+ * second harmonic M·Î/(2√2) RMS that dominates; the cell's DC source is taken ripple-free. The
+ * output pulses repeat every half carrier period: in each, i for |m|·T_sw/2 against the mean m·i,
+ * a peak-to-peak swing |i|·|m|·(1 − |m|)·T_sw/2 symmetric about the local mean.
  */
 function cellCurrents(reference: (theta: number) => number, currentPeak: number, phi: number, points: number, switchingHz: number, fundamentalHz: number): CurrentFigures {
   const series = new Float64Array(points)
+  const halfSwing = new Float64Array(points)
   let sum = 0
   let sumSq = 0
-  let swing = 0
   for (let k = 0; k < points; k++) {
     const theta = ((k + 0.5) * TWO_PI) / points
     const m = reference(theta)
@@ -184,9 +209,9 @@ function cellCurrents(reference: (theta: number) => number, currentPeak: number,
     series[k] = m * i
     sum += m * i
     sumSq += am * i * i
-    swing = Math.max(swing, (Math.abs(i) * am * (1 - am)) / (2 * switchingHz))
+    halfSwing[k] = (Math.abs(i) * am * (1 - am)) / (4 * switchingHz)
   }
-  return figures(sum / points, sumSq / points, series, swing, fundamentalHz)
+  return figures(sum / points, sumSq / points, series, halfSwing, fundamentalHz)
 }
 
 export interface CapacitorOutcome {
@@ -204,7 +229,6 @@ export function capacitorStresses(ctx: CapacitorContext): CapacitorOutcome {
   const build = (def: (typeof defs)[number], f: CurrentFigures, method: string, source: string): CapacitorStress => {
     const nominal = def.voltageUnits * ctx.unitVoltageNominal
     const target = ctx.rippleTarget ?? DEFAULT_RIPPLE_FRACTION * nominal
-    const charge = f.chargeLowFrequency + f.chargeSwitching
     return {
       name: def.name,
       kind: def.kind,
@@ -213,12 +237,12 @@ export function capacitorStresses(ctx: CapacitorContext): CapacitorOutcome {
       rippleCurrentRms: f.rms,
       lowFrequencyRippleRms: f.lowFrequencyRms,
       ...(def.seriesCount !== undefined ? { seriesCount: def.seriesCount } : {}),
-      capacitanceRequired: target > 0 ? charge / target : 0,
+      capacitanceRequired: target > 0 ? f.charge / target : 0,
       rippleTarget: target,
       provenance: { method, source },
     }
   }
-  const sizing = 'capacitance = (low-frequency + switching charge swing) / peak-to-peak ripple target'
+  const sizing = 'capacitance = peak-to-peak charge / ripple target, where the ripple is the peak-to-peak capacitor voltage over one fundamental period in periodic steady state, switching-frequency ripple included, and the charge is that of the switched current: the charge of its switching-period average (low-frequency) with the swing within each switching period on top, so the larger of the two counts where one dominates and their sum at the angles where both act'
 
   switch (leg.def.capacitorModel) {
     case 'split': {
@@ -236,7 +260,7 @@ export function capacitorStresses(ctx: CapacitorContext): CapacitorOutcome {
     }
     case 'flying': {
       const link = splitLinkCurrents(2, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz)[0]!
-      const fly = flyingCurrents(L, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz)
+      const fly = flyingCurrents(L, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz)
       for (const def of defs) {
         if (def.kind === 'dc-link') {
           result.push(build(def, link, `DC-link string carries the current switched by the outermost cell (its carrier common to the three phases), as a two-level link; ${sizing}.`, 'J. W. Kolar, S. D. Round, IEE Proc. EPA 153(4) 2006 (same form); T. A. Meynard, H. Foch, IEEE PESC 1992 (structure)'))
