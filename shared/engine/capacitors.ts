@@ -51,7 +51,9 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
   const sum = new Float64Array(J)
   const sumSq = new Float64Array(J)
   const series = new Float64Array(J * points)
-  // half the peak-to-peak charge swing within the switching period centred on each sample, C
+  // the same with the natural-sampling shift of the pulses, for the charge
+  const charged = new Float64Array(J * points)
+  // largest charge above (and, mirrored, below) its mean within the switching period centred on each sample, C
   const halfSwing = new Float64Array(J * points)
   const base = new Int32Array(3)
   const frac = new Float64Array(3)
@@ -61,18 +63,32 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
   // values[q·J + (j−1)]: current of capacitor j while the carrier is in interval q
   const values = new Float64Array(4 * J)
   const dTheta = TWO_PI / points
+  // Band positions r of the three phases, tabulated once (their slopes are needed below).
+  const rTab = new Float64Array(3 * points)
+  for (let x = 0; x < 3; x++) {
+    for (let k = 0; k < points; k++) rTab[x * points + k] = ((1 + reference((k + 0.5) * dTheta - x * SHIFT)) * (L - 1)) / 2
+  }
+  // Natural sampling: a moving duty shifts its pulse off the carrier valley by g·ġ·T²/4, so the pulse
+  // sees the current i + i̇·g·ġ·T²/4; with θ = ωt, per unit of dg/dθ·di/dθ this is (ω/f_sw)²/4.
+  const shiftFactor = ((TWO_PI * fundamentalHz) / switchingHz) ** 2 / 4
+  const slope = new Float64Array(3)
+  const curSlope = new Float64Array(3)
 
   for (let k = 0; k < points; k++) {
     const theta = (k + 0.5) * dTheta
+    const kNext = k + 1 === points ? 0 : k + 1
+    const kPrev = k === 0 ? points - 1 : k - 1
     for (let x = 0; x < 3; x++) {
       const tx = theta - x * SHIFT
-      const r = ((1 + reference(tx)) * (L - 1)) / 2
+      const r = rTab[x * points + k]!
+      slope[x] = (rTab[x * points + kNext]! - rTab[x * points + kPrev]!) / (2 * dTheta)
       let lo = Math.floor(r)
       if (lo > L - 2) lo = L - 2
       if (lo < 0) lo = 0
       base[x] = lo
       frac[x] = r - lo
       cur[x] = currentPeak * Math.sin(tx - phi)
+      curSlope[x] = currentPeak * Math.cos(tx - phi)
     }
     // Interval bounds: 0, the three duty fractions in ascending order, 1.
     const f0 = frac[0]!
@@ -107,6 +123,14 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
         avg += len * ic
         ms += len * ic * ic
       }
+      // That shift for the phases switching in band j: tiny per period, but it adds up to a
+      // low-frequency charge of order f/f_sw of the switching swing (e.g. with space-vector references).
+      let shifted = 0
+      for (let x = 0; x < 3; x++) {
+        const g = frac[x]!
+        if (base[x] === j && g > 0 && g < 1) shifted += g * g * slope[x]! * curSlope[x]!
+      }
+      const avgShifted = avg - shiftFactor * shifted
       // Charge within the switching period about its local average: the rising carrier sweeps the
       // intervals upward over T_sw/2 (path P(c), P(0) = P(1) = 0), the falling carrier sweeps them back
       // (path −P(c)); so the charge spans ±max|P| around a zero period-mean, whatever the sign of P.
@@ -121,21 +145,32 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
       sum[j]! += avg
       sumSq[j]! += ms
       series[j * points + k] = avg
+      charged[j * points + k] = avgShifted
     }
   }
-  return Array.from({ length: J }, (_, j) => figures(sum[j]! / points, sumSq[j]! / points, series.subarray(j * points, (j + 1) * points), halfSwing.subarray(j * points, (j + 1) * points), fundamentalHz))
+  return Array.from({ length: J }, (_, j) => {
+    const part = (a: Float64Array) => a.subarray(j * points, (j + 1) * points)
+    const swing = part(halfSwing)
+    return figures(sum[j]! / points, sumSq[j]! / points, part(series), swing, fundamentalHz, swing, part(charged))
+  })
 }
 
 /**
  * Peak-to-peak charge over the fundamental period, in one pass: the charge of the switching-period
- * averaged current (integrated to the centre of each sample) carries the within-period swing ±h_k of
- * the switching period there; the ripple spans max(Q_k + h_k) − min(Q_k − h_k). With no low-frequency
- * current this is the largest within-period swing, with no switching swing the low-frequency swing,
- * and where both act their sum at the angles where they add.
+ * averaged current (integrated to the centre of each sample) carries the within-period swing of the
+ * switching period there, `above` and `below` its period mean (C); the ripple spans
+ * max(Q_k + above_k) − min(Q_k − below_k). With no low-frequency current this is the largest
+ * within-period swing, with no switching swing the low-frequency swing, and where both act their
+ * sum at the angles where they add. The period mean is the right anchor: the moving average of the
+ * charge over one switching period is the integral of the period-averaged current.
  */
-function figures(mean: number, meanSquare: number, averaged: Float64Array, halfSwing: Float64Array, fundamentalHz: number): CurrentFigures {
+function figures(mean: number, meanSquare: number, averaged: Float64Array, above: Float64Array, fundamentalHz: number, below: Float64Array = above, charged: Float64Array = averaged): CurrentFigures {
   const n = averaged.length
   const dt = 1 / (fundamentalHz * n)
+  // The charged series' own mean, so that its charge closes over the period.
+  let chargedMean = 0
+  for (let k = 0; k < n; k++) chargedMean += charged[k]!
+  chargedMean /= n
   let lf = 0
   let q = 0
   let qMax = -Infinity
@@ -146,14 +181,16 @@ function figures(mean: number, meanSquare: number, averaged: Float64Array, halfS
   for (let k = 0; k < n; k++) {
     const ac = averaged[k]! - mean
     lf += ac * ac
-    const centre = q + 0.5 * ac * dt
-    q += ac * dt
-    const h = halfSwing[k]!
+    const dq = (charged[k]! - chargedMean) * dt
+    const centre = q + 0.5 * dq
+    q += dq
+    const up = above[k]!
+    const down = below[k]!
     if (centre > qMax) qMax = centre
     if (centre < qMin) qMin = centre
-    if (centre + h > hi) hi = centre + h
-    if (centre - h < lo) lo = centre - h
-    if (2 * h > swing) swing = 2 * h
+    if (centre + up > hi) hi = centre + up
+    if (centre - down < lo) lo = centre - down
+    if (up + down > swing) swing = up + down
   }
   return {
     rms: Math.sqrt(Math.max(0, meanSquare - mean * mean)),
@@ -166,17 +203,51 @@ function figures(mean: number, meanSquare: number, averaged: Float64Array, halfS
 }
 
 /**
- * Flying capacitor between two adjacent cells under phase-shifted carriers (shift 1/(N−1) of a
- * period): it carries ±i while the two cells' states differ, 2·min(d, 1/(N−1), 1 − d) of each
- * switching period with cell duty d = (1 + m)/2; its switching-period average is zero. Within a
- * period the charge steps by +i·t·T_sw (one cell's pulse) and back by −i·t·T_sw (the neighbour's,
- * half a cell shift later), t = min(d, 1/(N−1), 1 − d): a peak-to-peak swing |i|·t·T_sw symmetric
- * about the period mean, so the ripple over the fundamental is its largest value.
+ * Charge within one switching period (per unit of i·T_sw) of a current +1 during a pulse of width
+ * d centred at 0 and −1 during one of width d centred at δ (both periodic in 1): its largest value
+ * above and below its period mean. Breakpoints are the pulse edges; between them the charge is linear.
+ */
+function pulsePairSwing(d: number, delta: number, out: Float64Array): void {
+  const edges = [0, 1]
+  for (const e of [d / 2, -d / 2, delta + d / 2, delta - d / 2]) edges.push(e - Math.floor(e))
+  edges.sort((a, b) => a - b)
+  const inPulse = (tau: number, centre: number) => {
+    const x = tau - centre - Math.round(tau - centre)
+    return x < d / 2 && x > -d / 2 ? 1 : 0
+  }
+  let g = 0
+  let area = 0
+  let hi = 0
+  let lo = 0
+  for (let e = 0; e + 1 < edges.length; e++) {
+    const len = edges[e + 1]! - edges[e]!
+    if (len <= 0) continue
+    const mid = edges[e]! + len / 2
+    const f = inPulse(mid, 0) - inPulse(mid, delta)
+    area += len * (g + (f * len) / 2)
+    g += f * len
+    if (g > hi) hi = g
+    if (g < lo) lo = g
+  }
+  out[0] = hi - area
+  out[1] = area - lo
+}
+
+/**
+ * Flying capacitor between two adjacent cells under phase-shifted carriers (shift δ = 1/(N−1) of a
+ * period): it carries ±i while the two cells' states differ, 2·min(d, δ, 1 − d) of each switching
+ * period with cell duty d = (1 + m)/2; its switching-period average is zero. Within a period the
+ * charge steps up by one cell's pulse (i for d·T_sw around its carrier valley) and back down by the
+ * neighbour's, δ·T_sw later; for N > 3 the two are not half a period apart, so the swing lies
+ * unevenly about the period mean and its larger side flips with the sign of i.
  */
 function flyingCurrents(N: number, reference: (theta: number) => number, currentPeak: number, phi: number, points: number, switchingHz: number, fundamentalHz: number): CurrentFigures {
   const delta = 1 / (N - 1)
   const averaged = new Float64Array(points)
-  const halfSwing = new Float64Array(points)
+  const above = new Float64Array(points)
+  const below = new Float64Array(points)
+  const sides = new Float64Array(2)
+  const period = 1 / switchingHz
   let ms = 0
   for (let k = 0; k < points; k++) {
     const theta = ((k + 0.5) * TWO_PI) / points
@@ -184,9 +255,12 @@ function flyingCurrents(N: number, reference: (theta: number) => number, current
     const i = currentPeak * Math.sin(theta - phi)
     const t = Math.min(d, delta, 1 - d)
     ms += 2 * t * i * i
-    halfSwing[k] = (Math.abs(i) * t) / (2 * switchingHz)
+    pulsePairSwing(d, delta, sides)
+    const scale = Math.abs(i) * period
+    above[k] = (i >= 0 ? sides[0]! : sides[1]!) * scale
+    below[k] = (i >= 0 ? sides[1]! : sides[0]!) * scale
   }
-  return { ...figures(0, ms / points, averaged, halfSwing, fundamentalHz), rms: Math.sqrt(ms / points) }
+  return { ...figures(0, ms / points, averaged, above, fundamentalHz, below), rms: Math.sqrt(ms / points) }
 }
 
 /**
