@@ -205,25 +205,34 @@ function figures(mean: number, meanSquare: number, averaged: Float64Array, above
 /**
  * Charge within one switching period (per unit of i·T_sw) of a current +1 during a pulse of width
  * d centred at 0 and −1 during one of width d centred at δ (both periodic in 1): its largest value
- * above and below its period mean. Breakpoints are the pulse edges; between them the charge is linear.
+ * above and below its period mean, into out[0] and out[1]. Between the pulse edges the current is
+ * constant and the charge linear; `edges` is scratch space of 6.
  */
-function pulsePairSwing(d: number, delta: number, out: Float64Array): void {
-  const edges = [0, 1]
-  for (const e of [d / 2, -d / 2, delta + d / 2, delta - d / 2]) edges.push(e - Math.floor(e))
-  edges.sort((a, b) => a - b)
-  const inPulse = (tau: number, centre: number) => {
-    const x = tau - centre - Math.round(tau - centre)
-    return x < d / 2 && x > -d / 2 ? 1 : 0
+function pulsePairSwing(d: number, delta: number, edges: Float64Array, out: Float64Array): void {
+  const h = d / 2
+  edges[0] = 0
+  edges[1] = 1
+  edges[2] = h - Math.floor(h)
+  edges[3] = -h - Math.floor(-h)
+  edges[4] = delta + h - Math.floor(delta + h)
+  edges[5] = delta - h - Math.floor(delta - h)
+  for (let a = 1; a < 6; a++) {
+    const v = edges[a]!
+    let b = a - 1
+    while (b >= 0 && edges[b]! > v) { edges[b + 1] = edges[b]!; b-- }
+    edges[b + 1] = v
   }
   let g = 0
   let area = 0
   let hi = 0
   let lo = 0
-  for (let e = 0; e + 1 < edges.length; e++) {
+  for (let e = 0; e < 5; e++) {
     const len = edges[e + 1]! - edges[e]!
     if (len <= 0) continue
     const mid = edges[e]! + len / 2
-    const f = inPulse(mid, 0) - inPulse(mid, delta)
+    const x0 = mid - Math.round(mid)
+    const x1 = mid - delta - Math.round(mid - delta)
+    const f = (x0 < h && x0 > -h ? 1 : 0) - (x1 < h && x1 > -h ? 1 : 0)
     area += len * (g + (f * len) / 2)
     g += f * len
     if (g > hi) hi = g
@@ -247,6 +256,7 @@ function flyingCurrents(N: number, reference: (theta: number) => number, current
   const above = new Float64Array(points)
   const below = new Float64Array(points)
   const sides = new Float64Array(2)
+  const edges = new Float64Array(6)
   const period = 1 / switchingHz
   let ms = 0
   for (let k = 0; k < points; k++) {
@@ -255,7 +265,7 @@ function flyingCurrents(N: number, reference: (theta: number) => number, current
     const i = currentPeak * Math.sin(theta - phi)
     const t = Math.min(d, delta, 1 - d)
     ms += 2 * t * i * i
-    pulsePairSwing(d, delta, sides)
+    pulsePairSwing(d, delta, edges, sides)
     const scale = Math.abs(i) * period
     above[k] = (i >= 0 ? sides[0]! : sides[1]!) * scale
     below[k] = (i >= 0 ? sides[1]! : sides[0]!) * scale
