@@ -22,6 +22,10 @@
 // while the simulation has 100 discrete carrier periods per fundamental with the reference moving
 // within each; both effects are of order 1/(f_sw/f) of the within-period swing (≈ 1 %). A band
 // that also refuses 3 % too much capacitance keeps the sizing from hiding behind margin.
+// Known limit, not in the tables: a two-level link with space-vector references at the very edge
+// of the linear range (M = 1.15 of 2/√3 ≈ 1.155, f_sw/f = 100) measured 1.085 of the target — the
+// engine's first-order natural-sampling term does not cover duties that graze 0 and 1 (see
+// shared/engine/README.md).
 import { describe, expect, it } from 'vitest'
 import { evaluateStress } from '../../../shared/engine'
 import type { StressResult } from '../../../shared/engine'
@@ -213,6 +217,8 @@ describe('two-level DC link: simulated peak-to-peak ripple with the engine\'s ca
     { M: 0.5, pf: 1.0, modulation: 'sine' as const, fsw: 5000 },
     { M: 1.1, pf: 0.9, modulation: 'space-vector' as const, fsw: 5000 },
     { M: 0.9, pf: -0.7, modulation: 'sine' as const, fsw: 2500 },
+    { M: 0.3, pf: 0, modulation: 'sine' as const, fsw: 5000 },
+    { M: 0.6, pf: 0.5, modulation: 'space-vector' as const, fsw: 2000 },
   ])('M=$M pf=$pf $modulation f_sw=$fsw Hz: ripple within 0.97…1.03 of the target', ({ M, pf, modulation, fsw }) => {
     const target = 8
     const g = gridFor(fsw)
@@ -238,6 +244,9 @@ describe('three-level split DC link (NPC, and the T-type and ANPC with the same 
     { topology: 'diode-clamped' as const, M: 1.0, pf: 0.9, modulation: 'space-vector' as const, fsw: 3000 },
     { topology: 't-type' as const, M: 0.9, pf: -0.8, modulation: 'sine' as const, fsw: 5000 },
     { topology: 'anpc' as const, M: 0.7, pf: 0.95, modulation: 'space-vector' as const, fsw: 5000 },
+    { topology: 'diode-clamped' as const, M: 0.3, pf: 0, modulation: 'sine' as const, fsw: 5000 },
+    { topology: 'diode-clamped' as const, M: 1.15, pf: 1, modulation: 'space-vector' as const, fsw: 5000 },
+    { topology: 'diode-clamped' as const, M: 0.95, pf: 1, modulation: 'sine' as const, fsw: 2000 },
   ])('$topology M=$M pf=$pf $modulation f_sw=$fsw Hz: every capacitor within 0.97…1.03 of the target', ({ topology, M, pf, modulation, fsw }) => {
     const target = 6
     const L = 3
@@ -259,6 +268,9 @@ describe('flying capacitors: simulated peak-to-peak ripple under phase-shifted c
     { N: 3, M: 0.4, pf: 1.0, fsw: 5000 },
     { N: 5, M: 0.85, pf: 0.8, fsw: 5000 },
     { N: 5, M: 0.3, pf: 0.5, fsw: 3000 },
+    { N: 3, M: 1.0, pf: 0, fsw: 5000 },
+    { N: 4, M: 0.7, pf: 0.9, fsw: 3000 },
+    { N: 7, M: 0.9, pf: 0.9, fsw: 2000 },
   ])('N=$N M=$M pf=$pf f_sw=$fsw Hz: every flying capacitor within 0.97…1.03 of the target', ({ N, M, pf, fsw }) => {
     const target = 10
     const g = gridFor(fsw)
@@ -302,6 +314,7 @@ describe('cascaded H-bridge cell capacitor: simulated peak-to-peak ripple, singl
     { M: 0.85, pf: 0.8, fsw: 5000 },
     { M: 0.5, pf: 1.0, fsw: 5000 },
     { M: 1.0, pf: -0.6, fsw: 1000 },
+    { M: 0.2, pf: 0.1, fsw: 5000 },
   ])('M=$M pf=$pf f_sw=$fsw Hz: within 0.97…1.03 of the target; the 2nd harmonic dominates', ({ M, pf, fsw }) => {
     const target = 15
     const levels = 5
