@@ -32,10 +32,6 @@ interface CurrentFigures {
   lowFrequencyRms: number
   /** A, mean (DC part) */
   mean: number
-  /** C, peak-to-peak charge swing of the switching-period-averaged current alone (over the fundamental period) */
-  chargeLowFrequency: number
-  /** C, largest peak-to-peak charge swing within one switching period alone */
-  chargeSwitching: number
   /** C, peak-to-peak of the whole charge: low-frequency charge plus the within-period swing on top of it, over the fundamental period */
   charge: number
 }
@@ -173,11 +169,8 @@ function figures(mean: number, meanSquare: number, averaged: Float64Array, above
   chargedMean /= n
   let lf = 0
   let q = 0
-  let qMax = -Infinity
-  let qMin = Infinity
   let hi = -Infinity
   let lo = Infinity
-  let swing = 0
   for (let k = 0; k < n; k++) {
     const ac = averaged[k]! - mean
     lf += ac * ac
@@ -186,18 +179,13 @@ function figures(mean: number, meanSquare: number, averaged: Float64Array, above
     q += dq
     const up = above[k]!
     const down = below[k]!
-    if (centre > qMax) qMax = centre
-    if (centre < qMin) qMin = centre
     if (centre + up > hi) hi = centre + up
     if (centre - down < lo) lo = centre - down
-    if (up + down > swing) swing = up + down
   }
   return {
     rms: Math.sqrt(Math.max(0, meanSquare - mean * mean)),
     lowFrequencyRms: Math.sqrt(lf / n),
     mean,
-    chargeLowFrequency: qMax - qMin,
-    chargeSwitching: swing,
     charge: hi - lo,
   }
 }
