@@ -32,10 +32,8 @@ interface CurrentFigures {
   lowFrequencyRms: number
   /** A, mean (DC part) */
   mean: number
-  /** C, peak-to-peak charge swing from the low-frequency current */
-  chargeLowFrequency: number
-  /** C, largest peak-to-peak charge swing within one switching period */
-  chargeSwitching: number
+  /** C, peak-to-peak of the whole charge: low-frequency charge plus the within-period swing on top of it, over the fundamental period */
+  charge: number
 }
 
 /**
@@ -49,7 +47,10 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
   const sum = new Float64Array(J)
   const sumSq = new Float64Array(J)
   const series = new Float64Array(J * points)
-  const swing = new Float64Array(J)
+  // the same with the natural-sampling shift of the pulses, for the charge
+  const charged = new Float64Array(J * points)
+  // largest charge above (and, mirrored, below) its mean within the switching period centred on each sample, C
+  const halfSwing = new Float64Array(J * points)
   const base = new Int32Array(3)
   const frac = new Float64Array(3)
   const cur = new Float64Array(3)
@@ -58,18 +59,32 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
   // values[q·J + (j−1)]: current of capacitor j while the carrier is in interval q
   const values = new Float64Array(4 * J)
   const dTheta = TWO_PI / points
+  // Band positions r of the three phases, tabulated once (their slopes are needed below).
+  const rTab = new Float64Array(3 * points)
+  for (let x = 0; x < 3; x++) {
+    for (let k = 0; k < points; k++) rTab[x * points + k] = ((1 + reference((k + 0.5) * dTheta - x * SHIFT)) * (L - 1)) / 2
+  }
+  // Natural sampling: a moving duty shifts its pulse off the carrier valley by g·ġ·T²/4, so the pulse
+  // sees the current i + i̇·g·ġ·T²/4; with θ = ωt, per unit of dg/dθ·di/dθ this is (ω/f_sw)²/4.
+  const shiftFactor = ((TWO_PI * fundamentalHz) / switchingHz) ** 2 / 4
+  const slope = new Float64Array(3)
+  const curSlope = new Float64Array(3)
 
   for (let k = 0; k < points; k++) {
     const theta = (k + 0.5) * dTheta
+    const kNext = k + 1 === points ? 0 : k + 1
+    const kPrev = k === 0 ? points - 1 : k - 1
     for (let x = 0; x < 3; x++) {
       const tx = theta - x * SHIFT
-      const r = ((1 + reference(tx)) * (L - 1)) / 2
+      const r = rTab[x * points + k]!
+      slope[x] = (rTab[x * points + kNext]! - rTab[x * points + kPrev]!) / (2 * dTheta)
       let lo = Math.floor(r)
       if (lo > L - 2) lo = L - 2
       if (lo < 0) lo = 0
       base[x] = lo
       frac[x] = r - lo
       cur[x] = currentPeak * Math.sin(tx - phi)
+      curSlope[x] = currentPeak * Math.cos(tx - phi)
     }
     // Interval bounds: 0, the three duty fractions in ascending order, 1.
     const f0 = frac[0]!
@@ -104,78 +119,160 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
         avg += len * ic
         ms += len * ic * ic
       }
-      // Charge swing within the switching period: the carrier sweeps the intervals in order over T_sw/2.
+      // That shift for the phases switching in band j: tiny per period, but it adds up to a
+      // low-frequency charge of order f/f_sw of the switching swing (e.g. with space-vector references).
+      let shifted = 0
+      for (let x = 0; x < 3; x++) {
+        const g = frac[x]!
+        if (base[x] === j && g > 0 && g < 1) shifted += g * g * slope[x]! * curSlope[x]!
+      }
+      const avgShifted = avg - shiftFactor * shifted
+      // Charge within the switching period about its local average: the rising carrier sweeps the
+      // intervals upward over T_sw/2 (path P(c), P(0) = P(1) = 0), the falling carrier sweeps them back
+      // (path −P(c)); so the charge spans ±max|P| around a zero period-mean, whatever the sign of P.
       let acc = 0
-      let hi = 0
-      let lo = 0
+      let peak = 0
       for (let q = 0; q < 4; q++) {
         acc += (bounds[q + 1]! - bounds[q]!) * (values[q * J + j]! - avg)
-        if (acc > hi) hi = acc
-        if (acc < lo) lo = acc
+        const a = acc < 0 ? -acc : acc
+        if (a > peak) peak = a
       }
-      const dq = (hi - lo) / (2 * switchingHz)
-      if (dq > swing[j]!) swing[j] = dq
+      halfSwing[j * points + k] = peak / (2 * switchingHz)
       sum[j]! += avg
       sumSq[j]! += ms
       series[j * points + k] = avg
+      charged[j * points + k] = avgShifted
     }
   }
-  return Array.from({ length: J }, (_, j) => figures(sum[j]! / points, sumSq[j]! / points, series.subarray(j * points, (j + 1) * points), swing[j]!, fundamentalHz))
+  return Array.from({ length: J }, (_, j) => {
+    const part = (a: Float64Array) => a.subarray(j * points, (j + 1) * points)
+    const swing = part(halfSwing)
+    return figures(sum[j]! / points, sumSq[j]! / points, part(series), swing, fundamentalHz, swing, part(charged))
+  })
 }
 
-function figures(mean: number, meanSquare: number, averaged: Float64Array, chargeSwitching: number, fundamentalHz: number): CurrentFigures {
+/**
+ * Peak-to-peak charge over the fundamental period, in one pass: the charge of the switching-period
+ * averaged current (integrated to the centre of each sample) carries the within-period swing of the
+ * switching period there, `above` and `below` its period mean (C); the ripple spans
+ * max(Q_k + above_k) − min(Q_k − below_k). With no low-frequency current this is the largest
+ * within-period swing, with no switching swing the low-frequency swing, and where both act their
+ * sum at the angles where they add. The period mean is the right anchor: the moving average of the
+ * charge over one switching period is the integral of the period-averaged current.
+ */
+function figures(mean: number, meanSquare: number, averaged: Float64Array, above: Float64Array, fundamentalHz: number, below: Float64Array = above, charged: Float64Array = averaged): CurrentFigures {
   const n = averaged.length
   const dt = 1 / (fundamentalHz * n)
+  // The charged series' own mean, so that its charge closes over the period.
+  let chargedMean = 0
+  for (let k = 0; k < n; k++) chargedMean += charged[k]!
+  chargedMean /= n
   let lf = 0
   let q = 0
-  let qMax = 0
-  let qMin = 0
+  let hi = -Infinity
+  let lo = Infinity
   for (let k = 0; k < n; k++) {
     const ac = averaged[k]! - mean
     lf += ac * ac
-    q += ac * dt
-    if (q > qMax) qMax = q
-    if (q < qMin) qMin = q
+    const dq = (charged[k]! - chargedMean) * dt
+    const centre = q + 0.5 * dq
+    q += dq
+    const up = above[k]!
+    const down = below[k]!
+    if (centre + up > hi) hi = centre + up
+    if (centre - down < lo) lo = centre - down
   }
   return {
     rms: Math.sqrt(Math.max(0, meanSquare - mean * mean)),
     lowFrequencyRms: Math.sqrt(lf / n),
     mean,
-    chargeLowFrequency: qMax - qMin,
-    chargeSwitching,
+    charge: hi - lo,
   }
 }
 
 /**
- * Flying capacitor between two adjacent cells under phase-shifted carriers (shift 1/(N−1) of a
- * period): it carries ±i while the two cells' states differ, 2·min(d, 1/(N−1), 1 − d) of each
- * switching period with cell duty d = (1 + m)/2; its switching-period average is zero.
+ * Charge within one switching period (per unit of i·T_sw) of a current +1 during a pulse of width
+ * d centred at 0 and −1 during one of width d centred at δ (both periodic in 1): its largest value
+ * above and below its period mean, into out[0] and out[1]. Between the pulse edges the current is
+ * constant and the charge linear; `edges` is scratch space of 6.
  */
-function flyingCurrents(N: number, reference: (theta: number) => number, currentPeak: number, phi: number, points: number, switchingHz: number): CurrentFigures {
+function pulsePairSwing(d: number, delta: number, edges: Float64Array, out: Float64Array): void {
+  const h = d / 2
+  edges[0] = 0
+  edges[1] = 1
+  edges[2] = h - Math.floor(h)
+  edges[3] = -h - Math.floor(-h)
+  edges[4] = delta + h - Math.floor(delta + h)
+  edges[5] = delta - h - Math.floor(delta - h)
+  for (let a = 1; a < 6; a++) {
+    const v = edges[a]!
+    let b = a - 1
+    while (b >= 0 && edges[b]! > v) { edges[b + 1] = edges[b]!; b-- }
+    edges[b + 1] = v
+  }
+  let g = 0
+  let area = 0
+  let hi = 0
+  let lo = 0
+  for (let e = 0; e < 5; e++) {
+    const len = edges[e + 1]! - edges[e]!
+    if (len <= 0) continue
+    const mid = edges[e]! + len / 2
+    const x0 = mid - Math.round(mid)
+    const x1 = mid - delta - Math.round(mid - delta)
+    const f = (x0 < h && x0 > -h ? 1 : 0) - (x1 < h && x1 > -h ? 1 : 0)
+    area += len * (g + (f * len) / 2)
+    g += f * len
+    if (g > hi) hi = g
+    if (g < lo) lo = g
+  }
+  out[0] = hi - area
+  out[1] = area - lo
+}
+
+/**
+ * Flying capacitor between two adjacent cells under phase-shifted carriers (shift δ = 1/(N−1) of a
+ * period): it carries ±i while the two cells' states differ, 2·min(d, δ, 1 − d) of each switching
+ * period with cell duty d = (1 + m)/2; its switching-period average is zero. Within a period the
+ * charge steps up by one cell's pulse (i for d·T_sw around its carrier valley) and back down by the
+ * neighbour's, δ·T_sw later; for N > 3 the two are not half a period apart, so the swing lies
+ * unevenly about the period mean and its larger side flips with the sign of i.
+ */
+function flyingCurrents(N: number, reference: (theta: number) => number, currentPeak: number, phi: number, points: number, switchingHz: number, fundamentalHz: number): CurrentFigures {
   const delta = 1 / (N - 1)
+  const averaged = new Float64Array(points)
+  const above = new Float64Array(points)
+  const below = new Float64Array(points)
+  const sides = new Float64Array(2)
+  const edges = new Float64Array(6)
+  const period = 1 / switchingHz
   let ms = 0
-  let swing = 0
   for (let k = 0; k < points; k++) {
     const theta = ((k + 0.5) * TWO_PI) / points
     const d = (1 + reference(theta)) / 2
     const i = currentPeak * Math.sin(theta - phi)
     const t = Math.min(d, delta, 1 - d)
     ms += 2 * t * i * i
-    swing = Math.max(swing, (Math.abs(i) * t) / switchingHz)
+    pulsePairSwing(d, delta, edges, sides)
+    const scale = Math.abs(i) * period
+    above[k] = (i >= 0 ? sides[0]! : sides[1]!) * scale
+    below[k] = (i >= 0 ? sides[1]! : sides[0]!) * scale
   }
-  return { rms: Math.sqrt(ms / points), lowFrequencyRms: 0, mean: 0, chargeLowFrequency: 0, chargeSwitching: swing }
+  return { ...figures(0, ms / points, averaged, above, fundamentalHz, below), rms: Math.sqrt(ms / points) }
 }
 
 /**
  * H-bridge cell capacitor under unipolar PWM (legs at duties (1 ± m)/2 on one carrier): it carries
  * the phase current while the cell outputs ±V_cell, |m| of the period; the average m·i holds the
- * second harmonic M·Î/(2√2) RMS that dominates; the cell's DC source is taken ripple-free.
+ * second harmonic M·Î/(2√2) RMS that dominates; the cell's DC source is taken ripple-free. The
+ * output pulses repeat every half carrier period: in each, i for |m|·T_sw/2 against the mean m·i,
+ * a peak-to-peak swing |i|·|m|·(1 − |m|)·T_sw/2 symmetric about the local mean.
  */
 function cellCurrents(reference: (theta: number) => number, currentPeak: number, phi: number, points: number, switchingHz: number, fundamentalHz: number): CurrentFigures {
   const series = new Float64Array(points)
+  const halfSwing = new Float64Array(points)
   let sum = 0
   let sumSq = 0
-  let swing = 0
   for (let k = 0; k < points; k++) {
     const theta = ((k + 0.5) * TWO_PI) / points
     const m = reference(theta)
@@ -184,9 +281,9 @@ function cellCurrents(reference: (theta: number) => number, currentPeak: number,
     series[k] = m * i
     sum += m * i
     sumSq += am * i * i
-    swing = Math.max(swing, (Math.abs(i) * am * (1 - am)) / (2 * switchingHz))
+    halfSwing[k] = (Math.abs(i) * am * (1 - am)) / (4 * switchingHz)
   }
-  return figures(sum / points, sumSq / points, series, swing, fundamentalHz)
+  return figures(sum / points, sumSq / points, series, halfSwing, fundamentalHz)
 }
 
 export interface CapacitorOutcome {
@@ -204,7 +301,6 @@ export function capacitorStresses(ctx: CapacitorContext): CapacitorOutcome {
   const build = (def: (typeof defs)[number], f: CurrentFigures, method: string, source: string): CapacitorStress => {
     const nominal = def.voltageUnits * ctx.unitVoltageNominal
     const target = ctx.rippleTarget ?? DEFAULT_RIPPLE_FRACTION * nominal
-    const charge = f.chargeLowFrequency + f.chargeSwitching
     return {
       name: def.name,
       kind: def.kind,
@@ -213,12 +309,12 @@ export function capacitorStresses(ctx: CapacitorContext): CapacitorOutcome {
       rippleCurrentRms: f.rms,
       lowFrequencyRippleRms: f.lowFrequencyRms,
       ...(def.seriesCount !== undefined ? { seriesCount: def.seriesCount } : {}),
-      capacitanceRequired: target > 0 ? charge / target : 0,
+      capacitanceRequired: target > 0 ? f.charge / target : 0,
       rippleTarget: target,
       provenance: { method, source },
     }
   }
-  const sizing = 'capacitance = (low-frequency + switching charge swing) / peak-to-peak ripple target'
+  const sizing = 'capacitance = peak-to-peak charge / ripple target, where the ripple is the peak-to-peak capacitor voltage over one fundamental period in periodic steady state, switching-frequency ripple included, and the charge is that of the switched current: the charge of its switching-period average (low-frequency) with the swing within each switching period on top, so the larger of the two counts where one dominates and their sum at the angles where both act'
 
   switch (leg.def.capacitorModel) {
     case 'split': {
@@ -236,7 +332,7 @@ export function capacitorStresses(ctx: CapacitorContext): CapacitorOutcome {
     }
     case 'flying': {
       const link = splitLinkCurrents(2, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz)[0]!
-      const fly = flyingCurrents(L, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz)
+      const fly = flyingCurrents(L, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz)
       for (const def of defs) {
         if (def.kind === 'dc-link') {
           result.push(build(def, link, `DC-link string carries the current switched by the outermost cell (its carrier common to the three phases), as a two-level link; ${sizing}.`, 'J. W. Kolar, S. D. Round, IEE Proc. EPA 153(4) 2006 (same form); T. A. Meynard, H. Foch, IEEE PESC 1992 (structure)'))

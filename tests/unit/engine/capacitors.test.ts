@@ -97,3 +97,21 @@ describe('capacitance sizing', () => {
     expectClose(b.capacitors[0]!.capacitanceRequired!, a.capacitors[0]!.capacitanceRequired! / 2, 1e-12, 'C ∝ 1/ΔV')
   })
 })
+
+describe('ripple definition in the provenance', () => {
+  it.each([
+    { topology: 'two-level' as const, levels: 2 },
+    { topology: 'diode-clamped' as const, levels: 5 },
+    { topology: 't-type' as const, levels: 3 },
+    { topology: 'anpc' as const, levels: 3 },
+    { topology: 'flying-capacitor' as const, levels: 5 },
+    { topology: 'cascaded-h-bridge' as const, levels: 7 },
+  ])('$topology: every capacitor states peak-to-peak over the fundamental period, switching ripple included', ({ topology, levels }) => {
+    const r = evaluateStress(inputAt(topology, 0.8, 0.9, { levels }))
+    expect(r.capacitors.length).toBeGreaterThan(0)
+    for (const c of r.capacitors) {
+      expect(c.provenance.method).toMatch(/peak-to-peak capacitor voltage over one fundamental period in periodic steady state, switching-frequency ripple included/)
+      expect(c.capacitanceRequired! > 0 && Number.isFinite(c.capacitanceRequired!)).toBe(true)
+    }
+  })
+})
