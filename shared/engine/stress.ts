@@ -1,11 +1,12 @@
 // evaluateStress: one operating point of one converter → stresses of every device and capacitor position.
 import { capacitorStresses } from './capacitors'
+import { clampStack, defaultDerating } from './derating'
 import { EngineInputError } from './errors'
 import { DEFAULT_INTEGRATION_POINTS, integrateLeg } from './integrate'
 import { linearLimit, makeReference, SIX_STEP_INDEX } from './modulation'
 import { harmonicAmplitudes, synthesise, totalHarmonicDistortion } from './synth'
 import type { CompiledLeg } from './model'
-import type { DeviceStress, SpectrumLine, StressInput, StressResult } from './types'
+import type { DeratingPolicy, DeviceStress, SpectrumLine, StressInput, StressResult } from './types'
 import { resolveStressInput, type ResolvedInput } from './validate'
 
 export interface EvaluateOptions {
@@ -17,6 +18,8 @@ export interface EvaluateOptions {
   samples?: number
   /** integration points per fundamental period for the averaged currents (default 2048) */
   integrationPoints?: number
+  /** voltage derating that sizes clamp-diode stacks (default: the common-practice policy) */
+  derating?: Pick<DeratingPolicy, 'semiconductorVoltageUtilisation' | 'semiconductorTransientMargin'>
 }
 
 const MIN_SAMPLES = 256
@@ -105,7 +108,7 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
     }
   }
 
-  const devices = deviceStresses(p, leg, currents, scales, points)
+  const devices = deviceStresses(p, leg, currents, scales, points, options.derating ?? defaultDerating, warnings)
   const caps = capacitorStresses({
     leg,
     reference,
@@ -174,10 +177,9 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
   return result
 }
 
-function deviceStresses(p: ResolvedInput, leg: CompiledLeg, currents: ReturnType<typeof integrateLeg>, scales: Scales, points: number): DeviceStress[] {
+function deviceStresses(p: ResolvedInput, leg: CompiledLeg, currents: ReturnType<typeof integrateLeg>, scales: Scales, points: number, derating: NonNullable<EvaluateOptions['derating']>, warnings: string[]): DeviceStress[] {
   const t = p.topology
   const commutationUnits = leg.def.commutationUnits ?? 1
-  const clampUnit = p.clampDiodeUnitVoltage ?? scales.unitMax
   const scheme = {
     'phase-disposition': 'phase-disposition carriers',
     'phase-shifted': 'phase-shifted carriers, redundant states used evenly',
@@ -204,7 +206,12 @@ function deviceStresses(p: ResolvedInput, leg: CompiledLeg, currents: ReturnType
         source: `${t.currentSource}; structure and blocking: ${t.structureSource}`,
       },
     }
-    if (pos.kind === 'clamp-diode') device.seriesCount = Math.max(1, Math.ceil(blockingVoltage / clampUnit - 1e-9))
+    if (pos.kind === 'clamp-diode') {
+      // Count and unit rating from the derating rule, so the stack passes its own rating check.
+      const stack = clampStack(blockingVoltage, blockingVoltage + overshoot, derating, scales.unitMax, p.clampDiodeUnitVoltage)
+      device.seriesCount = stack.seriesCount
+      if (stack.warning) warnings.push(`${pos.name}: ${stack.warning}`)
+    }
     return device
   })
 }

@@ -148,6 +148,8 @@ export interface StressResult {
 export interface DeratingPolicy {
   /** Max DC-link-to-rated-voltage utilisation of semiconductors (0.65 → a 1200 V part at ≤ 780 V blocking). */
   semiconductorVoltageUtilisation: number
+  /** Max (steady blocking + commutation overshoot)-to-rated-voltage ratio (1 → the transient peak may reach the rating). */
+  semiconductorTransientMargin: number
   /** Max peak-current-to-rated-current ratio (1 = peak at or below the nominal rating). */
   semiconductorCurrentUtilisation: number
   /** Max capacitor voltage-to-rating ratio. */
@@ -188,8 +190,12 @@ export interface DesignInput {
 export interface DeviceEnvelope extends DeviceStress {
   /** name of the operating point that set each worst value */
   worstPoint: { blockingVoltage: string, currentAvg: string, currentRms: string, currentPeak: string }
-  /** V, required part voltage class after derating */
+  /** V, required part voltage rating after derating: max(V/u, (V+ΔV)/margin); clamp-diode stacks: per unit diode */
   requiredVoltageRating: number
+  /** V, the same requirement for the whole position (a clamp-diode stack: all its units together) */
+  positionVoltageRating: number
+  /** which derating check set the voltage requirement: utilisation (steady V/u) or transient ((V+ΔV)/margin) */
+  voltageRatingSetBy: 'utilisation' | 'transient'
   /** A, required part current rating after derating */
   requiredCurrentRating: number
   /** V, smallest standard voltage class (600…6500 V) at or above requiredVoltageRating; absent when none suffices (series devices) */

@@ -102,6 +102,7 @@ const fraction = (field: string, max: number) => quantity(`derating.${field}`, '
 
 export const deratingSchema = z.object({
   semiconductorVoltageUtilisation: fraction('semiconductorVoltageUtilisation', 1),
+  semiconductorTransientMargin: quantity('derating.semiconductorTransientMargin', 'fraction').min(0.5, { error: 'semiconductorTransientMargin must be at least 0.5 (the commutation peak may use 50 … 100 % of the rating)' }).max(1, { error: 'semiconductorTransientMargin must be at most 1 (the commutation peak may never exceed the rating)' }),
   semiconductorCurrentUtilisation: fraction('semiconductorCurrentUtilisation', 2),
   capacitorVoltageUtilisation: fraction('capacitorVoltageUtilisation', 1),
   capacitorRippleUtilisation: fraction('capacitorRippleUtilisation', 2),
