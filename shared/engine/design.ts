@@ -1,6 +1,7 @@
 // evaluateDesign: several operating points per converter → envelope per position → required ratings after derating.
 import { clampStack, defaultDerating, voltageRequirement } from './derating'
 import { EngineInputError } from './errors'
+import { INPUT_LIMITS, tooLarge, tooSmall } from './limits'
 import { evaluateStress } from './stress'
 import type {
   CapacitorEnvelope, ConverterInput, ConverterResult, DeratingPolicy, DesignInput, DesignResult, DeviceEnvelope, OperatingPoint, StressInput, StressResult,
@@ -13,7 +14,7 @@ export { defaultDerating } from './derating'
 export const STANDARD_VOLTAGE_CLASSES = [600, 650, 1200, 1700, 2500, 3300, 4500, 6500] as const
 
 const MAX_POINTS = 50
-const POINT_FIELDS = new Set(['name', 'lineVoltageRms', 'phaseCurrentRms', 'powerFactor', 'fundamentalHz'])
+const POINT_FIELDS = new Set(['name', 'lineVoltageRms', 'phaseCurrentRms', 'powerFactor', 'powerFactorSense', 'fundamentalHz'])
 
 function resolveDerating(given: Partial<DeratingPolicy> | undefined): DeratingPolicy {
   if (given !== undefined && (typeof given !== 'object' || given === null)) throw new EngineInputError('derating', 'derating must be an object')
@@ -69,6 +70,7 @@ function pointInputs(conv: ConverterInput, path: string, rippleTarget: number | 
       lineVoltageRms: op.lineVoltageRms,
       phaseCurrentRms: op.phaseCurrentRms,
       powerFactor: op.powerFactor,
+      ...(op.powerFactorSense !== undefined ? { powerFactorSense: op.powerFactorSense } : {}),
       fundamentalHz: op.fundamentalHz,
       ...(rippleTarget !== undefined ? { capacitorRippleTarget: rippleTarget } : {}),
     }
@@ -180,6 +182,8 @@ function designPreamble(input: DesignInput): { derating: DeratingPolicy, rippleT
   if (rippleTarget !== undefined && (typeof rippleTarget !== 'number' || !Number.isFinite(rippleTarget) || rippleTarget <= 0)) {
     throw new EngineInputError('capacitorRippleTarget', 'capacitorRippleTarget must be a number above 0 (V peak-to-peak)')
   }
+  if (rippleTarget !== undefined && rippleTarget < INPUT_LIMITS.capacitorRippleTarget.min) throw new EngineInputError('capacitorRippleTarget', tooSmall('capacitorRippleTarget'))
+  if (rippleTarget !== undefined && rippleTarget > INPUT_LIMITS.capacitorRippleTarget.max) throw new EngineInputError('capacitorRippleTarget', tooLarge('capacitorRippleTarget'))
   if (typeof input.machineSide !== 'object' || input.machineSide === null) throw new EngineInputError('machineSide', 'machineSide is required')
   return { derating, rippleTarget, ...(input.gridSide !== undefined ? { grid: gridInput(input.machineSide, input.gridSide) } : {}) }
 }

@@ -93,7 +93,7 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
   const modulationIndex = amplitude * scales.indexPerAmplitude
   const reference = makeReference(p.modulation, amplitude)
 
-  const phi = Math.acos(p.powerFactor)
+  const phi = p.currentPhaseAngle
   const currentPeak = Math.SQRT2 * p.phaseCurrentRms
   const currents = integrateLeg(leg, reference, currentPeak, phi, points)
   const lineVoltageFundamentalRms = (Math.sqrt(3) * currents.referenceFundamental * scales.halfLink) / Math.SQRT2
@@ -151,6 +151,7 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
     capacitors: caps.capacitors,
     lineVoltageFundamentalRms,
     lineVoltageThd,
+    powerFactor: { value: p.powerFactor, sense: p.powerFactorSense, currentPhaseAngle: phi },
     thdMaxOrder,
     warnings,
     notes,

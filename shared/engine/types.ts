@@ -23,6 +23,9 @@ export interface Provenance {
   source: string
 }
 
+/** Lagging: the current follows the voltage (inductive load, motoring); leading: it runs ahead (capacitive operation). */
+export type PowerFactorSense = 'lagging' | 'leading'
+
 /** One operating point of the AC side. */
 export interface OperatingPoint {
   name?: string
@@ -32,6 +35,8 @@ export interface OperatingPoint {
   phaseCurrentRms: number
   /** −1…1; negative = regeneration (power from AC side into the DC link). */
   powerFactor: number
+  /** Whether the current lags (default) or leads the voltage: φ = ±acos(powerFactor). */
+  powerFactorSense?: PowerFactorSense
   /** Hz, output fundamental. */
   fundamentalHz: number
 }
@@ -133,6 +138,8 @@ export interface StressResult {
   lineVoltageFundamentalRms: number
   /** fraction (0.31 = 31 %) */
   lineVoltageThd: number
+  /** the power factor as evaluated: cos φ, lagging or leading, and φ (rad, current behind the voltage; negative = leading) */
+  powerFactor: { value: number, sense: PowerFactorSense, currentPhaseAngle: number }
   warnings: string[]
   /** Assumptions behind this result (switching pattern, THD order range), one sentence each. */
   notes?: string[]
