@@ -136,14 +136,16 @@ export interface StressResult {
   capacitors: CapacitorStress[]
   /** V, line-to-line fundamental RMS actually produced */
   lineVoltageFundamentalRms: number
-  /** fraction (0.31 = 31 %) */
+  /** fraction (0.31 = 31 %), full band: √(V_rms² − V_1²) / V_1 from the switched waveform's time-domain RMS */
   lineVoltageThd: number
+  /** fraction, the harmonic sum over orders 2…thdMaxOrder only (labelled with thdMaxOrder wherever shown) */
+  lineVoltageThdToOrder: number
   /** the power factor as evaluated: cos φ, lagging or leading, and φ (rad, current behind the voltage; negative = leading) */
   powerFactor: { value: number, sense: PowerFactorSense, currentPhaseAngle: number }
   warnings: string[]
   /** Assumptions behind this result (switching pattern, THD order range), one sentence each. */
   notes?: string[]
-  /** Highest harmonic order included in lineVoltageThd. */
+  /** Highest harmonic order included in lineVoltageThdToOrder. */
   thdMaxOrder?: number
   counts: { switchesPerPhase: number, diodesPerPhase: number, clampDiodesPerPhase: number, capacitors: number, switchesTotal: number, diodesTotal: number, clampDiodesTotal: number }
   /** Only when requested (includeWaveform): one fundamental period. */
