@@ -51,8 +51,6 @@ export function integrateLeg(
   const peak = new Float64Array(P)
   const shares = new Float64Array(L)
   const dTheta = (2 * Math.PI) / points
-  // The peak current a position sees: the current's peak when sampled within half a step of it.
-  const peakSnap = currentPeak * Math.cos(dTheta)
   let fundamental = 0
 
   for (let k = 0; k < points; k++) {
@@ -74,7 +72,6 @@ export function integrateLeg(
         const d = share * row.weight[q]!
         sumAbs[p]! += d * ai
         sumSq[p]! += d * i2
-        if (d > 1e-12 && ai > peak[p]!) peak[p] = ai
       }
     }
   }
@@ -84,7 +81,89 @@ export function integrateLeg(
   for (let p = 0; p < P; p++) {
     avg[p] = sumAbs[p]! / points
     rms[p] = Math.sqrt(sumSq[p]! / points)
-    if (peak[p]! >= peakSnap) peak[p] = currentPeak
   }
+  positionPeaks(leg, reference, currentPeak, phi, points, peak)
   return { avg, rms, peak, referenceFundamental: (2 * fundamental) / points }
+}
+
+const TWO_PI = 2 * Math.PI
+const EDGE_ITERATIONS = 52
+const GOLDEN = (Math.sqrt(5) - 1) / 2
+
+/** Conduction share of one position at θ (0 where it does not carry the current). */
+function shareAt(leg: CompiledLeg, reference: (theta: number) => number, phi: number, theta: number, position: number, shares: Float64Array): number {
+  const m = reference(theta)
+  const sign = Math.sin(theta - phi) >= 0 ? 0 : 1
+  const table = leg.weights[levelShares(leg, m, shares)]!
+  let d = 0
+  for (let l = 0; l < shares.length; l++) {
+    const share = shares[l]!
+    if (share <= 0) continue
+    const row = table[l]![sign]!
+    for (let q = 0; q < row.index.length; q++) if (row.index[q] === position) d += share * row.weight[q]!
+  }
+  return d
+}
+
+/**
+ * Peak current per position, exact: |i| is largest inside a conduction interval either at the current's own
+ * peak or at an edge of the interval, where the position's share or the current's sign changes. The edges
+ * are bracketed on the grid (plus the current's peaks and zeros and the reference's extrema, so a short
+ * interval between two grid points is not missed) and bisected to machine precision; of each final bracket
+ * the larger |i| is kept, so the peak is never below the true supremum.
+ */
+function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, currentPeak: number, phi: number, points: number, peak: Float64Array): void {
+  const P = leg.positions.length
+  const shares = new Float64Array(leg.def.modelLevels)
+  const dTheta = TWO_PI / points
+  const wrap = (t: number) => ((t % TWO_PI) + TWO_PI) % TWO_PI
+  const angles: number[] = []
+  for (let k = 0; k < points; k++) angles.push((k + 0.5) * dTheta)
+  for (const t of [phi, phi + Math.PI / 2, phi + Math.PI, phi + (3 * Math.PI) / 2]) angles.push(wrap(t), wrap(t - 1e-12), wrap(t + 1e-12))
+  // Extrema of the reference between grid points: a level band it only grazes is entered there.
+  const m = angles.slice(0, points).map(reference)
+  for (let k = 0; k < points; k++) {
+    const prev = m[(k + points - 1) % points]!
+    const here = m[k]!
+    const next = m[(k + 1) % points]!
+    const isMax = here > prev && here >= next
+    const isMin = here < prev && here <= next
+    if (!isMax && !isMin) continue
+    let a = angles[k]! - dTheta
+    let b = angles[k]! + dTheta
+    const f = (t: number) => (isMax ? -reference(t) : reference(t))
+    for (let it = 0; it < 40; it++) {
+      const c = b - GOLDEN * (b - a)
+      const d = a + GOLDEN * (b - a)
+      if (f(c) < f(d)) b = d
+      else a = c
+    }
+    angles.push(wrap((a + b) / 2))
+  }
+  angles.sort((x, y) => x - y)
+  const n = angles.length
+  const conducts = new Uint8Array(n * P)
+  for (let k = 0; k < n; k++) {
+    for (let p = 0; p < P; p++) conducts[k * P + p] = shareAt(leg, reference, phi, angles[k]!, p, shares) > 0 ? 1 : 0
+  }
+  const absI = (t: number) => Math.abs(currentPeak * Math.sin(t - phi))
+  for (let p = 0; p < P; p++) {
+    let best = 0
+    for (let k = 0; k < n; k++) {
+      const here = conducts[k * P + p]!
+      if (here) best = Math.max(best, absI(angles[k]!))
+      const k2 = (k + 1) % n
+      if (conducts[k2 * P + p]! === here) continue
+      // An edge between angles k and k2: bisect on the conduction flag.
+      let a = angles[k]!
+      let b = k2 === 0 ? angles[0]! + TWO_PI : angles[k2]!
+      for (let it = 0; it < EDGE_ITERATIONS && b - a > 1e-15; it++) {
+        const c = (a + b) / 2
+        if ((shareAt(leg, reference, phi, c, p, shares) > 0 ? 1 : 0) === here) a = c
+        else b = c
+      }
+      best = Math.max(best, absI(a), absI(b))
+    }
+    peak[p] = Math.min(best, currentPeak)
+  }
 }
