@@ -109,7 +109,7 @@ function shareAt(leg: CompiledLeg, reference: (theta: number) => number, phi: nu
  * Peak current per position, exact: |i| is largest inside a conduction interval either at the current's own
  * peak or at an edge of the interval, where the position's share or the current's sign changes. The edges
  * are bracketed on the grid (plus the current's peaks and zeros and the reference's extrema, so a short
- * interval between two grid points is not missed) and bisected to machine precision; of each final bracket
+ * interval between two grid points is not missed) and bisected to 10⁻¹² rad; of each final bracket
  * the larger |i| is kept, so the peak is never below the true supremum.
  */
 function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, currentPeak: number, phi: number, points: number, peak: Float64Array): void {
@@ -140,24 +140,33 @@ function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, c
     }
     angles.push(wrap((a + b) / 2))
   }
-  angles.sort((x, y) => x - y)
-  const n = angles.length
+  const sorted = Float64Array.from(angles).sort()
+  const n = sorted.length
+  // Conduction flags of every position at every angle, one pass over the state table per angle.
   const conducts = new Uint8Array(n * P)
   for (let k = 0; k < n; k++) {
-    for (let p = 0; p < P; p++) conducts[k * P + p] = shareAt(leg, reference, phi, angles[k]!, p, shares) > 0 ? 1 : 0
+    const theta = sorted[k]!
+    const sign = Math.sin(theta - phi) >= 0 ? 0 : 1
+    const table = leg.weights[levelShares(leg, reference(theta), shares)]!
+    for (let l = 0; l < shares.length; l++) {
+      if (shares[l]! <= 0) continue
+      const row = table[l]![sign]!
+      for (let q = 0; q < row.index.length; q++) if (row.weight[q]! > 0) conducts[k * P + row.index[q]!] = 1
+    }
   }
   const absI = (t: number) => Math.abs(currentPeak * Math.sin(t - phi))
+  const absAt = sorted.map(absI)
   for (let p = 0; p < P; p++) {
     let best = 0
     for (let k = 0; k < n; k++) {
       const here = conducts[k * P + p]!
-      if (here) best = Math.max(best, absI(angles[k]!))
+      if (here && absAt[k]! > best) best = absAt[k]!
       const k2 = (k + 1) % n
       if (conducts[k2 * P + p]! === here) continue
       // An edge between angles k and k2: bisect on the conduction flag.
-      let a = angles[k]!
-      let b = k2 === 0 ? angles[0]! + TWO_PI : angles[k2]!
-      for (let it = 0; it < EDGE_ITERATIONS && b - a > 1e-15; it++) {
+      let a = sorted[k]!
+      let b = k2 === 0 ? sorted[0]! + TWO_PI : sorted[k2]!
+      for (let it = 0; it < EDGE_ITERATIONS && b - a > 1e-12; it++) {
         const c = (a + b) / 2
         if ((shareAt(leg, reference, phi, c, p, shares) > 0 ? 1 : 0) === here) a = c
         else b = c

@@ -164,11 +164,32 @@ function carrierGrid(tau: number, S: number, dp: number, maxVertices: number, ca
 
 /** Events of a piecewise-constant signal inside one sample interval: +w at a positive stretch's start, −w at its end. */
 class Events {
-  z: number[] = []
-  w: number[] = []
-  clear(): void {
-    this.z.length = 0
-    this.w.length = 0
+  z: Float64Array
+  w: Float64Array
+  n = 0
+  constructor(capacity: number) {
+    this.z = new Float64Array(capacity)
+    this.w = new Float64Array(capacity)
+  }
+
+  push(z: number, w: number): void {
+    if (this.n === this.z.length) {
+      const z2 = new Float64Array(2 * this.n)
+      const w2 = new Float64Array(2 * this.n)
+      z2.set(this.z)
+      w2.set(this.w)
+      this.z = z2
+      this.w = w2
+    }
+    // Insertion keeps the events sorted by z (a handful per interval).
+    let k = this.n++
+    while (k > 0 && this.z[k - 1]! > z) {
+      this.z[k] = this.z[k - 1]!
+      this.w[k] = this.w[k - 1]!
+      k--
+    }
+    this.z[k] = z
+    this.w[k] = w
   }
 
   /** the stretch of [zA, zB] where the linear u runs from uA to uB above 0 */
@@ -177,23 +198,22 @@ class Events {
     const start = uA > 0 ? zA : zA + ((zB - zA) * -uA) / (uB - uA)
     const end = uB > 0 ? zB : zA + ((zB - zA) * uA) / (uA - uB)
     if (end <= start) return
-    this.z.push(start, end)
-    this.w.push(weight, -weight)
+    this.push(start, weight)
+    this.push(end, -weight)
   }
 
-  /** (1/Δz)∫ v² dz over the interval, v the sum of the stretches */
-  meanSquare(): number {
-    const n = this.z.length
-    const order = Array.from({ length: n }, (_, k) => k).sort((p, q) => this.z[p]! - this.z[q]!)
+  /** (1/Δz)∫ v² dz over the interval, v the sum of the stretches; empties the list */
+  takeMeanSquare(): number {
     let v = 0
     let sum = 0
     let zPrev = 0
-    for (const k of order) {
+    for (let k = 0; k < this.n; k++) {
       const z = this.z[k]!
       sum += v * v * (z - zPrev)
       v += this.w[k]!
       zPrev = z
     }
+    this.n = 0
     return sum + v * v * (1 - zPrev)
   }
 }
@@ -205,26 +225,25 @@ class Events {
  */
 export function lineMeanSquare(input: SynthesisInput): number {
   const S = input.samples
-  const events = new Events()
+  const events = new Events(64)
   let total = 0
   if (input.sixStep) {
     // Pole high while sin(θ − shift) ≥ 0: t ∈ [s, s + ½) in fundamental periods; u_ab = V·(high_a − high_b).
     const starts = [0, 1 / 3].map(s => [s - 1, s, s + 1])
     for (let j = 0; j < S; j++) {
-      events.clear()
       const t0 = j / S
       starts.forEach((list, phase) => {
         for (const start of list) {
           const a = Math.max(t0, start)
           const b = Math.min(t0 + 1 / S, start + 0.5)
           if (b > a) {
-            events.z.push((a - t0) * S, (b - t0) * S)
             const w = phase === 0 ? input.stepVoltage : -input.stepVoltage
-            events.w.push(w, -w)
+            events.push((a - t0) * S, w)
+            events.push((b - t0) * S, -w)
           }
         }
       })
-      total += events.meanSquare()
+      total += events.takeMeanSquare()
     }
     return total / S
   }
@@ -243,13 +262,15 @@ export function lineMeanSquare(input: SynthesisInput): number {
     carrierGrid(tau, S, dp, maxVertices, g.carrier, g.first, g.vertexZ, g.vertexC)
     return g
   })
+  const phases = [ma, mb]
   for (let j = 0; j < S; j++) {
-    events.clear()
     for (const g of grids) {
       const from = g.first[j]!
       const to = g.first[j + 1]!
       for (const c of g.comparisons) {
-        for (const [m, sign] of [[ma, 1], [mb, -1]] as const) {
+        for (let ph = 0; ph < 2; ph++) {
+          const m = phases[ph]!
+          const sign = ph === 0 ? 1 : -1
           const m0 = m[j]!
           const dm = m[j + 1]! - m0
           let zPrev = 0
@@ -265,7 +286,7 @@ export function lineMeanSquare(input: SynthesisInput): number {
         }
       }
     }
-    total += events.meanSquare()
+    total += events.takeMeanSquare()
   }
   return total / S
 }
