@@ -5,6 +5,7 @@ import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { EngineInputError, evaluateDesign, evaluateStress, INPUT_LIMITS, MAX_APPARENT_POWER, topologies, type DesignInput, type LimitedField, type StressInput } from '../../../shared/engine'
 import { designInputSchema, stressInputSchema } from '../../../shared/schemas/stress'
+import { tradeStudySchema } from '../../../shared/schemas/trade-study'
 import { inputAt } from './helpers'
 
 function refusal(input: StressInput): EngineInputError {
@@ -87,6 +88,11 @@ describe('each bound has its message (limits.ts; common practice)', () => {
     const r = designInputSchema.safeParse(design)
     expect(r.success).toBe(false)
     expect(r.error!.issues.map(i => `${i.path.join('.')}: ${i.message}`)).toContain('machineSide.switchingHz: switchingHz must be at least 3 × fundamentalHz for PWM (below that a carrier period is too long to average over)')
+  })
+
+  it('the trade study form takes the same bounds', () => {
+    const r = tradeStudySchema.safeParse({ dcVoltage: 200_000, switchingHz: 4000, operatingPoints: [{ name: 'P', lineVoltageRms: 400, phaseCurrentRms: 100, powerFactor: 0.9, fundamentalHz: 50 }] })
+    expect(r.error?.issues.map(i => `${i.path.join('.')}: ${i.message}`)).toEqual([`dcVoltage: dcVoltage must be at most 100 kV (${INPUT_LIMITS.dcVoltage.unit})`])
   })
 
   it('a design ripple target out of range is refused at capacitorRippleTarget', () => {
