@@ -52,10 +52,14 @@ export function integrateLeg(
   const shares = new Float64Array(L)
   const dTheta = (2 * Math.PI) / points
   let fundamental = 0
+  // Kept for the peak search: the reference and which positions conduct at each grid point.
+  const gridM = new Float64Array(points)
+  const gridConducts = new Uint8Array(points * P)
 
   for (let k = 0; k < points; k++) {
     const theta = (k + 0.5) * dTheta
     const m = reference(theta)
+    gridM[k] = m
     fundamental += m * Math.sin(theta)
     const i = currentPeak * Math.sin(theta - phi)
     const sign = i >= 0 ? 0 : 1
@@ -72,6 +76,7 @@ export function integrateLeg(
         const d = share * row.weight[q]!
         sumAbs[p]! += d * ai
         sumSq[p]! += d * i2
+        gridConducts[k * P + p] = 1
       }
     }
   }
@@ -82,7 +87,7 @@ export function integrateLeg(
     avg[p] = sumAbs[p]! / points
     rms[p] = Math.sqrt(sumSq[p]! / points)
   }
-  positionPeaks(leg, reference, currentPeak, phi, points, peak)
+  positionPeaks(leg, reference, currentPeak, phi, gridM, gridConducts, peak)
   return { avg, rms, peak, referenceFundamental: (2 * fundamental) / points }
 }
 
@@ -112,25 +117,24 @@ function shareAt(leg: CompiledLeg, reference: (theta: number) => number, phi: nu
  * interval between two grid points is not missed) and bisected to 10⁻¹² rad; of each final bracket
  * the larger |i| is kept, so the peak is never below the true supremum.
  */
-function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, currentPeak: number, phi: number, points: number, peak: Float64Array): void {
+function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, currentPeak: number, phi: number, gridM: Float64Array, gridConducts: Uint8Array, peak: Float64Array): void {
   const P = leg.positions.length
+  const points = gridM.length
   const shares = new Float64Array(leg.def.modelLevels)
   const dTheta = TWO_PI / points
   const wrap = (t: number) => ((t % TWO_PI) + TWO_PI) % TWO_PI
-  const angles: number[] = []
-  for (let k = 0; k < points; k++) angles.push((k + 0.5) * dTheta)
-  for (const t of [phi, phi + Math.PI / 2, phi + Math.PI, phi + (3 * Math.PI) / 2]) angles.push(wrap(t), wrap(t - 1e-12), wrap(t + 1e-12))
+  const extra: number[] = []
+  for (const t of [phi, phi + Math.PI / 2, phi + Math.PI, phi + (3 * Math.PI) / 2]) extra.push(wrap(t), wrap(t - 1e-12), wrap(t + 1e-12))
   // Extrema of the reference between grid points: a level band it only grazes is entered there.
-  const m = angles.slice(0, points).map(reference)
   for (let k = 0; k < points; k++) {
-    const prev = m[(k + points - 1) % points]!
-    const here = m[k]!
-    const next = m[(k + 1) % points]!
+    const prev = gridM[(k + points - 1) % points]!
+    const here = gridM[k]!
+    const next = gridM[(k + 1) % points]!
     const isMax = here > prev && here >= next
     const isMin = here < prev && here <= next
     if (!isMax && !isMin) continue
-    let a = angles[k]! - dTheta
-    let b = angles[k]! + dTheta
+    let a = (k + 0.5) * dTheta - dTheta
+    let b = (k + 0.5) * dTheta + dTheta
     const f = (t: number) => (isMax ? -reference(t) : reference(t))
     for (let it = 0; it < 40; it++) {
       const c = b - GOLDEN * (b - a)
@@ -138,31 +142,44 @@ function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, c
       if (f(c) < f(d)) b = d
       else a = c
     }
-    angles.push(wrap((a + b) / 2))
+    extra.push(wrap((a + b) / 2))
   }
-  const sorted = Float64Array.from(angles).sort()
-  const n = sorted.length
-  // Conduction flags of every position at every angle, one pass over the state table per angle.
+  extra.sort((x, y) => x - y)
+  // Grid points (flags from the integration) merged with the extra angles (flags computed here).
+  const n = points + extra.length
+  const sorted = new Float64Array(n)
   const conducts = new Uint8Array(n * P)
-  for (let k = 0; k < n; k++) {
-    const theta = sorted[k]!
-    const sign = Math.sin(theta - phi) >= 0 ? 0 : 1
-    const table = leg.weights[levelShares(leg, reference(theta), shares)]!
-    for (let l = 0; l < shares.length; l++) {
-      if (shares[l]! <= 0) continue
-      const row = table[l]![sign]!
-      for (let q = 0; q < row.index.length; q++) if (row.weight[q]! > 0) conducts[k * P + row.index[q]!] = 1
+  for (let k = 0, g = 0, e = 0; k < n; k++) {
+    const gridTheta = g < points ? (g + 0.5) * dTheta : Infinity
+    if (e < extra.length && extra[e]! < gridTheta) {
+      const theta = extra[e++]!
+      sorted[k] = theta
+      const sign = Math.sin(theta - phi) >= 0 ? 0 : 1
+      const table = leg.weights[levelShares(leg, reference(theta), shares)]!
+      for (let l = 0; l < shares.length; l++) {
+        if (shares[l]! <= 0) continue
+        const row = table[l]![sign]!
+        for (let q = 0; q < row.index.length; q++) if (row.weight[q]! > 0) conducts[k * P + row.index[q]!] = 1
+      }
+    }
+    else {
+      sorted[k] = gridTheta
+      for (let p = 0; p < P; p++) conducts[k * P + p] = gridConducts[g * P + p]!
+      g++
     }
   }
   const absI = (t: number) => Math.abs(currentPeak * Math.sin(t - phi))
   const absAt = sorted.map(absI)
   for (let p = 0; p < P; p++) {
     let best = 0
+    for (let k = 0; k < n; k++) if (conducts[k * P + p]! && absAt[k]! > best) best = absAt[k]!
     for (let k = 0; k < n; k++) {
       const here = conducts[k * P + p]!
-      if (here && absAt[k]! > best) best = absAt[k]!
       const k2 = (k + 1) % n
       if (conducts[k2 * P + p]! === here) continue
+      // |i| is monotone between neighbouring angles (its peaks are among them): an edge here cannot beat `best`
+      // unless the bracket's larger end does.
+      if (Math.max(absAt[k]!, absAt[k2]!) <= best) continue
       // An edge between angles k and k2: bisect on the conduction flag.
       let a = sorted[k]!
       let b = k2 === 0 ? sorted[0]! + TWO_PI : sorted[k2]!

@@ -167,6 +167,8 @@ class Events {
   z: Float64Array
   w: Float64Array
   n = 0
+  /** V, the stretches covering the whole interval (most of them: no event needed) */
+  base = 0
   constructor(capacity: number) {
     this.z = new Float64Array(capacity)
     this.w = new Float64Array(capacity)
@@ -198,13 +200,18 @@ class Events {
     const start = uA > 0 ? zA : zA + ((zB - zA) * -uA) / (uB - uA)
     const end = uB > 0 ? zB : zA + ((zB - zA) * uA) / (uA - uB)
     if (end <= start) return
+    if (start <= 0 && end >= 1) {
+      this.base += weight
+      return
+    }
     this.push(start, weight)
     this.push(end, -weight)
   }
 
   /** (1/Δz)∫ v² dz over the interval, v the sum of the stretches; empties the list */
   takeMeanSquare(): number {
-    let v = 0
+    let v = this.base
+    this.base = 0
     let sum = 0
     let zPrev = 0
     for (let k = 0; k < this.n; k++) {
