@@ -149,7 +149,8 @@ export function resolveStressInput(raw: StressInput): ResolvedInput {
   if (!sixStep) {
     if (switchingHz <= fundamentalHz) throw new EngineInputError('switchingHz', 'switchingHz must be above fundamentalHz for PWM (switching-period averaging needs f_sw ≫ f)')
     if (switchingHz / fundamentalHz > MAX_FREQUENCY_RATIO) throw new EngineInputError('switchingHz', `switchingHz / fundamentalHz must not exceed ${MAX_FREQUENCY_RATIO}`)
-    if (switchingHz / fundamentalHz < MIN_FREQUENCY_RATIO) throw new EngineInputError('switchingHz', `switchingHz must be at least ${MIN_FREQUENCY_RATIO} × fundamentalHz for PWM (below that a carrier period is too long to average over)`)
+    // A ratio of exactly 3 may divide to 2.9999999999999996: the bound is kept with a rounding allowance.
+    if (switchingHz / fundamentalHz < MIN_FREQUENCY_RATIO * (1 - 1e-12)) throw new EngineInputError('switchingHz', `switchingHz must be at least ${MIN_FREQUENCY_RATIO} × fundamentalHz for PWM (below that a carrier period is too long to average over)`)
     if (switchingHz / fundamentalHz < 10) warnings.push(`Switching frequency only ${(switchingHz / fundamentalHz).toFixed(1)} × the fundamental: switching-period-averaged currents are approximate below about 10 ×.`)
   }
 

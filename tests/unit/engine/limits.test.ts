@@ -95,6 +95,13 @@ describe('each bound has its message (limits.ts; common practice)', () => {
     expect(r.error?.issues.map(i => `${i.path.join('.')}: ${i.message}`)).toEqual([`dcVoltage: dcVoltage must be at most 100 kV (${INPUT_LIMITS.dcVoltage.unit})`])
   })
 
+  it('a carrier of exactly 3 × the fundamental is accepted, whatever the division rounds to', () => {
+    // (3·f)/f falls to 2.9999999999999996 for about one f in twelve (found by the property test below).
+    const fs = Array.from({ length: 200 }, (_, k) => 0.01 + k * 9.97)
+    expect(fs.some(f => (3 * f) / f < 3)).toBe(true)
+    for (const f of fs) expect(() => evaluateStress(inputAt('two-level', 0.8, 0.9, { fundamentalHz: f, switchingHz: 3 * f }))).not.toThrow()
+  })
+
   it('a design ripple target out of range is refused at capacitorRippleTarget', () => {
     const design: DesignInput = { machineSide: { topology: 'two-level', dcVoltage: 800, switchingHz: 4000, modulation: 'sine', operatingPoints: [{ lineVoltageRms: 400, phaseCurrentRms: 100, powerFactor: 0.9, fundamentalHz: 50 }] }, capacitorRippleTarget: 1e-6 }
     try { evaluateDesign(design); throw new Error('accepted') }
