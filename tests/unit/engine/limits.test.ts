@@ -97,7 +97,7 @@ describe('each bound has its message (limits.ts; common practice)', () => {
 
   it('a carrier of exactly 3 × the fundamental is accepted, whatever the division rounds to', () => {
     // (3·f)/f falls to 2.9999999999999996 for about one f in twelve (found by the property test below).
-    const fs = Array.from({ length: 200 }, (_, k) => 0.01 + k * 9.97)
+    const fs = Array.from({ length: 60 }, (_, k) => 0.01 + k * 33.3)
     expect(fs.some(f => (3 * f) / f < 3)).toBe(true)
     for (const f of fs) expect(() => evaluateStress(inputAt('two-level', 0.8, 0.9, { fundamentalHz: f, switchingHz: 3 * f }))).not.toThrow()
   })
