@@ -16,6 +16,8 @@ export interface ReportOperatingPoint {
   phaseCurrentRms: number
   /** −1…1, negative = regeneration */
   powerFactor: number
+  /** lagging (default) or leading */
+  powerFactorSense?: 'lagging' | 'leading'
   /** Hz */
   fundamentalHz: number
   modulationIndex?: number
@@ -137,7 +139,7 @@ function operatingPointsTable(report: DesignReport): Content {
   return table(['*', 60, 55, 40, 45, 40, 45],
     [h('Operating point', 'left'), h('V line RMS [V]'), h('I phase RMS [A]'), h('PF'), h('f [Hz]'), h('m'), h('THD [%]')],
     report.operatingPoints.map(p => [
-      { text: p.name }, n(p.lineVoltageRms, 0), n(p.phaseCurrentRms, 1), n(p.powerFactor, 2), n(p.fundamentalHz, 1),
+      { text: p.name }, n(p.lineVoltageRms, 0), n(p.phaseCurrentRms, 1), p.powerFactorSense === 'leading' ? { text: `${formatNumber(p.powerFactor, 2)} lead`, alignment: 'right' } : n(p.powerFactor, 2), n(p.fundamentalHz, 1),
       n(p.modulationIndex, 3), n(p.lineVoltageThd == null ? null : p.lineVoltageThd * 100, 1),
     ]))
 }
@@ -237,7 +239,7 @@ function spectrumSection(report: DesignReport): Content[] {
   const out: Content[] = []
   if (lines.length === 0 && report.lineVoltageThd == null) return out
   out.push(heading('Line-voltage spectrum'))
-  if (report.lineVoltageThd != null) out.push({ text: `Total harmonic distortion of the line voltage (THD): ${formatNumber(report.lineVoltageThd * 100, 1)} %`, margin: [0, 0, 0, 4] })
+  if (report.lineVoltageThd != null) out.push({ text: `Total harmonic distortion of the line voltage (THD, full band): ${formatNumber(report.lineVoltageThd * 100, 1)} %`, margin: [0, 0, 0, 4] })
   if (lines.length === 0) return out
   const fundamental = lines.find(l => l.order === 1)?.amplitude
   const shown = lines.length > MAX_SPECTRUM_ROWS

@@ -81,7 +81,7 @@ export function previewDesign(input: DesignInput): DesignPreview {
     const point = converter.operatingPoints[0]!
     const { operatingPoints: _, ...rest } = converter
     const r = withEngine(() => evaluateStress({ ...rest, ...point }, { includeWaveform: true, includeSpectrum: true }))
-    extras[side] = { pointName: point.name ?? 'Point 1', waveform: r.waveform, spectrum: r.spectrum, thd: r.lineVoltageThd }
+    extras[side] = { pointName: point.name ?? 'Point 1', waveform: r.waveform, spectrum: r.spectrum, thd: r.lineVoltageThd, thdToOrder: r.lineVoltageThdToOrder, thdMaxOrder: r.thdMaxOrder }
   }
   return { result, layouts, extras }
 }

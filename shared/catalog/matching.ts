@@ -661,7 +661,8 @@ export function positionDutyFromDevice(device: DeviceEnvelope, ctx: DutyContext)
   return {
     positionName: device.name,
     kind: device.kind,
-    requiredVoltageRating: device.requiredVoltageRating,
+    // The whole position's rating from the engine's derating rule (derating.ts): a clamp stack's units share it.
+    requiredVoltageRating: device.positionVoltageRating ?? device.requiredVoltageRating,
     requiredCurrentRating: device.requiredCurrentRating,
     currentAvg: device.currentAvg,
     currentRms: device.currentRms,

@@ -1,37 +1,27 @@
 // evaluateDesign: several operating points per converter → envelope per position → required ratings after derating.
+import { clampStack, defaultDerating, voltageRequirement } from './derating'
 import { EngineInputError } from './errors'
+import { INPUT_LIMITS, tooLarge, tooSmall } from './limits'
 import { evaluateStress } from './stress'
 import type {
   CapacitorEnvelope, ConverterInput, ConverterResult, DeratingPolicy, DesignInput, DesignResult, DeviceEnvelope, OperatingPoint, StressInput, StressResult,
 } from './types'
 import { resolveStressInput } from './validate'
 
-/**
- * Common practice (ENGINEERING.md "Derating"; no single source): DC link at ≤ 65 % of the
- * semiconductor rating, peak current at or below the nominal current, capacitors up to their rated
- * voltage (1.0 rather than 0.9, because the capacitor voltage is already taken at the worst-case DC
- * link) and ripple current at or below the rating; 25 °C junction margin, 80 °C heatsink.
- */
-export const defaultDerating: DeratingPolicy = {
-  semiconductorVoltageUtilisation: 0.65,
-  semiconductorCurrentUtilisation: 1.0,
-  capacitorVoltageUtilisation: 1.0,
-  capacitorRippleUtilisation: 1.0,
-  junctionMarginC: 25,
-  heatsinkTemperatureC: 80,
-}
+export { defaultDerating } from './derating'
 
 /** V, blocking-voltage classes of power semiconductors (common practice). */
 export const STANDARD_VOLTAGE_CLASSES = [600, 650, 1200, 1700, 2500, 3300, 4500, 6500] as const
 
 const MAX_POINTS = 50
-const POINT_FIELDS = new Set(['name', 'lineVoltageRms', 'phaseCurrentRms', 'powerFactor', 'fundamentalHz'])
+const POINT_FIELDS = new Set(['name', 'lineVoltageRms', 'phaseCurrentRms', 'powerFactor', 'powerFactorSense', 'fundamentalHz'])
 
 function resolveDerating(given: Partial<DeratingPolicy> | undefined): DeratingPolicy {
   if (given !== undefined && (typeof given !== 'object' || given === null)) throw new EngineInputError('derating', 'derating must be an object')
   const policy = { ...defaultDerating, ...(given ?? {}) }
   const ranges: Record<keyof DeratingPolicy, [number, number, string]> = {
     semiconductorVoltageUtilisation: [0, 1, 'fraction'],
+    semiconductorTransientMargin: [0.5, 1, 'fraction'],
     semiconductorCurrentUtilisation: [0, 2, 'fraction'],
     capacitorVoltageUtilisation: [0, 1, 'fraction'],
     capacitorRippleUtilisation: [0, 2, 'fraction'],
@@ -40,7 +30,7 @@ function resolveDerating(given: Partial<DeratingPolicy> | undefined): DeratingPo
   }
   for (const [key, [min, max, unit]] of Object.entries(ranges) as [keyof DeratingPolicy, [number, number, string]][]) {
     const v = policy[key]
-    const exclusiveMin = unit === 'fraction'
+    const exclusiveMin = unit === 'fraction' && min === 0
     if (typeof v !== 'number' || !Number.isFinite(v) || (exclusiveMin ? v <= min : v < min) || v > max) {
       throw new EngineInputError(`derating.${key}`, `derating.${key} must be ${exclusiveMin ? 'above' : 'at least'} ${min} and at most ${max} (${unit})`)
     }
@@ -52,6 +42,8 @@ function resolveDerating(given: Partial<DeratingPolicy> | undefined): DeratingPo
 export function voltageClassFor(required: number): number | undefined {
   return STANDARD_VOLTAGE_CLASSES.find(c => c >= required - 1e-9)
 }
+
+const fmt = (v: number) => Number(v.toPrecision(4)).toString()
 
 type PointResult = StressResult & { pointName: string }
 interface PointInput { pointName: string, at: string, input: StressInput }
@@ -78,6 +70,7 @@ function pointInputs(conv: ConverterInput, path: string, rippleTarget: number | 
       lineVoltageRms: op.lineVoltageRms,
       phaseCurrentRms: op.phaseCurrentRms,
       powerFactor: op.powerFactor,
+      ...(op.powerFactorSense !== undefined ? { powerFactorSense: op.powerFactorSense } : {}),
       fundamentalHz: op.fundamentalHz,
       ...(rippleTarget !== undefined ? { capacitorRippleTarget: rippleTarget } : {}),
     }
@@ -96,11 +89,11 @@ function atPoint<T>(p: PointInput, path: string, f: () => T): T {
   }
 }
 
-function evaluatePoints(conv: ConverterInput, path: string, rippleTarget: number | undefined): PointResult[] {
-  return pointInputs(conv, path, rippleTarget).map(p => ({ ...atPoint(p, path, () => evaluateStress(p.input)), pointName: p.pointName }))
+function evaluatePoints(conv: ConverterInput, path: string, rippleTarget: number | undefined, derating: DeratingPolicy): PointResult[] {
+  return pointInputs(conv, path, rippleTarget).map(p => ({ ...atPoint(p, path, () => evaluateStress(p.input, { derating })), pointName: p.pointName }))
 }
 
-function envelopeOf(points: PointResult[], derating: DeratingPolicy): ConverterResult['envelope'] {
+function envelopeOf(points: PointResult[], derating: DeratingPolicy, clampDiodeUnitVoltage: number | undefined): ConverterResult['envelope'] {
   const first = points[0]!
   const devices: DeviceEnvelope[] = first.devices.map((d0, k) => {
     const worst = { blockingVoltage: first.pointName, currentAvg: first.pointName, currentRms: first.pointName, currentPeak: first.pointName }
@@ -115,18 +108,29 @@ function envelopeOf(points: PointResult[], derating: DeratingPolicy): ConverterR
       if (d.commutatedVoltage !== undefined) env.commutatedVoltage = Math.max(env.commutatedVoltage ?? 0, d.commutatedVoltage)
       if (d.seriesCount !== undefined) env.seriesCount = Math.max(env.seriesCount ?? 1, d.seriesCount)
     }
-    // A clamp-diode stack is rated per unit diode: its share of the stack's voltage.
-    const perUnit = env.blockingVoltageWithOvershoot / (env.kind === 'clamp-diode' ? (env.seriesCount ?? 1) : 1)
-    const requiredVoltageRating = perUnit / derating.semiconductorVoltageUtilisation
+    // Steady and transient checks (derating.ts); a clamp-diode stack is rated per unit diode, its count from the same rule.
+    const need = voltageRequirement(env.blockingVoltage, env.blockingVoltageWithOvershoot, derating)
+    if (env.kind === 'clamp-diode' && clampDiodeUnitVoltage !== undefined) {
+      env.seriesCount = clampStack(env.blockingVoltage, env.blockingVoltageWithOvershoot, derating, env.blockingVoltage, clampDiodeUnitVoltage).seriesCount
+    }
+    const units = env.kind === 'clamp-diode' ? (env.seriesCount ?? 1) : 1
+    const requiredVoltageRating = need.rating / units
     const voltageClass = voltageClassFor(requiredVoltageRating)
+    const u = derating.semiconductorVoltageUtilisation
+    const margin = derating.semiconductorTransientMargin
+    const check = need.decidedBy === 'utilisation'
+      ? `the utilisation check decides: steady blocking ${fmt(env.blockingVoltage)} V / ${u} ≥ (blocking + overshoot) ${fmt(env.blockingVoltageWithOvershoot)} V / ${margin}`
+      : `the transient check decides: (blocking + overshoot) ${fmt(env.blockingVoltageWithOvershoot)} V / ${margin} > steady blocking ${fmt(env.blockingVoltage)} V / ${u}`
     return {
       ...env,
       worstPoint: worst,
       requiredVoltageRating,
+      positionVoltageRating: need.rating,
+      voltageRatingSetBy: need.decidedBy,
       requiredCurrentRating: env.currentPeak / derating.semiconductorCurrentUtilisation,
       ...(voltageClass !== undefined ? { voltageClass } : {}),
       provenance: {
-        method: `Maximum over ${points.length} operating point(s); required voltage = blocking with overshoot${env.kind === 'clamp-diode' ? ' per unit diode' : ''} / ${derating.semiconductorVoltageUtilisation}, required current = peak / ${derating.semiconductorCurrentUtilisation}. Per point: ${d0.provenance.method}`,
+        method: `Maximum over ${points.length} operating point(s); required voltage = max(steady blocking / u, (blocking + overshoot) / transient margin)${units > 1 ? `, shared by ${units} unit diodes in series` : env.kind === 'clamp-diode' ? ' per unit diode' : ''}; ${check}; required current = peak / ${derating.semiconductorCurrentUtilisation}. Per point: ${d0.provenance.method}`,
         source: `${d0.provenance.source}; derating: common practice`,
       },
     }
@@ -153,9 +157,9 @@ function envelopeOf(points: PointResult[], derating: DeratingPolicy): ConverterR
 }
 
 function converterResult(side: 'machine' | 'grid', conv: ConverterInput, path: string, derating: DeratingPolicy, rippleTarget: number | undefined): ConverterResult {
-  const points = evaluatePoints(conv, path, rippleTarget)
+  const points = evaluatePoints(conv, path, rippleTarget, derating)
   const warnings = Array.from(new Set(points.flatMap(p => p.warnings.map(w => `${p.pointName}: ${w}`))))
-  return { side, points, envelope: envelopeOf(points, derating), warnings }
+  return { side, points, envelope: envelopeOf(points, derating, conv.clampDiodeUnitVoltage), warnings }
 }
 
 /** The grid side shares the DC link: same topology and DC link, levels taken from the machine side when absent. */
@@ -178,6 +182,8 @@ function designPreamble(input: DesignInput): { derating: DeratingPolicy, rippleT
   if (rippleTarget !== undefined && (typeof rippleTarget !== 'number' || !Number.isFinite(rippleTarget) || rippleTarget <= 0)) {
     throw new EngineInputError('capacitorRippleTarget', 'capacitorRippleTarget must be a number above 0 (V peak-to-peak)')
   }
+  if (rippleTarget !== undefined && rippleTarget < INPUT_LIMITS.capacitorRippleTarget.min) throw new EngineInputError('capacitorRippleTarget', tooSmall('capacitorRippleTarget'))
+  if (rippleTarget !== undefined && rippleTarget > INPUT_LIMITS.capacitorRippleTarget.max) throw new EngineInputError('capacitorRippleTarget', tooLarge('capacitorRippleTarget'))
   if (typeof input.machineSide !== 'object' || input.machineSide === null) throw new EngineInputError('machineSide', 'machineSide is required')
   return { derating, rippleTarget, ...(input.gridSide !== undefined ? { grid: gridInput(input.machineSide, input.gridSide) } : {}) }
 }

@@ -1,11 +1,12 @@
 // evaluateStress: one operating point of one converter → stresses of every device and capacitor position.
 import { capacitorStresses } from './capacitors'
+import { clampStack, defaultDerating } from './derating'
 import { EngineInputError } from './errors'
 import { DEFAULT_INTEGRATION_POINTS, integrateLeg } from './integrate'
 import { linearLimit, makeReference, SIX_STEP_INDEX } from './modulation'
-import { harmonicAmplitudes, synthesise, totalHarmonicDistortion } from './synth'
+import { harmonicAmplitudes, lineMeanSquare, synthesise, totalHarmonicDistortion } from './synth'
 import type { CompiledLeg } from './model'
-import type { DeviceStress, SpectrumLine, StressInput, StressResult } from './types'
+import type { DeratingPolicy, DeviceStress, SpectrumLine, StressInput, StressResult } from './types'
 import { resolveStressInput, type ResolvedInput } from './validate'
 
 export interface EvaluateOptions {
@@ -17,6 +18,8 @@ export interface EvaluateOptions {
   samples?: number
   /** integration points per fundamental period for the averaged currents (default 2048) */
   integrationPoints?: number
+  /** voltage derating that sizes clamp-diode stacks (default: the common-practice policy) */
+  derating?: Pick<DeratingPolicy, 'semiconductorVoltageUtilisation' | 'semiconductorTransientMargin'>
 }
 
 const MIN_SAMPLES = 256
@@ -90,7 +93,7 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
   const modulationIndex = amplitude * scales.indexPerAmplitude
   const reference = makeReference(p.modulation, amplitude)
 
-  const phi = Math.acos(p.powerFactor)
+  const phi = p.currentPhaseAngle
   const currentPeak = Math.SQRT2 * p.phaseCurrentRms
   const currents = integrateLeg(leg, reference, currentPeak, phi, points)
   const lineVoltageFundamentalRms = (Math.sqrt(3) * currents.referenceFundamental * scales.halfLink) / Math.SQRT2
@@ -105,7 +108,7 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
     }
   }
 
-  const devices = deviceStresses(p, leg, currents, scales, points)
+  const devices = deviceStresses(p, leg, currents, scales, points, options.derating ?? defaultDerating, warnings)
   const caps = capacitorStresses({
     leg,
     reference,
@@ -128,15 +131,21 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
     : nextPowerOfTwo(Math.max(4 * maxOrderWanted, 4096))
   samples = Math.min(MAX_SAMPLES, Math.max(MIN_SAMPLES, samples))
   const thdMaxOrder = Math.min(maxOrderWanted, samples / 4)
-  const synthesis = synthesise({ leg, reference, sixStep, frequencyRatio: mf, stepVoltage: scales.stepVoltage, samples })
+  const synthesisInput = { leg, reference, sixStep, frequencyRatio: mf, stepVoltage: scales.stepVoltage, samples }
+  const synthesis = synthesise(synthesisInput)
   const amplitudes = harmonicAmplitudes(synthesis.line, thdMaxOrder)
-  let lineVoltageThd = totalHarmonicDistortion(amplitudes)
+  let lineVoltageThdToOrder = totalHarmonicDistortion(amplitudes)
+  // Full band: the switched waveform's own RMS, so no switching harmonic beyond the summed orders is lost.
+  const lineRms = Math.sqrt(lineMeanSquare(synthesisInput))
+  const fundamentalRms = amplitudes[1]! / Math.SQRT2
+  let lineVoltageThd = fundamentalRms > 0 ? Math.sqrt(Math.max(0, lineRms ** 2 - amplitudes[0]! ** 2 - fundamentalRms ** 2)) / fundamentalRms : 0
   if (amplitudes[1]! <= 1e-9 * Math.max(scales.halfLink, 1e-9)) {
     lineVoltageThd = 0
+    lineVoltageThdToOrder = 0
     warnings.push('No fundamental output voltage: THD is not defined and reported as 0.')
   }
-  notes.push(`Line-voltage THD over harmonic orders 2…${thdMaxOrder} from ${samples} samples per period (f_sw/f = ${fmt(mf, 4)}${sixStep ? ', six-step' : ''}).`)
-  if (!sixStep && thdMaxOrder < 1.2 * scales.effectiveRatio) notes.push(`The first switching harmonics (order ≈ ${Math.round(scales.effectiveRatio)}) lie beyond order ${thdMaxOrder}; THD covers the low-order distortion only.`)
+  notes.push(`Line-voltage THD full band from the time-domain RMS of the switched waveform, √(V_rms² − V_1²) / V_1; beside it the sum over harmonic orders 2…${thdMaxOrder} from ${samples} samples per period (f_sw/f = ${fmt(mf, 4)}${sixStep ? ', six-step' : ''}).`)
+  if (!sixStep && thdMaxOrder < 1.2 * scales.effectiveRatio) notes.push(`The first switching harmonics (order ≈ ${Math.round(scales.effectiveRatio)}) lie beyond order ${thdMaxOrder}; the order-limited THD covers the low-order distortion only, the full-band figure includes them.`)
   if (topology.patternNote) notes.push(topology.patternNote)
   if (topology.supply === 'ac-input') notes.push('No DC link: input filter capacitors are not sized by the engine; the spectrum ignores input-frequency components.')
 
@@ -148,6 +157,8 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
     capacitors: caps.capacitors,
     lineVoltageFundamentalRms,
     lineVoltageThd,
+    lineVoltageThdToOrder,
+    powerFactor: { value: p.powerFactor, sense: p.powerFactorSense, currentPhaseAngle: phi },
     thdMaxOrder,
     warnings,
     notes,
@@ -174,10 +185,9 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
   return result
 }
 
-function deviceStresses(p: ResolvedInput, leg: CompiledLeg, currents: ReturnType<typeof integrateLeg>, scales: Scales, points: number): DeviceStress[] {
+function deviceStresses(p: ResolvedInput, leg: CompiledLeg, currents: ReturnType<typeof integrateLeg>, scales: Scales, points: number, derating: NonNullable<EvaluateOptions['derating']>, warnings: string[]): DeviceStress[] {
   const t = p.topology
   const commutationUnits = leg.def.commutationUnits ?? 1
-  const clampUnit = p.clampDiodeUnitVoltage ?? scales.unitMax
   const scheme = {
     'phase-disposition': 'phase-disposition carriers',
     'phase-shifted': 'phase-shifted carriers, redundant states used evenly',
@@ -204,7 +214,12 @@ function deviceStresses(p: ResolvedInput, leg: CompiledLeg, currents: ReturnType
         source: `${t.currentSource}; structure and blocking: ${t.structureSource}`,
       },
     }
-    if (pos.kind === 'clamp-diode') device.seriesCount = Math.max(1, Math.ceil(blockingVoltage / clampUnit - 1e-9))
+    if (pos.kind === 'clamp-diode') {
+      // Count and unit rating from the derating rule, so the stack passes its own rating check.
+      const stack = clampStack(blockingVoltage, blockingVoltage + overshoot, derating, scales.unitMax, p.clampDiodeUnitVoltage)
+      device.seriesCount = stack.seriesCount
+      if (stack.warning) warnings.push(`${pos.name}: ${stack.warning}`)
+    }
     return device
   })
 }

@@ -23,6 +23,9 @@ export interface Provenance {
   source: string
 }
 
+/** Lagging: the current follows the voltage (inductive load, motoring); leading: it runs ahead (capacitive operation). */
+export type PowerFactorSense = 'lagging' | 'leading'
+
 /** One operating point of the AC side. */
 export interface OperatingPoint {
   name?: string
@@ -32,6 +35,8 @@ export interface OperatingPoint {
   phaseCurrentRms: number
   /** −1…1; negative = regeneration (power from AC side into the DC link). */
   powerFactor: number
+  /** Whether the current lags (default) or leads the voltage: φ = ±acos(powerFactor). */
+  powerFactorSense?: PowerFactorSense
   /** Hz, output fundamental. */
   fundamentalHz: number
 }
@@ -131,12 +136,16 @@ export interface StressResult {
   capacitors: CapacitorStress[]
   /** V, line-to-line fundamental RMS actually produced */
   lineVoltageFundamentalRms: number
-  /** fraction (0.31 = 31 %) */
+  /** fraction (0.31 = 31 %), full band: √(V_rms² − V_1²) / V_1 from the switched waveform's time-domain RMS */
   lineVoltageThd: number
+  /** fraction, the harmonic sum over orders 2…thdMaxOrder only (labelled with thdMaxOrder wherever shown) */
+  lineVoltageThdToOrder: number
+  /** the power factor as evaluated: cos φ, lagging or leading, and φ (rad, current behind the voltage; negative = leading) */
+  powerFactor: { value: number, sense: PowerFactorSense, currentPhaseAngle: number }
   warnings: string[]
   /** Assumptions behind this result (switching pattern, THD order range), one sentence each. */
   notes?: string[]
-  /** Highest harmonic order included in lineVoltageThd. */
+  /** Highest harmonic order included in lineVoltageThdToOrder. */
   thdMaxOrder?: number
   counts: { switchesPerPhase: number, diodesPerPhase: number, clampDiodesPerPhase: number, capacitors: number, switchesTotal: number, diodesTotal: number, clampDiodesTotal: number }
   /** Only when requested (includeWaveform): one fundamental period. */
@@ -148,6 +157,8 @@ export interface StressResult {
 export interface DeratingPolicy {
   /** Max DC-link-to-rated-voltage utilisation of semiconductors (0.65 → a 1200 V part at ≤ 780 V blocking). */
   semiconductorVoltageUtilisation: number
+  /** Max (steady blocking + commutation overshoot)-to-rated-voltage ratio (1 → the transient peak may reach the rating). */
+  semiconductorTransientMargin: number
   /** Max peak-current-to-rated-current ratio (1 = peak at or below the nominal rating). */
   semiconductorCurrentUtilisation: number
   /** Max capacitor voltage-to-rating ratio. */
@@ -188,8 +199,12 @@ export interface DesignInput {
 export interface DeviceEnvelope extends DeviceStress {
   /** name of the operating point that set each worst value */
   worstPoint: { blockingVoltage: string, currentAvg: string, currentRms: string, currentPeak: string }
-  /** V, required part voltage class after derating */
+  /** V, required part voltage rating after derating: max(V/u, (V+ΔV)/margin); clamp-diode stacks: per unit diode */
   requiredVoltageRating: number
+  /** V, the same requirement for the whole position (a clamp-diode stack: all its units together) */
+  positionVoltageRating: number
+  /** which derating check set the voltage requirement: utilisation (steady V/u) or transient ((V+ΔV)/margin) */
+  voltageRatingSetBy: 'utilisation' | 'transient'
   /** A, required part current rating after derating */
   requiredCurrentRating: number
   /** V, smallest standard voltage class (600…6500 V) at or above requiredVoltageRating; absent when none suffices (series devices) */

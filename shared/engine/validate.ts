@@ -1,8 +1,9 @@
 // Input checks and normalisation for one evaluation; every refusal names its field.
 import { EngineInputError } from './errors'
+import { INPUT_LIMITS, MAX_APPARENT_POWER, MIN_FREQUENCY_RATIO, tooLarge, tooSmall, type LimitedField } from './limits'
 import { compileLeg, type CompiledLeg, type TopologyDefinition } from './model'
 import { topologyById } from './topologies'
-import type { Modulation, StressInput } from './types'
+import type { Modulation, PowerFactorSense, StressInput } from './types'
 
 const MODULATIONS: Modulation[] = ['sine', 'third-harmonic', 'space-vector', 'six-step']
 /** f_sw/f above this is outside the engine's synthesis range. */
@@ -24,6 +25,10 @@ export interface ResolvedInput {
   lineVoltageRms: number
   phaseCurrentRms: number
   powerFactor: number
+  /** lagging (inductive, current behind the voltage) or leading (capacitive) */
+  powerFactorSense: PowerFactorSense
+  /** rad, φ in i = Î·sin(θ − φ): acos(pf) lagging, −acos(pf) leading */
+  currentPhaseAngle: number
   fundamentalHz: number
   switchingHz: number
   /** V, overshoot added to commutating devices */
@@ -49,6 +54,16 @@ export function legFor(topology: TopologyDefinition, levels: number): CompiledLe
 }
 
 type NumberRule = { required?: boolean, min?: number, max?: number, positive?: boolean, unit: string }
+
+/** A field of the limits table: its unit and physical bounds (limits.ts), refused in words. */
+function limited(input: Record<string, unknown>, field: LimitedField, rule: { required?: boolean, positive?: boolean, unit?: string }): number | undefined {
+  const v = num(input, field, { ...rule, unit: rule.unit ?? INPUT_LIMITS[field].unit, ...(rule.positive ? {} : { min: 0 }) })
+  if (v === undefined) return undefined
+  const l = INPUT_LIMITS[field]
+  if (v < l.min) throw new EngineInputError(field, tooSmall(field))
+  if (v > l.max) throw new EngineInputError(field, tooLarge(field))
+  return v
+}
 
 function num(input: Record<string, unknown>, field: string, rule: NumberRule): number | undefined {
   const v = input[field]
@@ -108,39 +123,52 @@ export function resolveStressInput(raw: StressInput): ResolvedInput {
   const sixStep = modulation === 'six-step'
   const ac = topology.supply === 'ac-input'
   const dcUnit = topology.supply === 'cell' ? 'V per cell' : 'V'
-  const dcVoltage = ac ? 0 : num(input, 'dcVoltage', { required: true, positive: true, unit: dcUnit })!
+  const dcVoltage = ac ? 0 : limited(input, 'dcVoltage', { required: true, positive: true, unit: dcUnit })!
   let dcVoltageMax = dcVoltage
   if (!ac) {
-    const given = num(input, 'dcVoltageMax', { positive: true, unit: dcUnit })
+    const given = limited(input, 'dcVoltageMax', { positive: true, unit: dcUnit })
     if (given !== undefined) {
       if (given < dcVoltage) throw new EngineInputError('dcVoltageMax', 'dcVoltageMax must be at least dcVoltage (V, worst-case DC link)')
       dcVoltageMax = given
     }
   }
-  const inputLineVoltageRms = ac ? num(input, 'inputLineVoltageRms', { required: true, positive: true, unit: 'V, input line-to-line RMS; required for matrix' })! : 0
-  const lineVoltageRms = sixStep ? 0 : num(input, 'lineVoltageRms', { required: true, min: 0, unit: 'V, output line-to-line RMS' })!
-  const phaseCurrentRms = num(input, 'phaseCurrentRms', { required: true, min: 0, unit: 'A RMS' })!
+  const inputLineVoltageRms = ac ? limited(input, 'inputLineVoltageRms', { required: true, positive: true, unit: 'V, input line-to-line RMS; required for matrix' })! : 0
+  const lineVoltageRms = sixStep ? 0 : limited(input, 'lineVoltageRms', { required: true })!
+  const phaseCurrentRms = limited(input, 'phaseCurrentRms', { required: true })!
   const powerFactor = num(input, 'powerFactor', { required: true, min: -1, max: 1, unit: '−1…1' })!
-  const fundamentalHz = num(input, 'fundamentalHz', { required: true, positive: true, unit: 'Hz' })!
-  const switchingHz = num(input, 'switchingHz', { required: true, positive: true, unit: 'Hz' })!
+  const sense = input.powerFactorSense ?? 'lagging'
+  if (sense !== 'lagging' && sense !== 'leading') throw new EngineInputError('powerFactorSense', 'powerFactorSense must be lagging (inductive) or leading (capacitive)')
+  const fundamentalHz = limited(input, 'fundamentalHz', { required: true, positive: true })!
+  const switchingHz = limited(input, 'switchingHz', { required: true, positive: true })!
+  // Six-step: the output follows from the DC link, so the power bound uses the six-step line voltage √6/π·V_dc.
+  const lineForPower = sixStep ? (Math.sqrt(6) / Math.PI) * dcVoltage : lineVoltageRms
+  const apparentPower = Math.sqrt(3) * lineForPower * phaseCurrentRms
+  if (apparentPower > MAX_APPARENT_POWER) {
+    throw new EngineInputError('phaseCurrentRms', `phaseCurrentRms × line voltage gives ${Number((apparentPower / 1e9).toPrecision(3))} GVA (√3·V_LL·I); one converter must stay at or below 1 GVA`)
+  }
   if (!sixStep) {
     if (switchingHz <= fundamentalHz) throw new EngineInputError('switchingHz', 'switchingHz must be above fundamentalHz for PWM (switching-period averaging needs f_sw ≫ f)')
     if (switchingHz / fundamentalHz > MAX_FREQUENCY_RATIO) throw new EngineInputError('switchingHz', `switchingHz / fundamentalHz must not exceed ${MAX_FREQUENCY_RATIO}`)
+    // A ratio of exactly 3 may divide to 2.9999999999999996: the bound is kept with a rounding allowance.
+    if (switchingHz / fundamentalHz < MIN_FREQUENCY_RATIO * (1 - 1e-12)) throw new EngineInputError('switchingHz', `switchingHz must be at least ${MIN_FREQUENCY_RATIO} × fundamentalHz for PWM (below that a carrier period is too long to average over)`)
     if (switchingHz / fundamentalHz < 10) warnings.push(`Switching frequency only ${(switchingHz / fundamentalHz).toFixed(1)} × the fundamental: switching-period-averaged currents are approximate below about 10 ×.`)
   }
 
-  const overshootGiven = num(input, 'overshootVoltage', { min: 0, unit: 'V' })
-  const stray = num(input, 'strayInductance', { min: 0, unit: 'H' })
-  const slope = num(input, 'currentSlope', { min: 0, unit: 'A/s' })
+  const overshootGiven = limited(input, 'overshootVoltage', {})
+  const stray = limited(input, 'strayInductance', {})
+  const slope = limited(input, 'currentSlope', {})
   let overshootVoltage = overshootGiven ?? 0
   if (overshootGiven === undefined && (stray !== undefined) !== (slope !== undefined)) {
     warnings.push('strayInductance and currentSlope are needed together for the overshoot ΔV = L_σ·di/dt; no overshoot added.')
   }
   else if (overshootGiven === undefined && stray !== undefined && slope !== undefined) {
     overshootVoltage = stray * slope
+    if (overshootVoltage > INPUT_LIMITS.overshootVoltage.max) {
+      throw new EngineInputError('currentSlope', `strayInductance × currentSlope gives ${Number(overshootVoltage.toPrecision(3))} V overshoot; it must stay at or below ${INPUT_LIMITS.overshootVoltage.maxWords}`)
+    }
   }
-  const clampDiodeUnitVoltage = num(input, 'clampDiodeUnitVoltage', { positive: true, unit: 'V' })
-  const capacitorRippleTarget = num(input, 'capacitorRippleTarget', { positive: true, unit: 'V peak-to-peak' })
+  const clampDiodeUnitVoltage = limited(input, 'clampDiodeUnitVoltage', { positive: true })
+  const capacitorRippleTarget = limited(input, 'capacitorRippleTarget', { positive: true })
 
   return {
     topology,
@@ -153,6 +181,8 @@ export function resolveStressInput(raw: StressInput): ResolvedInput {
     lineVoltageRms,
     phaseCurrentRms,
     powerFactor,
+    powerFactorSense: sense,
+    currentPhaseAngle: sense === 'leading' ? -Math.acos(powerFactor) : Math.acos(powerFactor),
     fundamentalHz,
     switchingHz: sixStep ? fundamentalHz : switchingHz,
     overshootVoltage,

@@ -19,9 +19,11 @@ export const FIELD_LABELS = {
   lineVoltageRms: 'Line voltage RMS',
   phaseCurrentRms: 'Phase current RMS',
   powerFactor: 'Power factor',
+  powerFactorSense: 'Lagging or leading power factor',
   fundamentalHz: 'Fundamental frequency',
   capacitorRippleTarget: 'Capacitor ripple target',
   semiconductorVoltageUtilisation: 'Semiconductor voltage use',
+  semiconductorTransientMargin: 'Semiconductor peak (with overshoot) use',
   semiconductorCurrentUtilisation: 'Semiconductor peak-current use',
   capacitorVoltageUtilisation: 'Capacitor voltage use',
   capacitorRippleUtilisation: 'Capacitor ripple use',
@@ -42,7 +44,7 @@ export const FIELD_LABELS = {
 const LABELS: Readonly<Record<string, string>> = FIELD_LABELS
 
 /** Utilisations are fractions in the data and percentages on screen. */
-const PERCENT_FIELDS = new Set(['semiconductorVoltageUtilisation', 'semiconductorCurrentUtilisation', 'capacitorVoltageUtilisation', 'capacitorRippleUtilisation'])
+const PERCENT_FIELDS = new Set(['semiconductorVoltageUtilisation', 'semiconductorTransientMargin', 'semiconductorCurrentUtilisation', 'capacitorVoltageUtilisation', 'capacitorRippleUtilisation'])
 
 /** "phaseCurrentRms" → "Phase current rms" for a key without a label of its own. */
 function humanise(key: string): string {
@@ -109,8 +111,9 @@ const KEY_PHRASES: [RegExp, (label: string, m: RegExpExecArray, key: string) => 
   [/^ is required(?: \(([^)]*)\))?(.*)$/, (l, m) => `${l} is required: enter a value${unitIn(m[1]) ? ` in ${unitIn(m[1])}` : ''}${m[2] ?? ''}.`],
   [/^ must be a (?:finite )?number(?: \(([^)]*)\))?$/, (l, m) => `${l} must be a number: enter a value${unitIn(m[1]) ? ` in ${unitIn(m[1])}` : ''}.`],
   [/^ must be (?:greater than|above) (\S+)(?: \(([^)]*)\))?$/, (l, m, k) => `${l} must be greater than ${amount(m[1]!, k)}${unitIn(m[2]) && unitIn(m[2]) !== '°C' ? ` ${unitIn(m[2])}` : ''}: enter a larger value.`],
-  [/^ must be at least (\S+(?: °C)?)(?: \(([^)]*)\))?$/, (l, m, k) => `${l} must be at least ${amount(m[1]!, k)}${unitIn(m[2]) && !Object.hasOwn(LABELS, m[1]!) ? ` ${unitIn(m[2])}` : ''}: enter that or more.`],
-  [/^ must be at most (\S+(?: °C)?)(?: \(([^)]*)\))?$/, (l, m, k) => `${l} must be at most ${amount(m[1]!, k)}${unitIn(m[2]) ? ` ${unitIn(m[2])}` : ''}: enter that or less.`],
+  // the bound may carry its own unit ("at most 100 kV (V, …)"): then the parenthetical's unit is not added
+  [/^ must be at least (\S+)(?: ([^\s(]+))?(?: \(([^)]*)\))?$/, (l, m, k) => `${l} must be at least ${amount(m[1]!, k)}${m[2] ? ` ${m[2]}` : unitIn(m[3]) && !Object.hasOwn(LABELS, m[1]!) ? ` ${unitIn(m[3])}` : ''}: enter that or more.`],
+  [/^ must be at most (\S+)(?: ([^\s(]+))?(?: \(([^)]*)\))?$/, (l, m, k) => `${l} must be at most ${amount(m[1]!, k)}${m[2] ? ` ${m[2]}` : unitIn(m[3]) ? ` ${unitIn(m[3])}` : ''}: enter that or less.`],
   [/^ must be above (\S+) and at most (\S+)(?: \(([^)]*)\))?$/, (l, m, k) => `${l} must be above ${amount(m[1]!, k)} and at most ${amount(m[2]!, k)}: enter a value in that range.`],
   [/^ must be at least (\S+) and at most (\S+)(?: \(([^)]*)\))?$/, (l, m, k) => `${l} must be from ${amount(m[1]!, k)} to ${amount(m[2]!, k)}: enter a value in that range.`],
 ]

@@ -3,6 +3,7 @@
 import { z } from 'zod'
 import { EngineInputError } from '../engine/errors'
 import { checkDesignInput, checkStressInput } from '../engine/check'
+import { INPUT_LIMITS, tooLarge, tooSmall, type LimitedField } from '../engine/limits'
 import type { Modulation, TopologyId } from '../engine/types'
 
 export const topologyIds = ['two-level', 'diode-clamped', 't-type', 'anpc', 'flying-capacitor', 'cascaded-h-bridge', 'matrix'] as const satisfies readonly TopologyId[]
@@ -20,6 +21,12 @@ function quantity(field: string, unit: string) {
 }
 const positive = (field: string, unit: string) => quantity(field, unit).positive({ error: `${field} must be greater than 0 (${unit})` })
 const nonNegative = (field: string, unit: string) => quantity(field, unit).min(0, { error: `${field} must be at least 0 (${unit})` })
+/** A field of the engine's limits table (shared/engine/limits.ts): the same bounds and words as the engine. */
+function bounded(field: LimitedField, kind: 'positive' | 'nonNegative') {
+  const l = INPUT_LIMITS[field]
+  const base = kind === 'positive' ? positive(field, l.unit) : nonNegative(field, l.unit)
+  return (l.min > 0 ? base.min(l.min, { error: tooSmall(field) }) : base).max(l.max, { error: tooLarge(field) })
+}
 
 const topology = z.enum(topologyIds, { error: `topology must be one of ${topologyIds.join(', ')}` })
 const modulation = z.enum(modulations, { error: `modulation must be one of ${modulations.join(', ')}` })
@@ -30,21 +37,22 @@ const levels = z.number({ error: 'levels must be a whole number (2 two-level; 3 
 const converterFields = {
   topology,
   levels: levels.optional(),
-  dcVoltage: positive('dcVoltage', 'V, nominal DC link; per cell for cascaded-h-bridge').optional(),
-  dcVoltageMax: positive('dcVoltageMax', 'V, worst-case DC link').optional(),
-  inputLineVoltageRms: positive('inputLineVoltageRms', 'V, matrix input line-to-line RMS').optional(),
-  switchingHz: positive('switchingHz', 'Hz'),
+  dcVoltage: bounded('dcVoltage', 'positive').optional(),
+  dcVoltageMax: bounded('dcVoltageMax', 'positive').optional(),
+  inputLineVoltageRms: bounded('inputLineVoltageRms', 'positive').optional(),
+  switchingHz: bounded('switchingHz', 'positive'),
   modulation,
-  overshootVoltage: nonNegative('overshootVoltage', 'V').optional(),
-  strayInductance: nonNegative('strayInductance', 'H').optional(),
-  currentSlope: nonNegative('currentSlope', 'A/s').optional(),
-  clampDiodeUnitVoltage: positive('clampDiodeUnitVoltage', 'V').optional(),
+  overshootVoltage: bounded('overshootVoltage', 'nonNegative').optional(),
+  strayInductance: bounded('strayInductance', 'nonNegative').optional(),
+  currentSlope: bounded('currentSlope', 'nonNegative').optional(),
+  clampDiodeUnitVoltage: bounded('clampDiodeUnitVoltage', 'positive').optional(),
 }
 
 const pointFields = {
-  phaseCurrentRms: nonNegative('phaseCurrentRms', 'A RMS'),
+  phaseCurrentRms: bounded('phaseCurrentRms', 'nonNegative'),
   powerFactor: quantity('powerFactor', '−1…1').min(-1, { error: 'powerFactor must be at least −1' }).max(1, { error: 'powerFactor must be at most 1' }),
-  fundamentalHz: positive('fundamentalHz', 'Hz'),
+  powerFactorSense: z.enum(['lagging', 'leading'], { error: 'powerFactorSense must be lagging (inductive) or leading (capacitive)' }).optional(),
+  fundamentalHz: bounded('fundamentalHz', 'positive'),
 }
 
 const onlyWhenClean = { when: (payload: { issues: unknown[] }) => payload.issues.length === 0 }
@@ -63,7 +71,7 @@ function engineIssue(ctx: z.RefinementCtx, check: () => void): void {
 /** POST /api/v1/stress body (PRODUCT.md "Public API v1"); lineVoltageRms may be left out for six-step. */
 export const stressInputSchema = z.object({
   ...converterFields,
-  lineVoltageRms: nonNegative('lineVoltageRms', 'V, output line-to-line RMS').optional(),
+  lineVoltageRms: bounded('lineVoltageRms', 'nonNegative').optional(),
   ...pointFields,
   includeWaveform: z.boolean({ error: 'includeWaveform must be true or false' }).optional(),
 })
@@ -80,7 +88,7 @@ export const stressInputSchema = z.object({
 
 export const operatingPointSchema = z.object({
   name: z.string({ error: 'name must be text' }).trim().min(1, { error: 'Name the operating point' }).max(60, { error: 'name: at most 60 characters' }),
-  lineVoltageRms: nonNegative('lineVoltageRms', 'V, output line-to-line RMS; ignored for six-step'),
+  lineVoltageRms: bounded('lineVoltageRms', 'nonNegative'),
   ...pointFields,
 })
 
@@ -102,6 +110,7 @@ const fraction = (field: string, max: number) => quantity(`derating.${field}`, '
 
 export const deratingSchema = z.object({
   semiconductorVoltageUtilisation: fraction('semiconductorVoltageUtilisation', 1),
+  semiconductorTransientMargin: quantity('derating.semiconductorTransientMargin', 'fraction').min(0.5, { error: 'semiconductorTransientMargin must be at least 0.5 (the commutation peak may use 50 … 100 % of the rating)' }).max(1, { error: 'semiconductorTransientMargin must be at most 1 (the commutation peak may never exceed the rating)' }),
   semiconductorCurrentUtilisation: fraction('semiconductorCurrentUtilisation', 2),
   capacitorVoltageUtilisation: fraction('capacitorVoltageUtilisation', 1),
   capacitorRippleUtilisation: fraction('capacitorRippleUtilisation', 2),
@@ -114,7 +123,7 @@ export const designInputSchema = z.object({
   machineSide: converterInputSchema,
   gridSide: converterInputSchema.optional(),
   derating: deratingSchema.optional(),
-  capacitorRippleTarget: positive('capacitorRippleTarget', 'V peak-to-peak').optional(),
+  capacitorRippleTarget: bounded('capacitorRippleTarget', 'positive').optional(),
 }).superRefine((v, ctx) => engineIssue(ctx, () => checkDesignInput(v)), onlyWhenClean)
 
 export type StressInputBody = z.input<typeof stressInputSchema>

@@ -5,7 +5,11 @@ export interface SideExtras {
   pointName: string
   waveform?: Waveform
   spectrum?: SpectrumLine[]
+  /** full-band line-voltage THD (time-domain RMS) */
   thd?: number
+  /** THD summed over orders 2…thdMaxOrder only */
+  thdToOrder?: number
+  thdMaxOrder?: number
 }
 
 /** What the design page shows: the evaluation, the leg drawings and the first point's waveform per side. */

@@ -44,6 +44,44 @@ describe('POST /api/v1/stress', () => {
     expect((await api.request('POST', '/api/v1/stress', 'nope', { 'content-type': 'application/json' })).status).toBe(400)
   })
 
+  // Physical bounds (shared/engine/limits.ts): just past each one → 422 naming the field and the bound in words.
+  const bounds: { field: string, body: Record<string, unknown>, words: RegExp }[] = [
+    { field: 'dcVoltage', body: { topology: 'two-level', dcVoltage: 100_001 }, words: /at most 100 kV/ },
+    { field: 'dcVoltageMax', body: { topology: 'two-level', dcVoltage: 650, dcVoltageMax: 100_001 }, words: /at most 100 kV/ },
+    { field: 'inputLineVoltageRms', body: { topology: 'matrix', inputLineVoltageRms: 70_001 }, words: /at most 70 kV/ },
+    { field: 'lineVoltageRms', body: { topology: 'two-level', dcVoltage: 650, lineVoltageRms: 100_001 }, words: /at most 100 kV/ },
+    { field: 'phaseCurrentRms', body: { topology: 'two-level', dcVoltage: 650, phaseCurrentRms: 100_001 }, words: /at most 100 kA/ },
+    { field: 'fundamentalHz', body: { topology: 'two-level', dcVoltage: 650, fundamentalHz: 2001, switchingHz: 40_000 }, words: /at most 2 kHz/ },
+    { field: 'switchingHz', body: { topology: 'two-level', dcVoltage: 650, switchingHz: 500_001 }, words: /at most 500 kHz/ },
+    { field: 'overshootVoltage', body: { topology: 'two-level', dcVoltage: 650, overshootVoltage: 100_001 }, words: /at most 100 kV/ },
+    { field: 'strayInductance', body: { topology: 'two-level', dcVoltage: 650, strayInductance: 0.0011 }, words: /at most 1 mH/ },
+    { field: 'currentSlope', body: { topology: 'two-level', dcVoltage: 650, currentSlope: 1.1e12 }, words: /at most 10¹² A\/s/ },
+    { field: 'clampDiodeUnitVoltage', body: { topology: 'diode-clamped', levels: 3, dcVoltage: 650, clampDiodeUnitVoltage: 5 }, words: /at least 10 V/ },
+    { field: 'phaseCurrentRms', body: { topology: 'cascaded-h-bridge', levels: 15, dcVoltage: 12_000, lineVoltageRms: 60_000, phaseCurrentRms: 10_000 }, words: /1 GVA/ },
+    { field: 'switchingHz', body: { topology: 'two-level', dcVoltage: 650, switchingHz: 140 }, words: /at least 3 × fundamentalHz/ },
+    { field: 'powerFactorSense', body: { topology: 'two-level', dcVoltage: 650, powerFactorSense: 'ahead' }, words: /lagging .* or leading/ },
+  ]
+  for (const b of bounds) {
+    it(`refuses ${b.field} past its bound with 422 naming it (${b.words.source})`, async () => {
+      const api = await signInAs('viewer')
+      const r = await api.json('POST', '/api/v1/stress', { ...base, ...b.body })
+      expect(r.status).toBe(422)
+      const issue = r.body.data.issues.find((i: { path: string }) => i.path === b.field)
+      expect(issue?.message).toMatch(b.words)
+    })
+  }
+
+  it('at the bounds themselves the answer is 200 with finite figures; a leading power factor is reported as leading', async () => {
+    const api = await signInAs('viewer')
+    const r = await api.json('POST', '/api/v1/stress', { ...base, topology: 'two-level', dcVoltage: 100_000, lineVoltageRms: 50_000, phaseCurrentRms: 10_000, powerFactor: 0.9, powerFactorSense: 'leading', switchingHz: 2000 })
+    expect(r.status).toBe(200)
+    expect(JSON.stringify(r.body)).not.toMatch(/null|NaN|Infinity/)
+    expect(r.body.powerFactor).toMatchObject({ value: 0.9, sense: 'leading' })
+    const ev = await api.json('POST', '/api/v1/evaluate', { machineSide: { topology: 'two-level', dcVoltage: 650, switchingHz: 4000, modulation: 'sine', operatingPoints: [{ name: 'P', lineVoltageRms: 400, phaseCurrentRms: 100, powerFactor: 0.85, fundamentalHz: 50 }] }, capacitorRippleTarget: 100_001 })
+    expect(ev.status).toBe(422)
+    expect(ev.body.data.issues.find((i: { path: string }) => i.path === 'capacitorRippleTarget')?.message).toMatch(/at most 100 kV/)
+  })
+
   it('accepts a personal API token as Bearer, and refuses a revoked one', async () => {
     const owner = await signInAs('design-engineer')
     const { body: created } = await owner.json('POST', '/api/tokens', { name: 'ci script' })

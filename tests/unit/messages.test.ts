@@ -34,10 +34,15 @@ describe('validation messages in plain words', () => {
       expect(i.message, i.path).toMatch(/: (enter|fill|choose|give|use)/)
     }
     const byPath = Object.fromEntries(issues.map(i => [i.path, i.message]))
-    expect(byPath['machineSide.dcVoltage']).toBe('DC link, nominal must be greater than 0 V: enter a larger value.')
+    expect(byPath['machineSide.dcVoltage']).toBe('DC link, nominal must be at least 1 V: enter that or more.')
     expect(byPath['machineSide.switchingHz']).toBe('Switching frequency must be a number: enter a value in Hz.')
     expect(byPath['derating.semiconductorVoltageUtilisation']).toBe('Semiconductor voltage use must be at most 100 %: enter that or less.')
     expect(byPath['derating.heatsinkTemperatureC']).toBe('Heatsink temperature must be at most 150 °C: enter that or less.')
+  })
+
+  it('a bound with its own unit is said once (input limits of the engine)', () => {
+    expect(plainMessage('machineSide.dcVoltage', 'dcVoltage must be at most 100 kV (V, nominal DC link; per cell for cascaded-h-bridge)')).toBe('DC link, nominal must be at most 100 kV: enter that or less.')
+    expect(plainMessage('machineSide.dcVoltage', 'dcVoltage must be at most 1000 (V, nominal DC link)')).toBe('DC link, nominal must be at most 1000 V: enter that or less.')
   })
 
   it('zod\'s own wording is rewritten (sign-in form)', () => {

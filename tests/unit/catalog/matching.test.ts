@@ -290,13 +290,30 @@ describe('duty from the engine envelope', () => {
       currentAvg: 120, currentRms: 220, currentPeak: 560, commutatedVoltage: 800,
       provenance: { method: 'test', source: 'test' },
       worstPoint: { blockingVoltage: 'a', currentAvg: 'a', currentRms: 'a', currentPeak: 'a' },
-      requiredVoltageRating: 1231, requiredCurrentRating: 560,
+      requiredVoltageRating: 1231, positionVoltageRating: 1231, voltageRatingSetBy: 'utilisation', requiredCurrentRating: 560,
     }
     expect(positionDutyFromDevice(device, { switchingHz: 4000, converters: 2, topology: 'two-level' })).toEqual({
       positionName: 'S1', kind: 'switch', requiredVoltageRating: 1231, requiredCurrentRating: 560,
       currentAvg: 120, currentRms: 220, currentPeak: 560, blockingVoltage: 800, commutatedVoltage: 800,
       switchingHz: 4000, positionsPerPhase: 2, phases: 3, converters: 2, topology: 'two-level',
     })
+  })
+
+  it('a clamp-diode stack is matched on the whole stack\'s requirement, the same derating rule as the engine', () => {
+    // Engine: 3300 V steady / 0.65 = 5077 V for the stack, 3 units of 1692 V each.
+    const stack: DeviceEnvelope = {
+      name: 'Dc1+', kind: 'clamp-diode', countPerPhase: 1, blockingVoltage: 3300, blockingVoltageWithOvershoot: 3300, seriesCount: 3,
+      currentAvg: 20, currentRms: 60, currentPeak: 400, commutatedVoltage: 0,
+      provenance: { method: 'test', source: 'test' },
+      worstPoint: { blockingVoltage: 'a', currentAvg: 'a', currentRms: 'a', currentPeak: 'a' },
+      requiredVoltageRating: 3300 / 0.65 / 3, positionVoltageRating: 3300 / 0.65, voltageRatingSetBy: 'utilisation', requiredCurrentRating: 400,
+    }
+    const duty = positionDutyFromDevice(stack, { switchingHz: 0, topology: 'diode-clamped', levels: 5 })
+    expect(duty.requiredVoltageRating).toBeCloseTo(3300 / 0.65, 9)
+    // 1700 V unit diodes: 3 in series (5100 V ≥ 5077 V), as the engine counted; 2 would be 3400 V.
+    const unit: CatalogPart = { ...igbt(), partNumber: 'D17', kind: 'diode', packageConfiguration: 'single', voltageRating: 1700, currentRating: 600 }
+    const fit = matchPosition(duty, [unit], policy).candidates[0]!
+    expect(fit.seriesCount).toBe(3)
   })
 })
 

@@ -25,13 +25,16 @@ describe('diode-clamped N-level', () => {
     }
   })
 
-  it('clamp stacks with a chosen unit rating: seriesCount = ⌈blocking / unit⌉ (common practice)', () => {
+  it('clamp stacks with a chosen unit rating: the count passes the derating rule, n·unit ≥ max(V/u, (V+ΔV)/margin) (common practice)', () => {
     const r = evaluateStress(inputAt('diode-clamped', 0.8, 0.9, { levels: 5, dcVoltage: V, clampDiodeUnitVoltage: 1700 }))
-    // Steps of 1000 V: k = 1, 2, 3 → 1000, 2000, 3000 V → 1, 2, 2 units.
+    // Steps of 1000 V: k = 1, 2, 3 → 1000, 2000, 3000 V; / 0.65 → 1538, 3077, 4615 V → 1, 2, 3 units of 1700 V.
+    // (⌈blocking / unit⌉ alone would give 2 units for 3000 V: 3400 V rating at 88 % utilisation, refused by the 65 % rule.)
     expect(device(r.devices, 'Dc3+').seriesCount).toBe(1)
     expect(device(r.devices, 'Dc2+').seriesCount).toBe(2)
-    expect(device(r.devices, 'Dc1+').seriesCount).toBe(2)
-    expect(r.counts.clampDiodesPerPhase).toBe(2 * (1 + 2 + 2))
+    expect(device(r.devices, 'Dc1+').seriesCount).toBe(3)
+    expect(r.counts.clampDiodesPerPhase).toBe(2 * (1 + 2 + 3))
+    expect(r.warnings.some(w => w.startsWith('Dc1+: clampDiodeUnitVoltage 1700 V is too small for 2 units') && w.includes('3 units are counted'))).toBe(true)
+    expect(r.warnings.some(w => w.startsWith('Dc2+'))).toBe(false)
   })
 })
 

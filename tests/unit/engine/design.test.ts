@@ -26,7 +26,7 @@ function fieldOf(f: () => unknown): string | undefined {
 
 describe('derating defaults (common practice, ENGINEERING.md)', () => {
   it('holds the documented values', () => {
-    expect(defaultDerating).toEqual({ semiconductorVoltageUtilisation: 0.65, semiconductorCurrentUtilisation: 1, capacitorVoltageUtilisation: 1, capacitorRippleUtilisation: 1, junctionMarginC: 25, heatsinkTemperatureC: 80 })
+    expect(defaultDerating).toEqual({ semiconductorVoltageUtilisation: 0.65, semiconductorTransientMargin: 1, semiconductorCurrentUtilisation: 1, capacitorVoltageUtilisation: 1, capacitorRippleUtilisation: 1, junctionMarginC: 25, heatsinkTemperatureC: 80 })
   })
 })
 
@@ -49,9 +49,12 @@ describe('envelope and required ratings', () => {
     expect(device(conv.envelope.devices, 'S1').worstPoint.currentAvg).not.toBe('Regenerative braking')
   })
 
-  it('required voltage = (V_dc,max + overshoot) / 0.65, rounded to a standard class; current = peak / 1.0 (common practice)', () => {
+  it('required voltage = max(V_dc,max / 0.65, (V_dc,max + overshoot) / 1.0), rounded to a standard class; current = peak / 1.0 (common practice)', () => {
     const s1 = device(conv.envelope.devices, 'S1')
-    expectClose(s1.requiredVoltageRating, 900 / 0.65, 1e-12, 'V')
+    // 800 V / 0.65 = 1231 V > 900 V / 1.0: the utilisation check decides; 1231 V needs the 1700 V class.
+    expectClose(s1.requiredVoltageRating, 800 / 0.65, 1e-12, 'V')
+    expect(s1.voltageRatingSetBy).toBe('utilisation')
+    expect(s1.provenance.method).toContain('the utilisation check decides')
     expect(s1.voltageClass).toBe(1700)
     expectClose(s1.requiredCurrentRating, Math.SQRT2 * 230, 1e-9, 'I')
     const c = conv.envelope.capacitors[0]!
@@ -63,10 +66,47 @@ describe('envelope and required ratings', () => {
   it('a partial derating policy overrides only its fields', () => {
     const r = evaluateDesign({ machineSide: machine(), derating: { semiconductorVoltageUtilisation: 0.5, semiconductorCurrentUtilisation: 0.8 } })
     const s1 = device(r.converters[0]!.envelope.devices, 'S1')
-    expectClose(s1.requiredVoltageRating, 1800, 1e-12, 'V')
-    expect(s1.voltageClass).toBe(2500)
+    expectClose(s1.requiredVoltageRating, 1600, 1e-12, 'V')
+    expect(s1.voltageClass).toBe(1700)
     expectClose(s1.requiredCurrentRating, (Math.SQRT2 * 230) / 0.8, 1e-9, 'I')
     expect(r.derating.junctionMarginC).toBe(25)
+  })
+
+  it('no class depends on dividing the overshoot by u: a 750 V two-level link with 150 V overshoot takes the 1200 V class (common practice)', () => {
+    // Old rule (750 + 150) / 0.65 = 1385 V → 1700 V; the two checks: 750 / 0.65 = 1154 V, 900 / 1.0 = 900 V → 1200 V.
+    const r = evaluateDesign({ machineSide: machine({ dcVoltage: 650, dcVoltageMax: 750, overshootVoltage: 150 }) })
+    const s1 = device(r.converters[0]!.envelope.devices, 'S1')
+    expectClose(s1.requiredVoltageRating, 750 / 0.65, 1e-12, 'V')
+    expect(s1.voltageClass).toBe(1200)
+  })
+
+  it('the transient check decides when the overshoot is large, and the margin scales it (common practice)', () => {
+    // 800 V / 0.65 = 1231 V < (800 + 600) V / 1.0 = 1400 V; with margin 0.9: 1556 V.
+    const r = evaluateDesign({ machineSide: machine({ overshootVoltage: 600 }) })
+    const s1 = device(r.converters[0]!.envelope.devices, 'S1')
+    expectClose(s1.requiredVoltageRating, 1400, 1e-12, 'V')
+    expect(s1.voltageRatingSetBy).toBe('transient')
+    expect(s1.provenance.method).toContain('the transient check decides')
+    const d = evaluateDesign({ machineSide: machine({ overshootVoltage: 600 }), derating: { semiconductorTransientMargin: 0.9 } })
+    expectClose(device(d.converters[0]!.envelope.devices, 'S1').requiredVoltageRating, 1400 / 0.9, 1e-12, 'V margin 0.9')
+    // A position that does not commutate (two-level: none) keeps V/u; the clamp diodes of an NPC carry no overshoot either.
+    expect(fieldOf(() => evaluateDesign({ machineSide: machine(), derating: { semiconductorTransientMargin: 1.2 } }))).toBe('derating.semiconductorTransientMargin')
+    expect(fieldOf(() => evaluateDesign({ machineSide: machine(), derating: { semiconductorTransientMargin: 0.4 } }))).toBe('derating.semiconductorTransientMargin')
+  })
+
+  it('a clamp stack with a chosen unit rating counts units that pass its own rating check; matching gets the whole stack (common practice)', () => {
+    const r = evaluateDesign({ machineSide: machine({ topology: 'diode-clamped', levels: 5, dcVoltage: 4000, dcVoltageMax: 4400, modulation: 'sine', overshootVoltage: 300, clampDiodeUnitVoltage: 1700, operatingPoints: [{ name: 'Rated', lineVoltageRms: 2800, phaseCurrentRms: 300, powerFactor: 0.9, fundamentalHz: 50 }] }) })
+    for (const dc of r.converters[0]!.envelope.devices.filter(d => d.kind === 'clamp-diode')) {
+      const n = dc.seriesCount!
+      // The unit's own requirement fits the chosen unit, and one unit fewer would not.
+      expect(dc.requiredVoltageRating).toBeLessThanOrEqual(1700 + 1e-9)
+      expect(dc.positionVoltageRating / Math.max(1, n - 1)).toBeGreaterThan(n > 1 ? 1700 : 0)
+      expectClose(dc.requiredVoltageRating * n, dc.positionVoltageRating, 1e-12, dc.name)
+      expectClose(dc.positionVoltageRating, Math.max(dc.blockingVoltage / 0.65, dc.blockingVoltageWithOvershoot), 1e-12, dc.name)
+    }
+    // 3 steps of 1100 V = 3300 V / 0.65 = 5077 V → 3 units of 1700 V (⌈3300 / 1700⌉ = 2 would be refused).
+    expect(device(r.converters[0]!.envelope.devices, 'Dc1+').seriesCount).toBe(3)
+    expect(r.warnings.some(w => w.includes('Dc1+: clampDiodeUnitVoltage 1700 V is too small for 2 units'))).toBe(true)
   })
 
   it('clamp-diode stacks are rated per unit diode', () => {

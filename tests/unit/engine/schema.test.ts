@@ -55,7 +55,9 @@ describe('designInputSchema', () => {
     { input: { ...design, derating: { capacitorRippleUtilisation: 0 } }, path: 'derating.capacitorRippleUtilisation' },
     { input: { ...design, gridSide: { ...design.machineSide, topology: 'anpc' } }, path: 'gridSide.topology' },
     { input: { ...design, machineSide: { ...design.machineSide, levels: 3 } }, path: 'machineSide.levels' },
-    { input: { ...design, machineSide: { ...design.machineSide, operatingPoints: [{ ...point, fundamentalHz: 5000 }] } }, path: 'machineSide.switchingHz' },
+    { input: { ...design, machineSide: { ...design.machineSide, switchingHz: 1000, operatingPoints: [{ ...point, fundamentalHz: 1500 }] } }, path: 'machineSide.switchingHz' },
+    { input: { ...design, machineSide: { ...design.machineSide, operatingPoints: [{ ...point, fundamentalHz: 5000 }] } }, path: 'machineSide.operatingPoints.0.fundamentalHz' },
+    { input: { ...design, machineSide: { ...design.machineSide, operatingPoints: [{ ...point, powerFactorSense: 'capacitive' }] } }, path: 'machineSide.operatingPoints.0.powerFactorSense' },
   ])('refuses at $path', ({ input, path }) => {
     const r = designInputSchema.safeParse(input)
     expect(r.success).toBe(false)
