@@ -11,10 +11,14 @@
 //               P_sw,T = f_sw·(E_on + E_off)·(Î/π)/I_ref·V_dc/V_ref,  P_rr,D = f_sw·E_rr·(Î/π)/I_ref·V_dc/V_ref.
 //               When a duty gives no switchedCurrentAvg, Î/π is used: exact for two-level and an upper
 //               bound for multilevel positions (they switch during part of their conducting half-cycle).
+//               With per-point duties (PositionDuty.points) the losses are evaluated at every operating point
+//               from that point's currents and commutations (shared/thermal/losses.ts) and the candidate
+//               carries the point with the highest total, by name; the envelope is never used for losses then.
 //   junction    T_j = T_heatsink + P·(R_th,jc + R_th,ch)            per device (no coupling between chips)
 
 import { COLUMN_BY_KEY, PACKAGE_CONFIGURATIONS, type ColumnKey, type PartKind } from '../../catalog/columns'
 import type { CapacitorEnvelope, DeviceEnvelope, TopologyId } from '../engine/types'
+import { lossesOverPoints, type PointDuty } from '../thermal/losses'
 import { priceAtQuantity } from './prices'
 import type { CatalogPart, Lifecycle } from './types'
 
@@ -56,6 +60,8 @@ export interface PositionDuty {
   /** Topology, to offer leg modules only where they fit; absent = any. */
   topology?: TopologyId
   levels?: number
+  /** Semiconductors: the position's duty at each operating point; losses are then computed per point. */
+  points?: PointDuty[]
 }
 
 export interface MatchPolicy {
@@ -89,6 +95,10 @@ export interface CandidateLosses {
   total: number
   /** W for all devices of this position in one converter (phases × positions × series × parallel) */
   perConverter: number
+  /** operating point these figures belong to (the one with the highest losses), when computed per point */
+  pointName?: string
+  /** the same figures at every operating point, in the design's order */
+  perPoint?: { pointName: string, conduction: number, switching: number, total: number, perConverter: number }[]
 }
 
 export interface Candidate {
@@ -233,7 +243,11 @@ export function missingFigures(part: CatalogPart, duty: PositionDuty, what: read
 }
 
 /** Losses per device of a semiconductor part at the position, or null when the part lacks the data. */
-export function deviceLosses(part: CatalogPart, duty: PositionDuty, series: number, parallel: number): { conduction: number, switching: number } | null {
+export function deviceLosses(part: CatalogPart, duty: PositionDuty, series: number, parallel: number): { conduction: number, switching: number, pointName?: string, perPoint?: { pointName: string, conduction: number, switching: number, total: number }[] } | null {
+  if (duty.points?.length && duty.kind !== 'capacitor') {
+    const over = lossesOverPoints(part, duty.kind, duty.points, duty.switchingHz, series, parallel)
+    return over && { conduction: over.worst.conduction, switching: over.worst.switching, pointName: over.worst.pointName, perPoint: over.perPoint }
+  }
   const asSwitch = duty.kind === 'switch'
   const v0 = asSwitch ? part.switchThresholdVoltage : part.diodeThresholdVoltage
   const r = asSwitch ? part.switchSlopeResistance : part.diodeSlopeResistance
@@ -397,6 +411,10 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
     if (perDevice) {
       const total = perDevice.conduction + perDevice.switching
       losses = { conduction: round(perDevice.conduction, 3), switching: round(perDevice.switching, 3), total: round(total, 3), perConverter: round(total * devicesPerConverter, 2) }
+      if (perDevice.pointName !== undefined) {
+        losses.pointName = perDevice.pointName
+        losses.perPoint = perDevice.perPoint!.map(l => ({ pointName: l.pointName, conduction: round(l.conduction, 3), switching: round(l.switching, 3), total: round(l.total, 3), perConverter: round(l.total * devicesPerConverter, 2) }))
+      }
       const rthJc = duty.kind === 'switch' ? part.rthJunctionCaseSwitch : part.rthJunctionCaseDiode
       if (rthJc !== undefined && part.junctionTemperatureMax !== undefined) {
         junctionTemperatureC = round(policy.heatsinkTemperatureC + total * (rthJc + (part.rthCaseHeatsink ?? 0)), 1)
