@@ -91,7 +91,7 @@ describe('two-level losses per operating point vs Bierhoff & Fuchs (PESC 2004)',
     const envelopeLoss = conv.envelope.devices.reduce((s, d) => s + 3 * (d.kind === 'switch'
       ? part.switchThresholdVoltage! * d.currentAvg + part.switchSlopeResistance! * d.currentRms ** 2
       : part.diodeThresholdVoltage! * d.currentAvg + part.diodeSlopeResistance! * d.currentRms ** 2), 0)
-    const worstConduction = Math.max(...points.map(p => { const c = closedForm(p.m, p.pf, p.I); return 6 * (c.condT + c.condD) }))
+    const worstConduction = Math.max(...points.map((p) => { const c = closedForm(p.m, p.pf, p.I); return 6 * (c.condT + c.condD) }))
     expect(envelopeLoss).toBeGreaterThan(worstConduction * 1.02)
   })
 
