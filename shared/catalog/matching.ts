@@ -19,6 +19,7 @@
 import { COLUMN_BY_KEY, PACKAGE_CONFIGURATIONS, type ColumnKey, type PartKind } from '../../catalog/columns'
 import type { CapacitorEnvelope, DeviceEnvelope, TopologyId } from '../engine/types'
 import { lossesOverPoints, type PointDuty } from '../thermal/losses'
+import { hasTwoTemperatures, junctionOverPoints } from '../thermal/temperature'
 import { priceAtQuantity } from './prices'
 import type { CatalogPart, Lifecycle } from './types'
 
@@ -98,7 +99,7 @@ export interface CandidateLosses {
   /** operating point these figures belong to (the one with the highest losses), when computed per point */
   pointName?: string
   /** the same figures at every operating point, in the design's order */
-  perPoint?: { pointName: string, conduction: number, switching: number, total: number, perConverter: number }[]
+  perPoint?: { pointName: string, conduction: number, switching: number, total: number, perConverter: number, junctionTemperatureC?: number, junctionStatus?: 'settled' | 'above-limit' | 'runaway' }[]
 }
 
 export interface Candidate {
@@ -119,6 +120,8 @@ export interface Candidate {
   junctionTemperatureC?: number
   /** °C, T_j,max − margin */
   junctionLimitC?: number
+  /** operating point of junctionTemperatureC (the hottest), when evaluated per point */
+  junctionPointName?: string
   thermalOk: boolean
   /** Device slots of this position kind in one package. */
   slotsPerPackage: number
@@ -395,6 +398,7 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
   let junctionLimitC: number | undefined
   let thermalOk = true
   let missingData: string[] | undefined
+  let candidateJunctionPoint: string | undefined
 
   if (isCapacitor) {
     const rippleNeeded = duty.requiredRippleRating ?? duty.currentRms
@@ -419,8 +423,20 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
       if (rthJc !== undefined && part.junctionTemperatureMax !== undefined) {
         junctionTemperatureC = round(policy.heatsinkTemperatureC + total * (rthJc + (part.rthCaseHeatsink ?? 0)), 1)
         junctionLimitC = part.junctionTemperatureMax - policy.junctionMarginC
-        thermalOk = junctionTemperatureC <= junctionLimitC
-        if (!thermalOk) warnings.push(`T_j ${junctionTemperatureC} °C exceeds ${junctionLimitC} °C (T_j,max ${part.junctionTemperatureMax} °C − ${policy.junctionMarginC} °C margin)`)
+        // Per point: T_j iterated with the (temperature-dependent) losses; losses shown at the settled T_j.
+        const settled = duty.points?.length ? junctionOverPoints(part, duty.kind as 'switch' | 'diode' | 'clamp-diode', duty.points, duty.switchingHz, series, parallel, policy.heatsinkTemperatureC, rthJc + (part.rthCaseHeatsink ?? 0)) : null
+        if (settled) {
+          const w = settled.worst
+          junctionTemperatureC = round(w.junctionTemperatureC, 1)
+          losses.perPoint = settled.perPoint.map(p => ({ pointName: p.pointName, conduction: round(p.loss!.conduction, 3), switching: round(p.loss!.switching, 3), total: round(p.loss!.total, 3), perConverter: round(p.loss!.total * devicesPerConverter, 2), junctionTemperatureC: round(p.junctionTemperatureC, 1), junctionStatus: p.status }))
+          const head = losses.perPoint.reduce((a, b) => (b.total > a.total ? b : a))
+          Object.assign(losses, { conduction: head.conduction, switching: head.switching, total: head.total, perConverter: head.perConverter, pointName: head.pointName })
+          candidateJunctionPoint = w.pointName
+          if (w.status !== 'settled') warnings.push(`${w.pointName}: ${w.note}`)
+          else if (!hasTwoTemperatures(part)) warnings.push(w.note)
+        }
+        thermalOk = junctionTemperatureC <= junctionLimitC && (!settled || settled.worst.status === 'settled')
+        if (!thermalOk) warnings.push(`T_j ${junctionTemperatureC} °C exceeds ${junctionLimitC} °C (T_j,max ${part.junctionTemperatureMax} °C − ${policy.junctionMarginC} °C margin)${candidateJunctionPoint ? ` at ${candidateJunctionPoint}` : ''}`)
         if (part.rthCaseHeatsink === undefined) warnings.push('no R_th case-heatsink in the catalogue: T_j leaves it out')
       }
       else {
@@ -470,6 +486,7 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
   if (junctionTemperatureC !== undefined) {
     candidate.junctionTemperatureC = junctionTemperatureC
     candidate.junctionLimitC = junctionLimitC
+    if (candidateJunctionPoint) candidate.junctionPointName = candidateJunctionPoint
   }
   if (part.currency) candidate.currency = part.currency
   if (part.stock !== undefined) candidate.stock = part.stock

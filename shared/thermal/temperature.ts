@@ -84,29 +84,26 @@ export function settleJunction(part: TemperaturePart, kind: DeviceKind, duty: Po
   let loss = lossAt(tj)
   if (!loss) return { status: 'settled', junctionTemperatureC: NaN, loss: null, iterations: 0, note: 'loss figures missing' }
   const single = two ? '' : `single-temperature loss data: the figures${part.lossDataTemperature !== undefined ? ` (given at ${part.lossDataTemperature} °C)` : ''} are used at every T_j (assumption)`
-  let step = Infinity
+  if (two) {
+    // Loop gain R_th·dP/dT_j over the data's range: at or above 1 no junction temperature balances the losses.
+    const top = Number.isFinite(tjMax) ? tjMax : part.lossDataTemperature!
+    const slope = (lossAt(top)!.total - lossAt(REFERENCE_TEMPERATURE_C)!.total) / (top - REFERENCE_TEMPERATURE_C)
+    if (rth * slope >= 1) {
+      // Reported T_j: what the losses at the top of the range alone would give (a lower bound).
+      return { status: 'runaway', junctionTemperatureC: heatsinkC + lossAt(top)!.total * rth, loss: lossAt(top), iterations: 0, note: `thermal runaway: the losses rise by ${slope.toPrecision(3)} W/K, the heat path (${rth.toPrecision(3)} K/W) cannot remove the increase (loop gain ${(rth * slope).toPrecision(3)} ≥ 1)` }
+    }
+  }
   for (let k = 1; k <= MAX_ITERATIONS; k++) {
     const next = heatsinkC + loss!.total * rth
-    const nextStep = Math.abs(next - tj)
+    const step = Math.abs(next - tj)
     if (next > tjMax) {
       // Past the limit: does the loss at T_j,max itself keep the junction above it?
       const atLimit = lossAt(tjMax)!
       const hot = heatsinkC + atLimit.total * rth
       if (hot > tjMax) {
-        const runaway = two && nextStep > step
-        return {
-          status: runaway ? 'runaway' : 'above-limit',
-          junctionTemperatureC: next,
-          loss: atLimit,
-          iterations: k,
-          note: runaway ? 'thermal runaway: the losses rise faster with T_j than the heat path removes them' : `T_j passes T_j,max ${tjMax} °C even with the losses at T_j,max${single ? `; ${single}` : ''}`,
-        }
+        return { status: 'above-limit', junctionTemperatureC: hot, loss: atLimit, iterations: k, note: `T_j passes T_j,max ${tjMax} °C even with the losses at T_j,max${single ? `; ${single}` : ''}` }
       }
     }
-    if (two && nextStep > step && k > 3) {
-      return { status: 'runaway', junctionTemperatureC: next, loss, iterations: k, note: 'thermal runaway: the losses rise faster with T_j than the heat path removes them' }
-    }
-    step = nextStep
     tj = next
     loss = lossAt(tj)!
     if (step < SETTLE_K) {
@@ -114,4 +111,17 @@ export function settleJunction(part: TemperaturePart, kind: DeviceKind, duty: Po
     }
   }
   return { status: 'runaway', junctionTemperatureC: tj, loss, iterations: MAX_ITERATIONS, note: 'T_j did not settle: treated as thermal runaway' }
+}
+
+export interface PointJunction extends SettledJunction {
+  pointName: string
+}
+
+/** The junction settled at every operating point; `worst` = the hottest point (runaway first). */
+export function junctionOverPoints(part: TemperaturePart, kind: DeviceKind, points: readonly PointDuty[], switchingHz: number, series: number, parallel: number, heatsinkC: number, rth: number): { perPoint: PointJunction[], worst: PointJunction } | null {
+  const perPoint = points.map(p => ({ pointName: p.pointName, ...settleJunction(part, kind, p, switchingHz, series, parallel, heatsinkC, rth) }))
+  if (perPoint.length === 0 || perPoint.some(p => !p.loss)) return null
+  const rank = (p: PointJunction) => (p.status === 'runaway' ? 2 : p.status === 'above-limit' ? 1 : 0)
+  const worst = perPoint.reduce((a, b) => (rank(b) > rank(a) || (rank(b) === rank(a) && b.junctionTemperatureC > a.junctionTemperatureC) ? b : a))
+  return { perPoint, worst }
 }
