@@ -18,7 +18,7 @@
 
 import { COLUMN_BY_KEY, PACKAGE_CONFIGURATIONS, type ColumnKey, type PartKind } from '../../catalog/columns'
 import type { CapacitorEnvelope, DeviceEnvelope, TopologyId } from '../engine/types'
-import { lossesOverPoints, type PointDuty } from '../thermal/losses'
+import { FALLBACK_METHOD, lossesOverPoints, type PointDuty } from '../thermal/losses'
 import { hasTwoTemperatures, junctionOverPoints } from '../thermal/temperature'
 import { priceAtQuantity } from './prices'
 import type { CatalogPart, Lifecycle } from './types'
@@ -416,6 +416,7 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
       const total = perDevice.conduction + perDevice.switching
       losses = { conduction: round(perDevice.conduction, 3), switching: round(perDevice.switching, 3), total: round(total, 3), perConverter: round(total * devicesPerConverter, 2) }
       if (perDevice.pointName !== undefined) {
+        if (perDevice.switching > 0 && duty.points?.some(p => !p.switchingDuty)) warnings.push(FALLBACK_METHOD)
         losses.pointName = perDevice.pointName
         losses.perPoint = perDevice.perPoint!.map(l => ({ pointName: l.pointName, conduction: round(l.conduction, 3), switching: round(l.switching, 3), total: round(l.total, 3), perConverter: round(l.total * devicesPerConverter, 2) }))
       }
