@@ -66,6 +66,8 @@ export type ColumnKey
     | 'switchThresholdVoltage' | 'switchSlopeResistance' | 'diodeThresholdVoltage' | 'diodeSlopeResistance'
     | 'turnOnEnergy' | 'turnOffEnergy' | 'recoveryEnergy' | 'energyReferenceVoltage' | 'energyReferenceCurrent'
     | 'rthJunctionCaseSwitch' | 'rthJunctionCaseDiode' | 'rthCaseHeatsink' | 'junctionTemperatureMax'
+    | 'lossDataTemperature' | 'switchThresholdVoltage25' | 'switchSlopeResistance25' | 'diodeThresholdVoltage25' | 'diodeSlopeResistance25'
+    | 'turnOnEnergy25' | 'turnOffEnergy25' | 'recoveryEnergy25'
     | 'capacitance' | 'rippleCurrentRating' | 'esr'
     | 'priceBreaks' | 'currency' | 'minimumOrderQuantity' | 'stock' | 'leadTimeDays' | 'lifecycle'
     | 'supplier' | 'datasheetUrl' | 'description'
@@ -238,6 +240,56 @@ export const CATALOG_COLUMNS: readonly CatalogColumn[] = [
     description: 'Maximum operating junction temperature.',
     examples: { 'switch-diode': 175, 'switch': 150, 'diode': 150 },
     aliases: ['tjmax', 'tj max', 'tvj max', 'tvjop', 'tvj op', 'tj op', 'max junction temperature', 'junction temperature'],
+  },
+  // Optional second temperature: the figures above hold at "Tj of loss data"; with their 25 °C values they
+  // become linear in T_j (shared/thermal/temperature.ts). Without them the figures hold at every T_j (stated).
+  {
+    key: 'lossDataTemperature', header: 'Tj of loss data', unit: '°C', type: 'number', requiredFor: [], min: 25, max: 250,
+    description: 'Junction temperature at which V0, r and the switching energies above are given (the datasheet\'s hot value, e.g. 150 °C).',
+    examples: { 'switch-diode': 150, 'switch': 150, 'diode': 150 },
+    aliases: ['tj loss data', 'tvj of loss data', 'loss data temperature', 'data temperature'],
+  },
+  {
+    key: 'switchThresholdVoltage25', header: 'Switch V0 at 25 °C', unit: 'V', type: 'number', requiredFor: [], min: 0, max: 10,
+    description: 'Switch threshold voltage at 25 °C (optional; with it V0 is linear in T_j).',
+    examples: { 'switch-diode': 0.8 },
+    aliases: ['vce0 25', 'switch v0 25c'],
+  },
+  {
+    key: 'switchSlopeResistance25', header: 'Switch r at 25 °C', unit: 'Ω', type: 'number', requiredFor: [], min: 0, max: 10,
+    description: 'Switch slope resistance at 25 °C (optional).',
+    examples: { 'switch-diode': '1.5 mΩ' },
+    aliases: ['rce 25', 'switch r 25c'],
+  },
+  {
+    key: 'diodeThresholdVoltage25', header: 'Diode V0 at 25 °C', unit: 'V', type: 'number', requiredFor: [], min: 0, max: 10,
+    description: 'Diode threshold voltage at 25 °C (optional).',
+    examples: { 'switch-diode': 1.0 },
+    aliases: ['vf0 25', 'diode v0 25c'],
+  },
+  {
+    key: 'diodeSlopeResistance25', header: 'Diode r at 25 °C', unit: 'Ω', type: 'number', requiredFor: [], min: 0, max: 10,
+    description: 'Diode slope resistance at 25 °C (optional).',
+    examples: { 'switch-diode': '1.2 mΩ' },
+    aliases: ['rf 25', 'diode r 25c'],
+  },
+  {
+    key: 'turnOnEnergy25', header: 'Eon at 25 °C', unit: 'J', type: 'number', requiredFor: [], min: 0, max: 100,
+    description: 'Turn-on energy at 25 °C, same test voltage and current (optional).',
+    examples: { 'switch-diode': '30 mJ' },
+    aliases: ['eon 25', 'eon 25c'],
+  },
+  {
+    key: 'turnOffEnergy25', header: 'Eoff at 25 °C', unit: 'J', type: 'number', requiredFor: [], min: 0, max: 100,
+    description: 'Turn-off energy at 25 °C (optional).',
+    examples: { 'switch-diode': '38 mJ' },
+    aliases: ['eoff 25', 'eoff 25c'],
+  },
+  {
+    key: 'recoveryEnergy25', header: 'Err at 25 °C', unit: 'J', type: 'number', requiredFor: [], min: 0, max: 100,
+    description: 'Diode reverse-recovery energy at 25 °C (optional).',
+    examples: { 'switch-diode': '15 mJ' },
+    aliases: ['err 25', 'erec 25', 'err 25c'],
   },
   {
     key: 'capacitance', header: 'Capacitance', unit: 'F', type: 'number', requiredFor: ['capacitor'], min: 1e-12, max: 100,

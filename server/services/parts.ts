@@ -8,6 +8,7 @@ import { approvalRank, matchPosition, positionDutyFromCapacitor, positionDutyFro
 import { moduleCoverage, type LegPosition } from '#shared/bom/coverage'
 import type { CatalogPart } from '#shared/catalog/types'
 import type { BomSettings } from '#shared/schemas/design'
+import { efficiencyAt, headlinePoint, pointDutiesOf, totalsPerPoint } from '#shared/thermal/losses'
 import { currentCatalogue, partVersionsById } from './catalog'
 import { loadDesign } from './designs'
 
@@ -61,7 +62,8 @@ export function designPositions(input: DesignInput, result: DesignResult = withE
     const side = converter.side as 'machine' | 'grid'
     const c = side === 'grid' ? input.gridSide! : input.machineSide
     const ctx = { switchingHz: c.switchingHz, topology: c.topology, levels: c.levels }
-    for (const d of converter.envelope.devices) out.push({ side, duty: positionDutyFromDevice(d, ctx), label: `${d.kind} ${d.name}` })
+    // Ratings from the envelope; losses from each operating point's own currents and commutations.
+    for (const d of converter.envelope.devices) out.push({ side, duty: { ...positionDutyFromDevice(d, ctx), points: pointDutiesOf(converter, d.name) }, label: `${d.kind} ${d.name}` })
     for (const cap of converter.envelope.capacitors) {
       const capSide = capacitorSide(side, cap, backToBack)
       const duty = positionDutyFromCapacitor(cap, { topology: c.topology, levels: c.levels })
@@ -186,27 +188,45 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
     const nothingFits = options.summaryOnly || m.fitting + m.leftOut + (hostCandidate ? 1 : 0) > 0 ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.')
     return { side, position: duty.positionName, label, duty, candidates, hiddenCandidates, nothingFits, coveredBy, assigned }
   })
-  return { design, input, result, policy, positions, summary: lossSummary(input, positions) }
+  return { design, input, result, policy, positions, summary: lossSummary(input, positions, result) }
 }
 
-/** Losses, efficiency and cost from the assigned parts, per converter side (a shared DC link counts on the machine side). */
-export function lossSummary(input: DesignInput, positions: PositionMatch[]) {
+/**
+ * Losses, efficiency and cost from the assigned parts, per converter side (a shared DC link counts on the
+ * machine side). Losses and efficiency are summed per operating point (`perPoint`); the headline
+ * figures belong to the point with the highest losses, named in `pointName`.
+ */
+export function lossSummary(input: DesignInput, positions: PositionMatch[], result?: DesignResult) {
   const sides: ('machine' | 'grid')[] = input.gridSide ? ['machine', 'grid'] : ['machine']
   return sides.map((side) => {
     const own = positions.filter(p => p.side === side || (side === 'machine' && p.side === 'dc-link'))
     // Covered positions are inside their host's package: its losses are counted there, its cost not again.
     const assigned = own.filter(p => p.assigned?.evaluation)
-    const lossW = assigned.reduce((s, p) => s + (p.assigned!.evaluation!.losses?.perConverter ?? 0), 0)
     const cost = assigned.filter(p => !p.assigned!.coveredBy).reduce((s, p) => s + (p.assigned!.evaluation!.costPerDesign ?? 0), 0)
     const c = side === 'grid' ? input.gridSide! : input.machineSide
-    const p0 = c.operatingPoints[0]!
-    const outputW = Math.sqrt(3) * p0.lineVoltageRms * p0.phaseCurrentRms * Math.abs(p0.powerFactor)
+    const names = result?.converters.find(x => x.side === side)?.points.map(p => p.pointName) ?? c.operatingPoints.map((op, i) => op.name ?? `Point ${i + 1}`)
+    const points = c.operatingPoints.map((op, i) => ({ ...op, pointName: names[i]! }))
+    // Capacitor losses (ESR) are not per point: they are added to every point with the envelope's ripple.
+    const perPoint = totalsPerPoint(points, assigned.filter(p => p.assigned!.evaluation!.losses?.perPoint).map(p => ({
+      positionName: p.position,
+      perPoint: p.assigned!.evaluation!.losses!.perPoint!.map(l => ({ pointName: l.pointName, lossW: l.perConverter })),
+    })))
+    const envelopeOnlyW = assigned.filter(p => !p.assigned!.evaluation!.losses?.perPoint).reduce((s, p) => s + (p.assigned!.evaluation!.losses?.perConverter ?? 0), 0)
+    for (const pt of perPoint) {
+      pt.lossW += envelopeOnlyW
+      pt.efficiency = assigned.length ? efficiencyAt(pt.acPowerW, pt.lossW) : null
+    }
+    const head = headlinePoint(perPoint)
     return {
       side,
       positions: own.length,
       assignedPositions: own.filter(p => p.assigned).length,
-      semiconductorLossW: lossW,
-      efficiency: outputW > 0 && assigned.length ? outputW / (outputW + lossW) : null,
+      /** W at `pointName` */
+      semiconductorLossW: head?.lossW ?? 0,
+      efficiency: head?.efficiency ?? null,
+      /** operating point the headline loss and efficiency belong to */
+      pointName: head?.pointName ?? null,
+      perPoint: perPoint.map(pt => ({ pointName: pt.pointName, acPowerW: pt.acPowerW, lossW: pt.lossW, efficiency: pt.efficiency, positions: pt.positions })),
       costPerDesign: cost,
       maxJunctionC: Math.max(...assigned.map(p => p.assigned!.evaluation!.junctionTemperatureC ?? -Infinity)),
     }

@@ -3,6 +3,7 @@ import { evaluateDesign, EngineInputError, topologyById, type ConverterInput, ty
 import { matchPosition, type PartIndex } from '#shared/catalog/matching'
 import type { TradeStudyInput } from '#shared/schemas/trade-study'
 import type { TradeStudyRow } from '#shared/types/trade-study'
+import { headlinePoint, totalsPerPoint } from '#shared/thermal/losses'
 import { runInPool } from '../workers/pool'
 import { currentCatalog } from './catalog'
 import { designPositions, matchPolicy } from './parts'
@@ -65,15 +66,24 @@ export function tradeStudyRows(duty: TradeStudyInput, parts: PartIndex): { rows:
     const first = conv.points[0]!
     const switches = conv.envelope.devices.filter(d => d.kind === 'switch')
     const policy = matchPolicy(input, result, { buildQuantity: 1, sparesPercent: 0, manualLines: [] })
-    let lossW: number | null = 0
     let cost: number | null = 0
     const unmatched: string[] = []
+    // Losses summed per operating point (each position's figures at that point), the row shows the worst point.
+    const lossesByPosition: { positionName: string, perPoint: { pointName: string, lossW: number }[] }[] = []
+    let fixedLossW = 0
+    const lossMissing: string[] = []
     for (const { duty: d } of designPositions(input, result)) {
       const best = matchPosition(d, parts, policy, { limit: 1 }).candidates[0]
       if (!best) { unmatched.push(d.positionName); continue }
-      lossW = lossW === null || best.losses === null ? null : lossW + best.losses.perConverter
+      if (best.losses === null) lossMissing.push(`${d.positionName}: ${best.part.partNumber} lacks ${best.missingData?.join(', ') ?? 'loss data'}`)
+      else if (best.losses.perPoint) lossesByPosition.push({ positionName: d.positionName, perPoint: best.losses.perPoint.map(l => ({ pointName: l.pointName, lossW: l.perConverter })) })
+      else fixedLossW += best.losses.perConverter
       cost = cost === null || best.costPerDesign === null ? null : cost + best.costPerDesign
     }
+    const perPoint = totalsPerPoint(duty.operatingPoints.map((op, i) => ({ ...op, pointName: conv.points[i]!.pointName })), lossesByPosition)
+    for (const pt of perPoint) pt.lossW += fixedLossW
+    const head = headlinePoint(perPoint)
+    const lossW = lossMissing.length || !head ? null : head.lossW
     return {
       topology,
       levels: converter.levels ?? null,
@@ -89,6 +99,8 @@ export function tradeStudyRows(duty: TradeStudyInput, parts: PartIndex): { rows:
       highestVoltageClass: Math.max(...switches.map(s => s.voltageClass ?? Infinity)),
       lineVoltageThd: first.lineVoltageThd,
       semiconductorLossW: unmatched.length ? null : lossW,
+      ...(lossW !== null && head && !unmatched.length ? { lossPointName: head.pointName } : {}),
+      ...(lossMissing.length ? { lossMissing } : {}),
       semiconductorCost: unmatched.length ? null : cost,
       unmatched,
       warnings: [...conv.warnings, ...result.warnings],

@@ -11,10 +11,15 @@
 //               P_sw,T = f_sw·(E_on + E_off)·(Î/π)/I_ref·V_dc/V_ref,  P_rr,D = f_sw·E_rr·(Î/π)/I_ref·V_dc/V_ref.
 //               When a duty gives no switchedCurrentAvg, Î/π is used: exact for two-level and an upper
 //               bound for multilevel positions (they switch during part of their conducting half-cycle).
+//               With per-point duties (PositionDuty.points) the losses are evaluated at every operating point
+//               from that point's currents and commutations (shared/thermal/losses.ts) and the candidate
+//               carries the point with the highest total, by name; the envelope is never used for losses then.
 //   junction    T_j = T_heatsink + P·(R_th,jc + R_th,ch)            per device (no coupling between chips)
 
 import { COLUMN_BY_KEY, PACKAGE_CONFIGURATIONS, type ColumnKey, type PartKind } from '../../catalog/columns'
 import type { CapacitorEnvelope, DeviceEnvelope, TopologyId } from '../engine/types'
+import { FALLBACK_METHOD, lossesOverPoints, type PointDuty } from '../thermal/losses'
+import { hasTwoTemperatures, junctionOverPoints } from '../thermal/temperature'
 import { priceAtQuantity } from './prices'
 import type { CatalogPart, Lifecycle } from './types'
 
@@ -56,6 +61,8 @@ export interface PositionDuty {
   /** Topology, to offer leg modules only where they fit; absent = any. */
   topology?: TopologyId
   levels?: number
+  /** Semiconductors: the position's duty at each operating point; losses are then computed per point. */
+  points?: PointDuty[]
 }
 
 export interface MatchPolicy {
@@ -89,6 +96,10 @@ export interface CandidateLosses {
   total: number
   /** W for all devices of this position in one converter (phases × positions × series × parallel) */
   perConverter: number
+  /** operating point these figures belong to (the one with the highest losses), when computed per point */
+  pointName?: string
+  /** the same figures at every operating point, in the design's order */
+  perPoint?: { pointName: string, conduction: number, switching: number, total: number, perConverter: number, junctionTemperatureC?: number, junctionStatus?: 'settled' | 'above-limit' | 'runaway' }[]
 }
 
 export interface Candidate {
@@ -109,6 +120,8 @@ export interface Candidate {
   junctionTemperatureC?: number
   /** °C, T_j,max − margin */
   junctionLimitC?: number
+  /** operating point of junctionTemperatureC (the hottest), when evaluated per point */
+  junctionPointName?: string
   thermalOk: boolean
   /** Device slots of this position kind in one package. */
   slotsPerPackage: number
@@ -238,7 +251,11 @@ export function missingFigures(part: CatalogPart, duty: PositionDuty, what: read
 }
 
 /** Losses per device of a semiconductor part at the position, or null when the part lacks the data. */
-export function deviceLosses(part: CatalogPart, duty: PositionDuty, series: number, parallel: number): { conduction: number, switching: number } | null {
+export function deviceLosses(part: CatalogPart, duty: PositionDuty, series: number, parallel: number): { conduction: number, switching: number, pointName?: string, perPoint?: { pointName: string, conduction: number, switching: number, total: number }[] } | null {
+  if (duty.points?.length && duty.kind !== 'capacitor') {
+    const over = lossesOverPoints(part, duty.kind, duty.points, duty.switchingHz, series, parallel)
+    return over && { conduction: over.worst.conduction, switching: over.worst.switching, pointName: over.worst.pointName, perPoint: over.perPoint }
+  }
   const asSwitch = duty.kind === 'switch'
   const v0 = asSwitch ? part.switchThresholdVoltage : part.diodeThresholdVoltage
   const r = asSwitch ? part.switchSlopeResistance : part.diodeSlopeResistance
@@ -330,7 +347,21 @@ function rankKeys(into: RankEntry, part: CatalogPart, duty: PositionDuty, policy
       loss = round(total * devicesPerConverter, 2)
       const rthJc = duty.kind === 'switch' ? part.rthJunctionCaseSwitch : part.rthJunctionCaseDiode
       if (rthJc !== undefined && part.junctionTemperatureMax !== undefined) {
-        thermalOk = round(policy.heatsinkTemperatureC + total * (rthJc + (part.rthCaseHeatsink ?? 0)), 1) <= part.junctionTemperatureMax - policy.junctionMarginC
+        const limit = part.junctionTemperatureMax - policy.junctionMarginC
+        const rth = rthJc + (part.rthCaseHeatsink ?? 0)
+        // Single-temperature data: the settled T_j of buildCandidate is this closed form at the point with the
+        // highest losses. Two-temperature data: the same iteration buildCandidate runs.
+        const settled = duty.points?.length && hasTwoTemperatures(part)
+          ? junctionOverPoints(part, duty.kind as 'switch' | 'diode' | 'clamp-diode', duty.points, duty.switchingHz, series, parallel, policy.heatsinkTemperatureC, rth)
+          : null
+        if (settled) {
+          const head = settled.perPoint.reduce((a, b) => (round(b.loss!.total, 3) > round(a.loss!.total, 3) ? b : a))
+          loss = round(head.loss!.total * devicesPerConverter, 2)
+          thermalOk = round(settled.worst.junctionTemperatureC, 1) <= limit && settled.worst.status === 'settled'
+        }
+        else {
+          thermalOk = round(policy.heatsinkTemperatureC + total * rth, 1) <= limit
+        }
       }
     }
   }
@@ -482,6 +513,7 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
   let junctionLimitC: number | undefined
   let thermalOk = true
   let missingData: string[] | undefined
+  let candidateJunctionPoint: string | undefined
 
   if (isCapacitor) {
     const rippleNeeded = duty.requiredRippleRating ?? duty.currentRms
@@ -498,12 +530,29 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
     if (perDevice) {
       const total = perDevice.conduction + perDevice.switching
       losses = { conduction: round(perDevice.conduction, 3), switching: round(perDevice.switching, 3), total: round(total, 3), perConverter: round(total * devicesPerConverter, 2) }
+      if (perDevice.pointName !== undefined) {
+        if (perDevice.switching > 0 && duty.points?.some(p => !p.switchingDuty)) warnings.push(FALLBACK_METHOD)
+        losses.pointName = perDevice.pointName
+        losses.perPoint = perDevice.perPoint!.map(l => ({ pointName: l.pointName, conduction: round(l.conduction, 3), switching: round(l.switching, 3), total: round(l.total, 3), perConverter: round(l.total * devicesPerConverter, 2) }))
+      }
       const rthJc = duty.kind === 'switch' ? part.rthJunctionCaseSwitch : part.rthJunctionCaseDiode
       if (rthJc !== undefined && part.junctionTemperatureMax !== undefined) {
         junctionTemperatureC = round(policy.heatsinkTemperatureC + total * (rthJc + (part.rthCaseHeatsink ?? 0)), 1)
         junctionLimitC = part.junctionTemperatureMax - policy.junctionMarginC
-        thermalOk = junctionTemperatureC <= junctionLimitC
-        if (!thermalOk) warnings.push(`T_j ${junctionTemperatureC} °C exceeds ${junctionLimitC} °C (T_j,max ${part.junctionTemperatureMax} °C − ${policy.junctionMarginC} °C margin)`)
+        // Per point: T_j iterated with the (temperature-dependent) losses; losses shown at the settled T_j.
+        const settled = duty.points?.length ? junctionOverPoints(part, duty.kind as 'switch' | 'diode' | 'clamp-diode', duty.points, duty.switchingHz, series, parallel, policy.heatsinkTemperatureC, rthJc + (part.rthCaseHeatsink ?? 0)) : null
+        if (settled) {
+          const w = settled.worst
+          junctionTemperatureC = round(w.junctionTemperatureC, 1)
+          losses.perPoint = settled.perPoint.map(p => ({ pointName: p.pointName, conduction: round(p.loss!.conduction, 3), switching: round(p.loss!.switching, 3), total: round(p.loss!.total, 3), perConverter: round(p.loss!.total * devicesPerConverter, 2), junctionTemperatureC: round(p.junctionTemperatureC, 1), junctionStatus: p.status }))
+          const head = losses.perPoint.reduce((a, b) => (b.total > a.total ? b : a))
+          Object.assign(losses, { conduction: head.conduction, switching: head.switching, total: head.total, perConverter: head.perConverter, pointName: head.pointName })
+          candidateJunctionPoint = w.pointName
+          if (w.status !== 'settled') warnings.push(`${w.pointName}: ${w.note}`)
+          else if (!hasTwoTemperatures(part)) warnings.push(w.note)
+        }
+        thermalOk = junctionTemperatureC <= junctionLimitC && (!settled || settled.worst.status === 'settled')
+        if (!thermalOk) warnings.push(`T_j ${junctionTemperatureC} °C exceeds ${junctionLimitC} °C (T_j,max ${part.junctionTemperatureMax} °C − ${policy.junctionMarginC} °C margin)${candidateJunctionPoint ? ` at ${candidateJunctionPoint}` : ''}`)
         if (part.rthCaseHeatsink === undefined) warnings.push('no R_th case-heatsink in the catalogue: T_j leaves it out')
       }
       else {
@@ -553,6 +602,7 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
   if (junctionTemperatureC !== undefined) {
     candidate.junctionTemperatureC = junctionTemperatureC
     candidate.junctionLimitC = junctionLimitC
+    if (candidateJunctionPoint) candidate.junctionPointName = candidateJunctionPoint
   }
   if (part.currency) candidate.currency = part.currency
   if (part.stock !== undefined) candidate.stock = part.stock

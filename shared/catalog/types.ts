@@ -50,6 +50,16 @@ export interface CatalogPart {
   rthCaseHeatsink?: number
   /** °C */
   junctionTemperatureMax?: number
+  /** °C, junction temperature of the loss figures above (the datasheet's hot value) */
+  lossDataTemperature?: number
+  /** The same figures at 25 °C (optional): with them the figures are linear in T_j. */
+  switchThresholdVoltage25?: number
+  switchSlopeResistance25?: number
+  diodeThresholdVoltage25?: number
+  diodeSlopeResistance25?: number
+  turnOnEnergy25?: number
+  turnOffEnergy25?: number
+  recoveryEnergy25?: number
   /** F */
   capacitance?: number
   /** A RMS */

@@ -97,7 +97,8 @@ function envelopeOf(points: PointResult[], derating: DeratingPolicy, clampDiodeU
   const first = points[0]!
   const devices: DeviceEnvelope[] = first.devices.map((d0, k) => {
     const worst = { blockingVoltage: first.pointName, currentAvg: first.pointName, currentRms: first.pointName, currentPeak: first.pointName }
-    const env = { ...d0 }
+    // The envelope mixes points: the per-point switching duty stays with its point.
+    const { switchingDuty: _perPoint, ...env } = d0
     for (const pt of points) {
       const d = pt.devices[k]!
       if (d.blockingVoltageWithOvershoot > env.blockingVoltageWithOvershoot) { env.blockingVoltageWithOvershoot = d.blockingVoltageWithOvershoot; worst.blockingVoltage = pt.pointName }

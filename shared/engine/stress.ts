@@ -1,5 +1,6 @@
 // evaluateStress: one operating point of one converter → stresses of every device and capacitor position.
 import { capacitorStresses } from './capacitors'
+import { deriveCommutations, integrateSwitching } from './commutations'
 import { clampStack, defaultDerating } from './derating'
 import { EngineInputError } from './errors'
 import { DEFAULT_INTEGRATION_POINTS, integrateLeg } from './integrate'
@@ -109,6 +110,9 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
   }
 
   const devices = deviceStresses(p, leg, currents, scales, points, options.derating ?? defaultDerating, warnings)
+  // Supply 'cell': the table's unit is the cell voltage; otherwise one level step of the nominal link.
+  const switching = integrateSwitching(leg, deriveCommutations(leg), reference, currentPeak, phi, scales.unitNominal, { points, sixStep })
+  if (switching) devices.forEach((d, k) => { d.switchingDuty = switching[k]! })
   const caps = capacitorStresses({
     leg,
     reference,

@@ -86,6 +86,13 @@ export interface DeviceStress {
   seriesCount?: number
   /** V, commutated voltage per switching event (for switching losses). */
   commutatedVoltage?: number
+  /**
+   * V·A, this operating point only: mean over the fundamental period of Σ |i|·v over the device's
+   * commutations in one carrier period, by role (derived from the state table, shared/engine/commutations.ts).
+   * Switching loss = f_sw · Σ_role E_ref,role · duty_role / (I_ref · V_ref) with linear E(I, V) scaling.
+   * Absent when the state table has no commutation model (matrix converter).
+   */
+  switchingDuty?: { turnOn: number, turnOff: number, recovery: number }
   provenance: Provenance
 }
 

@@ -17,7 +17,11 @@ export interface TradeStudyRow {
   /** V; null (JSON of Infinity) when a switch needs series devices */
   highestVoltageClass?: number | null
   lineVoltageThd?: number
+  /** W, semiconductors at the operating point with the highest losses (lossPointName) */
   semiconductorLossW?: number | null
+  lossPointName?: string
+  /** why the losses are missing: position, part and the catalogue fields it lacks */
+  lossMissing?: string[]
   semiconductorCost?: number | null
   /** positions no catalogue part fits */
   unmatched?: string[]

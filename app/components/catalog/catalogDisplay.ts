@@ -141,6 +141,7 @@ export const FIELD_GROUPS: { id: string, title: string, keys: ColumnKey[] }[] = 
   { id: 'ratings', title: 'Ratings', keys: ['voltageRating', 'currentRating', 'junctionTemperatureMax'] },
   { id: 'conduction', title: 'Conduction (on-state model v = V0 + r·i, hot)', keys: ['switchThresholdVoltage', 'switchSlopeResistance', 'diodeThresholdVoltage', 'diodeSlopeResistance'] },
   { id: 'switching', title: 'Switching energies per event', keys: ['turnOnEnergy', 'turnOffEnergy', 'recoveryEnergy', 'energyReferenceVoltage', 'energyReferenceCurrent'] },
+  { id: 'temperature', title: 'Loss figures at 25 °C (optional: linear in T_j up to the data temperature)', keys: ['lossDataTemperature', 'switchThresholdVoltage25', 'switchSlopeResistance25', 'diodeThresholdVoltage25', 'diodeSlopeResistance25', 'turnOnEnergy25', 'turnOffEnergy25', 'recoveryEnergy25'] },
   { id: 'thermal', title: 'Thermal', keys: ['rthJunctionCaseSwitch', 'rthJunctionCaseDiode', 'rthCaseHeatsink'] },
   { id: 'capacitor', title: 'Capacitor', keys: ['capacitance', 'rippleCurrentRating', 'esr'] },
   { id: 'commercial', title: 'Commercial', keys: ['priceBreaks', 'currency', 'minimumOrderQuantity', 'stock', 'leadTimeDays', 'lifecycle', 'supplier'] },
