@@ -325,16 +325,22 @@ function compareRank(a: RankEntry, b: RankEntry): number {
 
 /**
  * The ranking keys of sortCandidates (T_j within its limit, approval and lifecycle, cost per design,
- * losses per converter) from numbers alone, written into `into`: ranking a large catalogue builds only
- * the candidates shown. Must agree with buildCandidate (a unit test compares the two orders).
+ * losses per converter) from numbers alone, offered to `best`: ranking a large catalogue builds only
+ * the candidates shown, and computes losses and T_j only for parts whose approval and cost could still
+ * place them in the kept list. Must agree with buildCandidate (a unit test compares the two orders).
  */
-function rankKeys(into: RankEntry, part: CatalogPart, duty: PositionDuty, policy: MatchPolicy, sizing: Sizing, slots: number, order: number): RankEntry {
+function rankInto(best: BestRanks, part: CatalogPart, duty: PositionDuty, policy: MatchPolicy, sizing: Sizing, slots: number, order: number): boolean {
   const { series, parallel } = sizing
   const devices = series * parallel
   const devicesPerConverter = devices * duty.positionsPerPhase * duty.phases
   const isCapacitor = duty.kind === 'capacitor'
   const phasesPerPackage = isCapacitor ? 1 : PACKAGE_CONFIGURATIONS[part.packageConfiguration].phasesPerPackage
   const packagesPerDesign = packagesPerConverter(duty, devices, slots, phasesPerPackage) * duty.converters
+  const price = priceAtQuantity(part.priceBreaks, packagesPerDesign * policy.buildQuantity, part.minimumOrderQuantity ?? 1)
+  const cost = price ? round(price.unitPrice * packagesPerDesign, 2) : Infinity
+  const bestGroup = approvalRank(part as CatalogPart & { approved?: boolean })
+  // Bound: even with T_j within its limit the part would rank after every kept entry, so its losses are not needed.
+  if (best.cannotEnter(bestGroup, cost)) return false
   let loss = Infinity
   let thermalOk = true
   if (isCapacitor) {
@@ -365,15 +371,16 @@ function rankKeys(into: RankEntry, part: CatalogPart, duty: PositionDuty, policy
       }
     }
   }
-  const price = priceAtQuantity(part.priceBreaks, packagesPerDesign * policy.buildQuantity, part.minimumOrderQuantity ?? 1)
+  const into = best.next()
   into.part = part
   into.slots = slots
   into.sizing = sizing
-  into.group = (thermalOk ? 0 : 6) + approvalRank(part as CatalogPart & { approved?: boolean })
-  into.cost = price ? round(price.unitPrice * packagesPerDesign, 2) : Infinity
+  into.group = (thermalOk ? 0 : 6) + bestGroup
+  into.cost = cost
   into.loss = loss
   into.order = order
-  return into
+  best.offer()
+  return true
 }
 
 /** Keeps the best `limit` rank entries seen (all of them without a limit), in order. */
@@ -383,6 +390,15 @@ class BestRanks {
   constructor(private readonly limit: number | undefined) {}
   static blank(): RankEntry {
     return { part: undefined as unknown as CatalogPart, slots: 0, sizing: { series: 0, parallel: 0 }, group: 0, cost: 0, loss: 0, order: 0 }
+  }
+
+  /** True when a part of at best this group and this cost would rank after every kept entry of a full list. */
+  cannotEnter(group: number, cost: number): boolean {
+    if (this.limit === undefined) return false
+    if (this.limit <= 0) return true
+    if (this.entries.length < this.limit) return false
+    const worst = this.entries[this.entries.length - 1]!
+    return group > worst.group || (group === worst.group && cost > worst.cost)
   }
 
   /** The entry to fill for the next part; offer() then keeps it or reuses it. */
@@ -436,8 +452,7 @@ export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] 
     if (typeof sizing === 'string') { rejected[sizing]++; continue }
     if (part.lifecycle === 'obsolete' && !policy.includeObsolete) { rejected.obsolete++; continue }
     if (options.only && !options.only(part)) { leftOut++; continue }
-    rankKeys(best.next(), part, duty, policy, sizing, slots, fitting++)
-    best.offer()
+    rankInto(best, part, duty, policy, sizing, slots, fitting++)
   }
   for (const r of best.sorted()) candidates.push(buildCandidate(r.part, duty, policy, r.sizing, r.slots))
   return { candidates, fitting, leftOut, dutyProblems, considered: index.size, rejected }
