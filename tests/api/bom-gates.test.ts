@@ -43,7 +43,8 @@ async function newDesign(eng: Client, name: string, input: unknown) {
 }
 
 async function positionsOf(c: Client, id: number, show = 'preferred'): Promise<Position[]> {
-  const r = await c.json('GET', `/api/designs/${id}/parts?show=${show}`)
+  // every candidate (not only the first 40), so a part ranked low still shows
+  const r = await c.json('GET', `/api/designs/${id}/parts?show=${show}&limit=500`)
   expect(r.status).toBe(200)
   return r.body.positions
 }
@@ -198,8 +199,12 @@ describe('module coverage', () => {
     await fillRest(eng, design.id)
     const draft = (await eng.json('GET', `/api/designs/${design.id}/bom`)).body.draft
     const line = draft.lines.find((l: { partNumber: string }) => l.partNumber === single.part.partNumber)
-    // S1: 1 per phase × 3 phases, D1 inside; S2 may take the same part (then 6) or another
-    expect([3, 6]).toContain(line.quantityPerUnit)
+    // S1: 1 package per phase × 3 phases (× its parallel count), D1 inside and not bought again; other
+    // positions may take the same part: the line is the sum of the positions' packages, D1 adding nothing.
+    const same = draft.positions.filter((p: { partNumber: string }) => p.partNumber === single.part.partNumber)
+    const s1Row = same.find((p: { position: string }) => p.position === 'S1')
+    expect(s1Row.perConverter).toBe(3 * single.parallelCount)
+    expect(line.quantityPerUnit).toBe(same.reduce((n: number, p: { perConverter: number }) => n + p.perConverter, 0))
     expect(draft.positions.find((p: { position: string }) => p.position === 'D1')).toMatchObject({ perConverter: 0, coveredBy: 'S1' })
   })
 

@@ -58,7 +58,7 @@ describe('POST /api/v1/stress', () => {
     { field: 'currentSlope', body: { topology: 'two-level', dcVoltage: 650, currentSlope: 1.1e12 }, words: /at most 10¹² A\/s/ },
     { field: 'clampDiodeUnitVoltage', body: { topology: 'diode-clamped', levels: 3, dcVoltage: 650, clampDiodeUnitVoltage: 5 }, words: /at least 10 V/ },
     { field: 'phaseCurrentRms', body: { topology: 'cascaded-h-bridge', levels: 15, dcVoltage: 12_000, lineVoltageRms: 60_000, phaseCurrentRms: 10_000 }, words: /1 GVA/ },
-    { field: 'switchingHz', body: { topology: 'two-level', dcVoltage: 650, switchingHz: 140 }, words: /at least 3 × fundamentalHz/ },
+    { field: 'switchingHz', body: { topology: 'two-level', dcVoltage: 650, switchingHz: 140 }, words: /at least 3 × “Fundamental frequency”/ },
     { field: 'powerFactorSense', body: { topology: 'two-level', dcVoltage: 650, powerFactorSense: 'ahead' }, words: /lagging .* or leading/ },
   ]
   for (const b of bounds) {

@@ -36,10 +36,11 @@ const dialogs = { accept: false }
 async function assignThroughPage(page: Page, sideLabel: string | null) {
   if (sideLabel) await page.getByRole('tab', { name: sideLabel }).click()
   const nav = page.locator('nav[aria-label="Positions"] button')
-  // A module first: the first candidate of S1 whose package covers other positions, accepting the offer.
+  // A module first: the first candidate of S1 whose package covers at least two other positions (a
+  // half-bridge: S2 and both diodes), accepting the offer.
   if (sideLabel !== 'Shared DC link') {
     await nav.filter({ hasText: 'S1' }).first().click()
-    const module = page.locator('button[data-covers]:not([data-covers=""])').first()
+    const module = page.locator('button[data-covers*=","]').first()
     await expect.poll(() => module.count()).toBeGreaterThan(0)
     dialogs.accept = true
     await module.click()

@@ -5,7 +5,11 @@ import type { CatalogPart } from '#shared/catalog/types'
 import { idParam } from '#shared/schemas/auth'
 import { restrictedFields, sees } from '#shared/roles'
 
-const query = z.object({ show: z.enum(['preferred', 'all'], { message: 'Use show=preferred or show=all' }).default('preferred') })
+const query = z.object({
+  show: z.enum(['preferred', 'all'], { message: 'Use show=preferred or show=all' }).default('preferred'),
+  /** candidates per position, best first */
+  limit: z.coerce.number().int().min(1, 'Ask for at least 1 candidate').max(500, 'Ask for at most 500 candidates per position').default(40),
+})
 
 type Assigned = NonNullable<PositionMatch['assigned']>
 /** A position as a role sees it: catalogue fields (restrictedFields.catalogue) only with catalogue read. */
@@ -31,8 +35,8 @@ function strip<T extends object>(o: T, keys: readonly string[]) {
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'designs:read')
   const { id } = paramsValid(event, idParam)
-  const { show } = queryValid(event, query)
-  const { design, positions, summary, policy } = await matchDesign(id, 40, { showAll: show === 'all' })
+  const { show, limit } = queryValid(event, query)
+  const { design, positions, summary, policy } = await matchDesign(id, limit, { showAll: show === 'all' })
   const head = { id: design.id, name: design.name, revision: design.revision }
   if (sees(user.role, 'catalogue')) {
     // Candidates refer to their part by partVersionId with a short label; the full catalogue data of
