@@ -202,22 +202,25 @@ export interface BomFileOptions {
   previous?: BomSnapshot | null
   /** only lines not yet received, grouped by supplier (purchasing's open-lines view) */
   openOnly?: boolean
+  /** the requesting user's locale for dates and numbers shown as text */
+  locale?: string
 }
 
 /** One export of a BOM: Excel workbook or PDF. */
 export async function bomFile(snapshot: BomSnapshot, format: 'xlsx' | 'pdf', options: BomFileOptions = {}) {
   const purchase = options.purchase ?? {}
+  const locale = options.locale ?? companyLocale()
   // PDFs render on the worker-thread pool (server/workers)
-  const content = format === 'xlsx' ? await bomToXlsx(snapshot, purchase, options) : await renderBomPdf(snapshot, purchase, { openOnly: options.openOnly })
+  const content = format === 'xlsx' ? await bomToXlsx(snapshot, purchase, { ...options, locale }) : await renderBomPdf(snapshot, purchase, { openOnly: options.openOnly, locale })
   return { filename: bomFileName(snapshot, format), content }
 }
 
 /** Answers a download of a released BOM, with purchasing's fields only for the roles that see them. */
-export async function sendBomFile(event: H3Event, id: number, format: 'xlsx' | 'pdf', role: Role, openOnly = false) {
+export async function sendBomFile(event: H3Event, id: number, format: 'xlsx' | 'pdf', role: Role, openOnly = false, locale?: string) {
   const row = await loadBom(id)
   const bom = bomForRole(row, await purchaseOf(id), role)
   const previous = await previousRelease(row.designId, row.revision)
-  const file = await bomFile(bom.snapshot as BomSnapshot, format, { purchase: bom.purchase, previous: previous?.snapshot as BomSnapshot | undefined, openOnly })
+  const file = await bomFile(bom.snapshot as BomSnapshot, format, { purchase: bom.purchase, previous: previous?.snapshot as BomSnapshot | undefined, openOnly, locale: locale ?? requestLocale(event) })
   setResponseHeaders(event, {
     'Content-Type': format === 'pdf' ? 'application/pdf' : 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
     'Content-Disposition': `attachment; filename="${file.filename}"`,
