@@ -239,6 +239,7 @@ function waveformSection(report: DesignReport): Content[] {
 }
 
 function spectrumSection(report: DesignReport): Content[] {
+  const n = cellIn(report.locale)
   const lines = report.spectrum ?? []
   const out: Content[] = []
   if (lines.length === 0 && report.lineVoltageThd == null) return out
