@@ -21,6 +21,5 @@ export default defineNitroPlugin(() => {
     const [row] = await useDb().select({ disabled: tables.users.disabled }).from(tables.users).where(eq(tables.users.id, remembered.id))
     for (const key of Object.keys(session)) Reflect.deleteProperty(session, key)
     session.ended = row?.disabled ? 'disabled' : 'ended'
-    session.locale = companyLocale(event)
   })
 })
