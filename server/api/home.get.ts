@@ -1,6 +1,7 @@
 import { and, desc, eq, isNull, ne, sql } from 'drizzle-orm'
 import { can } from '#shared/roles'
 import demo from '../db/demo-accounts.json'
+import { count } from '#shared/utils/format'
 
 interface Task { title: string, text: string, items?: { to: string, label: string }[], action?: { to: string, label: string } }
 
@@ -17,7 +18,7 @@ export default defineEventHandler(async (event) => {
   }
   if (can(user.role, 'catalog:write')) {
     const [pending] = await db.select({ n: sql<number>`count(*)::int` }).from(tables.parts).where(eq(tables.parts.approved, false))
-    tasks.push({ title: 'Parts catalogue', text: `${pending?.n ?? 0} part(s) wait for approval. Upload a supplier spreadsheet to add or update parts.`, action: { to: '/catalog/import', label: 'Upload spreadsheet' } })
+    tasks.push({ title: 'Parts catalogue', text: `${count(pending?.n ?? 0, 'part')} ${(pending?.n ?? 0) === 1 ? 'waits' : 'wait'} for approval. Upload a supplier spreadsheet to add or update parts.`, action: { to: '/catalog/import', label: 'Upload spreadsheet' } })
   }
   if (can(user.role, 'bom:purchase')) {
     const open = await db.select({ id: tables.boms.id, designId: tables.boms.designId, revision: tables.boms.revision, status: tables.boms.status }).from(tables.boms)
@@ -26,7 +27,7 @@ export default defineEventHandler(async (event) => {
   }
   if (can(user.role, 'users:manage')) {
     const invited = await db.select({ email: tables.users.email }).from(tables.users).where(isNull(tables.users.passwordHash))
-    tasks.push({ title: 'People', text: invited.length ? `${invited.length} invitation(s) not yet accepted.` : 'Everyone invited has signed up.', action: { to: '/admin/users', label: 'Manage people' } })
+    tasks.push({ title: 'People', text: invited.length ? `${count(invited.length, 'invitation')} not yet accepted.` : 'Everyone invited has signed up.', action: { to: '/admin/users', label: 'Manage people' } })
     tasks.push({ title: 'Outgoing mail', text: 'Check what the app sent: invitations, resets, released BOMs.', action: { to: '/admin/mail', label: 'Open mail' } })
   }
   if (user.role === 'viewer' || user.role === 'component-engineer') {

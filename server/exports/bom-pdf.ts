@@ -5,7 +5,7 @@ import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interface
 import type { BomLine, BomPurchase, BomSnapshot } from '../../shared/bom/types'
 import { gateMark } from '../../shared/bom/gates'
 import { openLinesBySupplier, supplierOf } from '../../shared/bom/purchase'
-import { DEFAULT_LOCALE, formatNumber as formatDecimal } from '../../shared/utils/format'
+import { count, DEFAULT_LOCALE, formatNumber as formatDecimal } from '../../shared/utils/format'
 import { formatDateTime, formatMoney, formatPieces, formatUnitPrice } from './format'
 import { PDF_STYLES, TABLE_LAYOUT, heading, keepHeadingsWithContent, pageFrame, renderPdf, safetyBox, type PdfFonts } from './pdf'
 
@@ -66,8 +66,8 @@ function linesTable(snapshot: BomSnapshot, locale: string): Content {
 
 function excludedNote(snapshot: BomSnapshot): Content | null {
   const parts: string[] = []
-  if (snapshot.totals.unpricedLines > 0) parts.push(`${snapshot.totals.unpricedLines} line(s) without a price`)
-  if ((snapshot.totals.otherCurrencyLines ?? 0) > 0) parts.push(`${snapshot.totals.otherCurrencyLines} line(s) priced in another currency`)
+  if (snapshot.totals.unpricedLines > 0) parts.push(`${count(snapshot.totals.unpricedLines, 'line')} without a price`)
+  if ((snapshot.totals.otherCurrencyLines ?? 0) > 0) parts.push(`${count(snapshot.totals.otherCurrencyLines ?? 0, 'line')} priced in another currency`)
   return parts.length > 0 ? { text: `Not in the total: ${parts.join(', ')}.`, italics: true, margin: [0, 3, 0, 0] } : null
 }
 

@@ -7,7 +7,7 @@ import { neutraliseFormula } from '../../shared/bom/formula-safety'
 import { diffBoms } from '../../shared/bom/diff'
 import { gateMark } from '../../shared/bom/gates'
 import { openLinesBySupplier, stockShortfall } from '../../shared/bom/purchase'
-import { DEFAULT_LOCALE, formatDateTime } from '../../shared/utils/format'
+import { count, DEFAULT_LOCALE, formatDateTime } from '../../shared/utils/format'
 
 export interface BomXlsxOptions {
   /** the previous release: adds the "Changes" sheet */
@@ -163,8 +163,8 @@ function addBomSheet(workbook: ExcelJS.Workbook, snapshot: BomSnapshot, purchase
   totalsRow.font = { bold: true }
   totalsRow.eachCell((cell) => { cell.border = { top: { style: 'thin' } } })
   const excluded = [
-    snapshot.totals.unpricedLines > 0 ? `${snapshot.totals.unpricedLines} unpriced line(s)` : '',
-    (snapshot.totals.otherCurrencyLines ?? 0) > 0 ? `${snapshot.totals.otherCurrencyLines} line(s) in another currency` : '',
+    snapshot.totals.unpricedLines > 0 ? count(snapshot.totals.unpricedLines, 'unpriced line') : '',
+    (snapshot.totals.otherCurrencyLines ?? 0) > 0 ? `${count(snapshot.totals.otherCurrencyLines ?? 0, 'line')} in another currency` : '',
   ].filter(s => s !== '')
   if (excluded.length > 0) sheet.getRow(lastLineRow + 3).getCell(letterOf('description')).value = `Not in the total: ${excluded.join(', ')}`
 }

@@ -10,7 +10,7 @@ import { sees, type Role } from '#shared/roles'
 import { topologyById, type DesignInput } from '#shared/engine'
 import type { BomSettings } from '#shared/schemas/design'
 import { formatSi } from '#shared/utils/si'
-import { formatMoney } from '#shared/utils/format'
+import { count, formatMoney } from '#shared/utils/format'
 import demo from '../db/demo-accounts.json'
 import { legPositions, matchDesign, type PositionMatch } from './parts'
 import { renderBomPdf } from '../workers/pool'
@@ -293,7 +293,7 @@ export async function releaseMail(bomId: number, releasedBy: string) {
   const files = { xlsx: await bomFile(s, 'xlsx', { previous: previous?.snapshot as BomSnapshot | undefined }), pdf: await bomFile(s, 'pdf') }
   const gated = s.lines.filter(l => l.gate?.length)
   return {
-    text: `${releasedBy} released revision ${s.revision} of the bill of materials for "${s.designName}" (design revision ${s.designRevision}).\n\n${s.totals.lines} lines, ${s.totals.pieces} pieces, ${formatMoney(s.totals.extendedPrice, s.currency, companyLocale())} at catalogue prices for ${s.buildQuantity} sets.${gated.length ? `\n\n${gated.length} line(s) hold parts that are not approved, not recommended or obsolete, released with a design engineer's recorded reason (marked in the files).` : ''}\n\nOpen it: ${appUrl(`/boms/${row.id}`)}\n\nThe Excel and PDF files are attached.\n\n${SAFETY_NOTE}\n`,
+    text: `${releasedBy} released revision ${s.revision} of the bill of materials for "${s.designName}" (design revision ${s.designRevision}).\n\n${s.totals.lines} lines, ${s.totals.pieces} pieces, ${formatMoney(s.totals.extendedPrice, s.currency, companyLocale())} at catalogue prices for ${s.buildQuantity} sets.${gated.length ? `\n\n${count(gated.length, 'line')} ${gated.length === 1 ? 'holds' : 'hold'} parts that are not approved, not recommended or obsolete, released with a design engineer's recorded reason (marked in the files).` : ''}\n\nOpen it: ${appUrl(`/boms/${row.id}`)}\n\nThe Excel and PDF files are attached.\n\n${SAFETY_NOTE}\n`,
     attachments: [
       { filename: files.xlsx.filename, content: files.xlsx.content, contentType: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet' },
       { filename: files.pdf.filename, content: files.pdf.content, contentType: 'application/pdf' },

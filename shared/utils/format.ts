@@ -106,3 +106,8 @@ export function formatDateTime(value: string | number | Date | null | undefined,
 export function decimalMark(locale: string = DEFAULT_LOCALE): ',' | '.' {
   return numberFormat(locale, {}).formatToParts(1.5).find(p => p.type === 'decimal')?.value === ',' ? ',' : '.'
 }
+
+/** A count with its noun in the right number: count(1, 'row') → "1 row", count(0, 'part') → "0 parts", count(1200, 'line') → "1,200 lines". */
+export function count(n: number, singular: string, plural = `${singular}s`, locale: string = DEFAULT_LOCALE): string {
+  return `${formatInteger(n, locale)} ${n === 1 ? singular : plural}`
+}

@@ -1,5 +1,5 @@
 // Shows a value in SI units with a prefix: 1200 → "1.2 kV" (en-GB) / "1,2 kV" (de-DE). Used by forms (display) and reports.
-import { DEFAULT_LOCALE, formatMoney as formatMoneyIn, formatNumber } from './format'
+import { DEFAULT_LOCALE, formatNumber } from './format'
 
 const PREFIXES: [number, string][] = [[1e9, 'G'], [1e6, 'M'], [1e3, 'k'], [1, ''], [1e-3, 'm'], [1e-6, 'µ'], [1e-9, 'n']]
 
@@ -10,9 +10,4 @@ export function formatSi(value: number | null | undefined, unit: string, digits 
   const [factor, prefix] = PREFIXES.find(([f]) => abs >= f * 0.9999) ?? PREFIXES[PREFIXES.length - 1]!
   const scaled = Number((value / factor).toPrecision(digits))
   return `${formatNumber(scaled, locale, { significant: digits, grouping: false })} ${prefix}${unit}`.trim()
-}
-
-/** A money amount with two decimals and its currency: 1234.5 → "1,234.50 EUR" (the one helper in ./format). */
-export function formatMoney(value: number | null | undefined, currency = 'EUR', locale: string = DEFAULT_LOCALE): string {
-  return formatMoneyIn(value, currency, locale)
 }
