@@ -37,7 +37,7 @@ async function releasedBom() {
   expect((await eng.json('PUT', `/api/designs/${design.id}/bom/settings`, { buildQuantity: 1200, sparesPercent: 10, manualLines: [{ description: 'Heatsink', quantityPerUnit: 1, unitPrice: 1234.5 }] })).status).toBe(200)
   const released = await eng.json('POST', `/api/designs/${design.id}/bom/release`)
   expect(released.status).toBe(201)
-  return { designId: design.id as number, bomId: released.body.id as number }
+  return { designId: design.id as number, bomId: released.body.id as number, designName: design.name as string }
 }
 
 async function designSheetValue(person: Client, bomId: number, label: string) {
@@ -139,5 +139,17 @@ describe('exports in the requesting user\'s locale', () => {
       // the operating point's power factor 0.9 with two decimals
       expect(reportText).toContain('0,90')
     }
+  }, 60_000)
+})
+
+describe('purchasing\'s home (issue 14 item 6)', () => {
+  it('names the design of each BOM waiting to be bought, not a row number', async () => {
+    const { bomId, designName } = await releasedBom()
+    const buyer = await signInAs('purchasing')
+    const home = await buyer.json('GET', '/api/home')
+    const task = home.body.tasks.find((t: { title: string }) => t.title === 'Bills of materials to buy')
+    const item = task.items.find((i: { to: string }) => i.to === `/boms/${bomId}`)
+    expect(item?.label).toBe(`${designName}, BOM revision 1 — released`)
+    for (const i of task.items) expect(i.label).not.toMatch(/^BOM \d/)
   }, 60_000)
 })
