@@ -111,6 +111,41 @@ describe('daily use in Chromium', () => {
     })
   }
 
+  it('People asks before a role change or disabling; the audit log filters as you type and shows details as fields', async () => {
+    const { email } = await newPerson('viewer')
+    const admin = await signInAs('admin')
+    const find = async () => (await admin.json<{ email: string, role: string, disabled: boolean }[]>('GET', '/api/admin/users')).body.find(u => u.email === email)!
+    const page = await newPage(browser)
+    await signInPage(page, 'admin')
+    await page.goto('/admin/users')
+    const row = page.locator(`tr[data-email="${email}"]`)
+    await row.getByLabel('Role of Linnea Locale').selectOption('purchasing')
+    const dialog = page.getByRole('alertdialog')
+    await dialog.getByText('Change the role of Linnea Locale from Viewer to Purchasing?').waitFor()
+    await dialog.getByRole('button', { name: 'Cancel' }).click()
+    expect((await find()).role).toBe('viewer')
+    expect(await row.getByLabel('Role of Linnea Locale').inputValue()).toBe('viewer')
+    await row.getByLabel('Role of Linnea Locale').selectOption('purchasing')
+    await dialog.getByRole('button', { name: 'Change role' }).click()
+    await expect.poll(async () => (await find()).role).toBe('purchasing')
+    await row.getByRole('button', { name: 'Disable' }).click()
+    await dialog.getByText('Disable the account of Linnea Locale?').waitFor()
+    expect((await find()).disabled).toBe(false)
+    await dialog.getByRole('button', { name: 'Disable account' }).click()
+    await expect.poll(async () => (await find()).disabled).toBe(true)
+
+    await page.goto('/admin/audit')
+    await page.getByLabel('Filter').pressSequentially(email, { delay: 5 })
+    // no Enter, no leaving the field: the filter applies as it is typed
+    await expect.poll(() => page.getByTestId('audit-count').textContent()).toMatch(/\b[3-9] entries|\b\d{2,} entries/)
+    const roleRow = page.locator('tr', { hasText: 'role changed' }).first()
+    await roleRow.getByText('From', { exact: true }).waitFor()
+    expect(await roleRow.locator('dd').allTextContents()).toEqual(expect.arrayContaining(['viewer', 'purchasing']))
+    await page.getByLabel('To (UTC)').fill('2020-01-01')
+    await expect.poll(() => page.getByTestId('audit-count').textContent()).toContain('0 entries')
+    await page.context().close()
+  })
+
   it('a role change shows in the other person\'s open tab at the next navigation; disabling sends the tab to sign-in with a note', async () => {
     const admin = await signInAs('admin')
     const users = await admin.json<{ id: number, email: string }[]>('GET', '/api/admin/users')
