@@ -41,6 +41,10 @@ export default defineNuxtConfig({
     s3AccessKeyId: '',
     s3SecretAccessKey: '',
     session: { maxAge: 60 * 60 * 12, cookie: { sameSite: 'lax' } },
+    public: {
+      // the company default locale for dates, numbers and money (NUXT_PUBLIC_LOCALE): en-GB, de-DE, sv-SE or en-US
+      locale: 'en-GB',
+    },
   },
   compatibilityDate: '2026-11-01',
   nitro: {

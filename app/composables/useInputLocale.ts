@@ -1,9 +1,9 @@
 /**
- * The locale numbers are typed and shown in (decimal mark of quantity fields). The server renders with
- * en-GB; once the page is live in the browser it follows the browser's language (plugins/input-locale.client.ts).
+ * The locale numbers are typed and shown in (decimal mark of quantity fields): the user's chosen locale, else the
+ * company default, as the session answer names it (composables/useLocale.ts), the same on the server and in the browser.
  */
 export function useInputLocale() {
-  return useState<string>('input-locale', () => 'en-GB')
+  return useLocale()
 }
 
 /** Where a form collects its fields' refusals, so results from input that is now refused can be marked. */

@@ -1,6 +1,7 @@
 import { and, desc, eq, isNull, ne, sql } from 'drizzle-orm'
 import { can } from '#shared/roles'
 import demo from '../db/demo-accounts.json'
+import { count } from '#shared/utils/format'
 
 interface Task { title: string, text: string, items?: { to: string, label: string }[], action?: { to: string, label: string } }
 
@@ -17,16 +18,17 @@ export default defineEventHandler(async (event) => {
   }
   if (can(user.role, 'catalog:write')) {
     const [pending] = await db.select({ n: sql<number>`count(*)::int` }).from(tables.parts).where(eq(tables.parts.approved, false))
-    tasks.push({ title: 'Parts catalogue', text: `${pending?.n ?? 0} part(s) wait for approval. Upload a supplier spreadsheet to add or update parts.`, action: { to: '/catalog/import', label: 'Upload spreadsheet' } })
+    tasks.push({ title: 'Parts catalogue', text: `${count(pending?.n ?? 0, 'part')} ${(pending?.n ?? 0) === 1 ? 'waits' : 'wait'} for approval. Upload a supplier spreadsheet to add or update parts.`, action: { to: '/catalog/import', label: 'Upload spreadsheet' } })
   }
   if (can(user.role, 'bom:purchase')) {
-    const open = await db.select({ id: tables.boms.id, designId: tables.boms.designId, revision: tables.boms.revision, status: tables.boms.status }).from(tables.boms)
+    const open = await db.select({ id: tables.boms.id, designName: tables.designs.name, revision: tables.boms.revision, status: tables.boms.status }).from(tables.boms)
+      .innerJoin(tables.designs, eq(tables.designs.id, tables.boms.designId))
       .where(and(ne(tables.boms.status, 'received'), ne(tables.boms.status, 'cancelled'))).orderBy(desc(tables.boms.releasedAt)).limit(8)
-    tasks.push({ title: 'Bills of materials to buy', text: open.length ? 'Released BOMs waiting for a quote, an order or delivery.' : 'Nothing waiting: engineering has not released a new BOM.', items: open.map(b => ({ to: `/boms/${b.id}`, label: `BOM ${b.id} rev. ${b.revision} — ${b.status}` })), action: { to: '/boms', label: 'All BOMs' } })
+    tasks.push({ title: 'Bills of materials to buy', text: open.length ? 'Released BOMs waiting for a quote, an order or delivery.' : 'Nothing waiting: engineering has not released a new BOM.', items: open.map(b => ({ to: `/boms/${b.id}`, label: `${b.designName}, BOM revision ${b.revision} — ${b.status.replace(/-/g, ' ')}` })), action: { to: '/boms', label: 'All BOMs' } })
   }
   if (can(user.role, 'users:manage')) {
     const invited = await db.select({ email: tables.users.email }).from(tables.users).where(isNull(tables.users.passwordHash))
-    tasks.push({ title: 'People', text: invited.length ? `${invited.length} invitation(s) not yet accepted.` : 'Everyone invited has signed up.', action: { to: '/admin/users', label: 'Manage people' } })
+    tasks.push({ title: 'People', text: invited.length ? `${count(invited.length, 'invitation')} not yet accepted.` : 'Everyone invited has signed up.', action: { to: '/admin/users', label: 'Manage people' } })
     tasks.push({ title: 'Outgoing mail', text: 'Check what the app sent: invitations, resets, released BOMs.', action: { to: '/admin/mail', label: 'Open mail' } })
   }
   if (user.role === 'viewer' || user.role === 'component-engineer') {

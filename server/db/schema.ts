@@ -17,6 +17,8 @@ export const users = pgTable('users', {
   // Bumped on disable / password change: sessions carrying an older value stop working at once.
   sessionVersion: integer('session_version').notNull().default(1),
   lastSignInAt: timestamp('last_sign_in_at', { withTimezone: true }),
+  // the person's choice for dates, numbers and money (en-GB, de-DE, sv-SE, en-US); null: the company default
+  locale: text('locale'),
   createdAt: createdAt(),
 }, t => [uniqueIndex('users_email_key').on(sql`lower(${t.email})`)])
 

@@ -5,6 +5,7 @@ import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interface
 import type { BomLine, BomPurchase, BomSnapshot } from '../../shared/bom/types'
 import { gateMark } from '../../shared/bom/gates'
 import { openLinesBySupplier, supplierOf } from '../../shared/bom/purchase'
+import { count, DEFAULT_LOCALE, formatNumber as formatDecimal } from '../../shared/utils/format'
 import { formatDateTime, formatMoney, formatPieces, formatUnitPrice } from './format'
 import { PDF_STYLES, TABLE_LAYOUT, heading, keepHeadingsWithContent, pageFrame, renderPdf, safetyBox, type PdfFonts } from './pdf'
 
@@ -19,12 +20,12 @@ function num(text: string, extra: Record<string, unknown> = {}): TableCell {
 }
 
 /** Currency shown beside the number only when the line differs from the BOM currency. */
-function price(value: number | null, line: BomLine, bomCurrency: string, unit = false): string {
-  const text = unit ? formatUnitPrice(value) : formatMoney(value)
+function price(value: number | null, line: BomLine, bomCurrency: string, locale: string, unit = false): string {
+  const text = unit ? formatUnitPrice(value, locale) : formatMoney(value, locale)
   return value !== null && line.currency !== bomCurrency ? `${text} ${line.currency}` : text
 }
 
-function linesTable(snapshot: BomSnapshot): Content {
+function linesTable(snapshot: BomSnapshot, locale: string): Content {
   const cur = snapshot.currency
   const body: TableCell[][] = [[
     header('#', 'right'), header('Part number'), header('Manufacturer'), header('Description'), header('References'),
@@ -38,19 +39,19 @@ function linesTable(snapshot: BomSnapshot): Content {
     body.push([
       num(String(i + 1)), { text: line.partNumber || '—' }, { text: line.manufacturer || '—' }, { stack: description },
       { text: line.references.join(', '), fontSize: 6.5 },
-      num(formatPieces(line.quantityPerUnit)), num(formatPieces(line.quantityBuild)), num(formatPieces(line.quantitySpares)),
-      num(formatPieces(line.quantityOrder), { bold: true }), num(formatPieces(line.priceBreakQuantity)),
-      num(price(line.unitPrice, line, cur, true)), num(price(line.extendedPrice, line, cur)),
-      num(formatPieces(line.leadTimeDays)), { text: line.lifecycle ?? '—' },
+      num(formatPieces(line.quantityPerUnit, locale)), num(formatPieces(line.quantityBuild, locale)), num(formatPieces(line.quantitySpares, locale)),
+      num(formatPieces(line.quantityOrder, locale), { bold: true }), num(formatPieces(line.priceBreakQuantity, locale)),
+      num(price(line.unitPrice, line, cur, locale, true)), num(price(line.extendedPrice, line, cur, locale)),
+      num(formatPieces(line.leadTimeDays, locale)), { text: line.lifecycle ?? '—' },
     ])
   })
   const t = snapshot.totals
   const sum = (pick: (l: BomLine) => number) => snapshot.lines.reduce((a, l) => a + pick(l), 0)
   body.push([
     { text: `Total, ${t.lines} lines`, bold: true, colSpan: 5 }, '', '', '', '',
-    num(formatPieces(sum(l => l.quantityPerUnit)), { bold: true }), num(formatPieces(sum(l => l.quantityBuild)), { bold: true }),
-    num(formatPieces(sum(l => l.quantitySpares)), { bold: true }), num(formatPieces(t.pieces), { bold: true }), '', '',
-    num(`${formatMoney(t.extendedPrice)} ${cur}`, { bold: true, colSpan: 2 }), '', '',
+    num(formatPieces(sum(l => l.quantityPerUnit), locale), { bold: true }), num(formatPieces(sum(l => l.quantityBuild), locale), { bold: true }),
+    num(formatPieces(sum(l => l.quantitySpares), locale), { bold: true }), num(formatPieces(t.pieces, locale), { bold: true }), '', '',
+    num(`${formatMoney(t.extendedPrice, locale)} ${cur}`, { bold: true, colSpan: 2 }), '', '',
   ])
   return {
     table: {
@@ -65,12 +66,12 @@ function linesTable(snapshot: BomSnapshot): Content {
 
 function excludedNote(snapshot: BomSnapshot): Content | null {
   const parts: string[] = []
-  if (snapshot.totals.unpricedLines > 0) parts.push(`${snapshot.totals.unpricedLines} line(s) without a price`)
-  if ((snapshot.totals.otherCurrencyLines ?? 0) > 0) parts.push(`${snapshot.totals.otherCurrencyLines} line(s) priced in another currency`)
+  if (snapshot.totals.unpricedLines > 0) parts.push(`${count(snapshot.totals.unpricedLines, 'line')} without a price`)
+  if ((snapshot.totals.otherCurrencyLines ?? 0) > 0) parts.push(`${count(snapshot.totals.otherCurrencyLines ?? 0, 'line')} priced in another currency`)
   return parts.length > 0 ? { text: `Not in the total: ${parts.join(', ')}.`, italics: true, margin: [0, 3, 0, 0] } : null
 }
 
-function purchaseTable(snapshot: BomSnapshot, purchase: BomPurchase): Content | null {
+function purchaseTable(snapshot: BomSnapshot, purchase: BomPurchase, locale: string): Content | null {
   const rows = snapshot.lines.map((line, i) => ({ line, i, p: purchase[line.key] })).filter(r => r.p)
   if (rows.length === 0) return null
   const cur = snapshot.currency
@@ -80,10 +81,10 @@ function purchaseTable(snapshot: BomSnapshot, purchase: BomPurchase): Content | 
   for (const { line, i, p } of rows) {
     const quoted = p!.quotedUnitPrice ?? null
     const quoteCurrency = p!.quoteCurrency ?? line.currency
-    const quotedText = (v: number | null, unit: boolean) => (v === null ? '—' : `${unit ? formatUnitPrice(v) : formatMoney(v)}${quoteCurrency !== cur ? ` ${quoteCurrency}` : ''}`)
+    const quotedText = (v: number | null, unit: boolean) => (v === null ? '—' : `${unit ? formatUnitPrice(v, locale) : formatMoney(v, locale)}${quoteCurrency !== cur ? ` ${quoteCurrency}` : ''}`)
     const status = p!.status ?? 'to-quote'
     body.push([
-      num(String(i + 1)), { text: line.partNumber || line.description }, { text: p!.supplier ?? '—' }, num(formatPieces(line.quantityOrder)),
+      num(String(i + 1)), { text: line.partNumber || line.description }, { text: p!.supplier ?? '—' }, num(formatPieces(line.quantityOrder, locale)),
       num(quotedText(quoted, true)), num(quotedText(quoted === null ? null : quoted * line.quantityOrder, false)), { text: p!.orderReference ?? '—' },
       { text: `${status}${p!.statusDates?.[status] ? ` (${p!.statusDates[status]})` : ''}` }, { text: p!.promisedDelivery ?? '—' },
     ])
@@ -94,37 +95,38 @@ function purchaseTable(snapshot: BomSnapshot, purchase: BomPurchase): Content | 
   ]
 }
 
-function positionsTable(snapshot: BomSnapshot): Content {
+function positionsTable(snapshot: BomSnapshot, locale: string): Content {
   const body: TableCell[][] = [[header('Side'), header('Position'), header('Manufacturer'), header('Part number'), header('Per converter set [pcs]', 'right'), header('In series [pcs]', 'right'), header('In parallel [pcs]', 'right'), header('Covered by')]]
   for (const p of snapshot.positions) {
-    body.push([{ text: p.side }, { text: p.position }, { text: p.manufacturer }, { text: p.partNumber }, num(formatPieces(p.perConverter)), num(formatPieces(p.seriesCount)), num(formatPieces(p.parallelCount)), { text: p.coveredBy ? `module at ${p.coveredBy}` : '' }])
+    body.push([{ text: p.side }, { text: p.position }, { text: p.manufacturer }, { text: p.partNumber }, num(formatPieces(p.perConverter, locale)), num(formatPieces(p.seriesCount, locale)), num(formatPieces(p.parallelCount, locale)), { text: p.coveredBy ? `module at ${p.coveredBy}` : '' }])
   }
   return { table: { headerRows: 1, dontBreakRows: true, widths: [50, 60, 140, 110, 70, 50, 50, '*'], body }, layout: TABLE_LAYOUT }
 }
 
 /** The BOM as PDF bytes. Fonts come from the caller (server asset or node_modules). */
-export async function bomToPdf(full: BomSnapshot, fonts: PdfFonts, purchase: BomPurchase = {}, options: { openOnly?: boolean } = {}): Promise<Buffer> {
+export async function bomToPdf(full: BomSnapshot, fonts: PdfFonts, purchase: BomPurchase = {}, options: { openOnly?: boolean, locale?: string } = {}): Promise<Buffer> {
+  const locale = options.locale ?? DEFAULT_LOCALE
   // Purchasing's open-lines view: lines not yet received, ordered by supplier.
   const snapshot = options.openOnly ? openLinesBySupplier(full, purchase) : full
   const title = `Bill of materials: ${snapshot.designName}`
-  const released = `released ${formatDateTime(snapshot.releasedAt)} by ${snapshot.releasedBy}`
+  const released = `released ${formatDateTime(snapshot.releasedAt, locale)} by ${snapshot.releasedBy}`
   const summary: TableCell[][] = [
     [header('Design'), { text: `${snapshot.designName}, revision ${snapshot.designRevision}` }, header('BOM revision'), { text: String(snapshot.revision) }],
-    [header('Topology'), { text: snapshot.topologySummary }, header('Released'), { text: `${formatDateTime(snapshot.releasedAt)} by ${snapshot.releasedBy}` }],
-    [header('Build quantity'), { text: `${formatPieces(snapshot.buildQuantity)} sets, spares ${snapshot.sparesPercent} %` }, header('Total'), { text: `${formatMoney(snapshot.totals.extendedPrice)} ${snapshot.currency}`, bold: true }],
+    [header('Topology'), { text: snapshot.topologySummary }, header('Released'), { text: `${formatDateTime(snapshot.releasedAt, locale)} by ${snapshot.releasedBy}` }],
+    [header('Build quantity'), { text: `${formatPieces(snapshot.buildQuantity, locale)} sets, spares ${snapshot.sparesPercent} %` }, header('Total'), { text: `${formatMoney(snapshot.totals.extendedPrice, locale)} ${snapshot.currency}`, bold: true }],
   ]
-  const designRows: TableCell[][] = snapshot.designSummary.map(([label, value, unit]) => [{ text: label }, num(typeof value === 'number' ? String(value) : value), { text: unit }])
+  const designRows: TableCell[][] = snapshot.designSummary.map(([label, value, unit]) => [{ text: label }, num(typeof value === 'number' ? formatDecimal(value, locale) : value), { text: unit }])
 
   const content: Content[] = [
     { text: title, style: 'h1' },
     { table: { widths: [70, '*', 70, '*'], body: summary }, layout: 'noBorders', margin: [0, 0, 0, 8] },
-    linesTable(snapshot),
+    linesTable(snapshot, locale),
   ]
   const note = excludedNote(snapshot)
   if (note) content.push(note)
-  const purchasing = purchaseTable(snapshot, purchase)
+  const purchasing = purchaseTable(snapshot, purchase, locale)
   if (purchasing) content.push(purchasing)
-  content.push(heading('Positions'), positionsTable(snapshot))
+  content.push(heading('Positions'), positionsTable(snapshot, locale))
   if (designRows.length > 0) {
     content.push(heading('Design summary'), { table: { headerRows: 0, widths: [160, 80, 40], body: designRows }, layout: TABLE_LAYOUT })
   }

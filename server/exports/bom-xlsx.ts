@@ -7,12 +7,15 @@ import { neutraliseFormula } from '../../shared/bom/formula-safety'
 import { diffBoms } from '../../shared/bom/diff'
 import { gateMark } from '../../shared/bom/gates'
 import { openLinesBySupplier, stockShortfall } from '../../shared/bom/purchase'
+import { count, DEFAULT_LOCALE, formatDateTime } from '../../shared/utils/format'
 
 export interface BomXlsxOptions {
   /** the previous release: adds the "Changes" sheet */
   previous?: BomSnapshot | null
   /** only lines not yet received, ordered by supplier */
   openOnly?: boolean
+  /** the requesting user's locale, for the text cells that carry a date (numbers stay numbers) */
+  locale?: string
 }
 
 type CellValue = string | number | null | { formula: string, result: number }
@@ -160,13 +163,13 @@ function addBomSheet(workbook: ExcelJS.Workbook, snapshot: BomSnapshot, purchase
   totalsRow.font = { bold: true }
   totalsRow.eachCell((cell) => { cell.border = { top: { style: 'thin' } } })
   const excluded = [
-    snapshot.totals.unpricedLines > 0 ? `${snapshot.totals.unpricedLines} unpriced line(s)` : '',
-    (snapshot.totals.otherCurrencyLines ?? 0) > 0 ? `${snapshot.totals.otherCurrencyLines} line(s) in another currency` : '',
+    snapshot.totals.unpricedLines > 0 ? count(snapshot.totals.unpricedLines, 'unpriced line') : '',
+    (snapshot.totals.otherCurrencyLines ?? 0) > 0 ? `${count(snapshot.totals.otherCurrencyLines ?? 0, 'line')} in another currency` : '',
   ].filter(s => s !== '')
   if (excluded.length > 0) sheet.getRow(lastLineRow + 3).getCell(letterOf('description')).value = `Not in the total: ${excluded.join(', ')}`
 }
 
-function addDesignSheet(workbook: ExcelJS.Workbook, snapshot: BomSnapshot): void {
+function addDesignSheet(workbook: ExcelJS.Workbook, snapshot: BomSnapshot, locale: string): void {
   const sheet = workbook.addWorksheet('Design', { views: [{ state: 'frozen', ySplit: 1 }] })
   sheet.columns = [{ width: 34 }, { width: 44 }, { width: 12 }]
   styleHeader(sheet.addRow(['Item', 'Value', 'Unit']))
@@ -176,7 +179,7 @@ function addDesignSheet(workbook: ExcelJS.Workbook, snapshot: BomSnapshot): void
     ['Design revision', snapshot.designRevision, ''],
     ['Topology', snapshot.topologySummary, ''],
     ['BOM revision', snapshot.revision, ''],
-    ['Released at', snapshot.releasedAt, ''],
+    ['Released at', formatDateTime(snapshot.releasedAt, locale), ''],
     ['Released by', snapshot.releasedBy, ''],
     ['Build quantity', snapshot.buildQuantity, 'sets'],
     ['Spares', snapshot.sparesPercent, '%'],
@@ -237,7 +240,7 @@ export async function bomToXlsx(full: BomSnapshot, purchase: BomPurchase = {}, o
   workbook.calcProperties = { fullCalcOnLoad: true }
 
   addBomSheet(workbook, snapshot, purchase)
-  addDesignSheet(workbook, snapshot)
+  addDesignSheet(workbook, snapshot, options.locale ?? DEFAULT_LOCALE)
   addPositionsSheet(workbook, snapshot)
   if (options.previous) addChangesSheet(workbook, full, options.previous)
   const bytes = await workbook.xlsx.writeBuffer()

@@ -73,6 +73,8 @@ export interface DesignReport {
   author: string
   /** ISO date-time */
   date: string
+  /** the requesting user's locale for numbers and dates (default en-GB) */
+  locale?: string
   topologySummary?: string
   /** [label, value, unit] */
   inputs: [string, string | number, string][]
@@ -124,18 +126,20 @@ function check(report: DesignReport): void {
 }
 
 const h = (text: string, alignment: 'left' | 'right' = 'right'): TableCell => ({ text, bold: true, alignment })
-const n = (value: number | null | undefined, digits: number): TableCell => ({ text: formatNumber(value, digits), alignment: 'right' })
+const cellIn = (locale: string | undefined) => (value: number | null | undefined, digits: number): TableCell => ({ text: formatNumber(value, digits, locale), alignment: 'right' })
 
 function table(widths: (number | string)[], head: TableCell[], rows: TableCell[][]): Content {
   return { table: { headerRows: 1, dontBreakRows: true, widths, body: [head, ...rows] }, layout: TABLE_LAYOUT }
 }
 
 function inputsTable(report: DesignReport): Content {
+  const n = cellIn(report.locale)
   return table([170, 120, 50], [h('Input', 'left'), h('Value'), h('Unit', 'left')],
     report.inputs.map(([label, value, unit]) => [{ text: label }, typeof value === 'number' ? n(value, Number.isInteger(value) ? 0 : 2) : { text: value, alignment: 'right' }, { text: unit }]))
 }
 
 function operatingPointsTable(report: DesignReport): Content {
+  const n = cellIn(report.locale)
   return table(['*', 60, 55, 40, 45, 40, 45],
     [h('Operating point', 'left'), h('V line RMS [V]'), h('I phase RMS [A]'), h('PF'), h('f [Hz]'), h('m'), h('THD [%]')],
     report.operatingPoints.map(p => [
@@ -145,6 +149,7 @@ function operatingPointsTable(report: DesignReport): Content {
 }
 
 function devicesTable(report: DesignReport): Content {
+  const n = cellIn(report.locale)
   const withConverter = report.devices.some(d => d.converter)
   const head = [
     ...(withConverter ? [h('Side', 'left')] : []), h('Position', 'left'), h('Kind', 'left'), h('Per phase'), h('Blocking [V]'), h('With overshoot [V]'),
@@ -158,6 +163,7 @@ function devicesTable(report: DesignReport): Content {
 }
 
 function capacitorsTable(report: DesignReport): Content {
+  const n = cellIn(report.locale)
   const withConverter = report.capacitors.some(c => c.converter)
   const head = [
     ...(withConverter ? [h('Side', 'left')] : []), h('Position', 'left'), h('Kind', 'left'), h('Count'), h('Voltage [V]'), h('Ripple RMS [A]'),
@@ -221,13 +227,13 @@ function waveformSection(report: DesignReport): Content[] {
   const peakOf = (values: number[]) => values.reduce((m, v) => Math.max(m, Math.abs(v)), 0)
   const peakV = peakOf(w.lineVoltage)
   const traces: Trace[] = [{ values: w.lineVoltage, colour: '#111827' }]
-  let legend = `Black: line-to-line voltage, ±${formatNumber(peakV, 0)} V full scale`
+  let legend = `Black: line-to-line voltage, ±${formatNumber(peakV, 0, report.locale)} V full scale`
   if (w.phaseCurrent) {
     const peakI = peakOf(w.phaseCurrent)
     traces.push({ values: w.phaseCurrent, colour: '#b45309', dashed: true })
-    legend += `; orange dashed: phase current, ±${formatNumber(peakI, 1)} A full scale`
+    legend += `; orange dashed: phase current, ±${formatNumber(peakI, 1, report.locale)} A full scale`
   }
-  legend += `; time axis ${formatNumber((w.time.at(-1)! - w.time[0]!) * 1000, 2)} ms, quarter divisions.`
+  legend += `; time axis ${formatNumber((w.time.at(-1)! - w.time[0]!) * 1000, 2, report.locale)} ms, quarter divisions.`
   return [
     heading(w.title ? `Waveform: ${w.title}` : 'Waveform'),
     { stack: [{ svg: waveformSvg(w.time, traces), width: 500 }, { text: legend, style: 'small', margin: [0, 2, 0, 0] }], unbreakable: true },
@@ -235,11 +241,12 @@ function waveformSection(report: DesignReport): Content[] {
 }
 
 function spectrumSection(report: DesignReport): Content[] {
+  const n = cellIn(report.locale)
   const lines = report.spectrum ?? []
   const out: Content[] = []
   if (lines.length === 0 && report.lineVoltageThd == null) return out
   out.push(heading('Line-voltage spectrum'))
-  if (report.lineVoltageThd != null) out.push({ text: `Total harmonic distortion of the line voltage (THD, full band): ${formatNumber(report.lineVoltageThd * 100, 1)} %`, margin: [0, 0, 0, 4] })
+  if (report.lineVoltageThd != null) out.push({ text: `Total harmonic distortion of the line voltage (THD, full band): ${formatNumber(report.lineVoltageThd * 100, 1, report.locale)} %`, margin: [0, 0, 0, 4] })
   if (lines.length === 0) return out
   const fundamental = lines.find(l => l.order === 1)?.amplitude
   const shown = lines.length > MAX_SPECTRUM_ROWS
@@ -255,7 +262,7 @@ function documentFor(report: DesignReport, schematic: 'draw' | { failed: string 
   const title = `Design report: ${report.designName}`
   const content: Content[] = [
     { text: title, style: 'h1' },
-    { text: [`Revision ${report.revision}`, ` · ${report.author}`, ` · ${formatDateTime(report.date)}`].join(''), margin: [0, 0, 0, 2] },
+    { text: [`Revision ${report.revision}`, ` · ${report.author}`, ` · ${formatDateTime(report.date, report.locale)}`].join(''), margin: [0, 0, 0, 2] },
   ]
   if (report.topologySummary) content.push({ text: report.topologySummary, margin: [0, 0, 0, 6] })
   content.push(heading('Inputs'), inputsTable(report))
@@ -287,7 +294,7 @@ function documentFor(report: DesignReport, schematic: 'draw' | { failed: string 
     pageOrientation: 'portrait',
     pageMargins: [30, 40, 30, 34],
     info: { title: `${title} (rev ${report.revision})`, author: report.author, subject: 'Converter design report', creator: 'Stratavolt', producer: 'Stratavolt' },
-    ...pageFrame(report.company ?? '', `${report.designName} · rev ${report.revision}`, formatDateTime(report.date), 'Stratavolt design report: a design aid; vendor datasheets govern part ratings.'),
+    ...pageFrame(report.company ?? '', `${report.designName} · rev ${report.revision}`, formatDateTime(report.date, report.locale), 'Stratavolt design report: a design aid; vendor datasheets govern part ratings.'),
     content,
     pageBreakBefore: keepHeadingsWithContent as TDocumentDefinitions['pageBreakBefore'],
     styles: PDF_STYLES as unknown as TDocumentDefinitions['styles'],

@@ -5,6 +5,7 @@ import { and, eq } from 'drizzle-orm'
 import { commitParts, type CommitSummary } from '../services/catalog'
 import { loadImportTable, previewOf, rememberChoice, settingsOf, type ImportChoice } from '../services/catalog-import'
 import { jobProgress, type JobRow } from './jobs'
+import { count } from '#shared/utils/format'
 
 export interface CatalogCommitInput { importId: number, choice: ImportChoice, leaveRefused?: number, userId: number }
 
@@ -20,7 +21,7 @@ export async function catalogCommitJob(job: JobRow): Promise<CommitSummary & { r
   const preview = previewOf(table, choice)
   if (preview.validParts === 0) throw createError({ statusCode: 422, message: 'The file holds no parts to import.' })
   if (preview.rowsWithErrors > 0 && leaveRefused !== preview.rowsWithErrors) {
-    throw createError({ statusCode: 422, message: `${preview.rowsWithErrors} row(s) have errors; confirm leaving them out (leaveRefused: ${preview.rowsWithErrors}). Nothing was imported.`, data: { issues: [{ path: 'leaveRefused', message: `Confirm leaving out ${preview.rowsWithErrors} refused row(s)` }] } })
+    throw createError({ statusCode: 422, message: `${count(preview.rowsWithErrors, 'row')} ${preview.rowsWithErrors === 1 ? 'has' : 'have'} errors; confirm leaving them out (leaveRefused: ${preview.rowsWithErrors}). Nothing was imported.`, data: { issues: [{ path: 'leaveRefused', message: `Confirm leaving out ${count(preview.rowsWithErrors, 'refused row')}` }] } })
   }
   await jobProgress(job.id, 0.1, `Writing ${preview.validParts} parts`)
   const summary = await db.transaction(async (tx) => {

@@ -17,11 +17,11 @@ export async function tradeStudyJob(job: JobRow) {
 export const jobFileKey = (jobId: string) => `jobs:${jobId}.pdf`
 
 export async function bomPdfJob(job: JobRow) {
-  const { bomId, role, openOnly } = job.input as { bomId: number, role?: Role, openOnly?: boolean }
+  const { bomId, role, openOnly, locale } = job.input as { bomId: number, role?: Role, openOnly?: boolean, locale?: string }
   // the fields the person who queued it may see (jobs made before roles travelled: the most restricted view)
   const bom = bomForRole(await loadBom(bomId), await purchaseOf(bomId), role ?? 'viewer')
   await jobProgress(job.id, 0.1, `Rendering ${(bom.snapshot as BomSnapshot).lines.length} lines`)
-  const file = await bomFile(bom.snapshot as BomSnapshot, 'pdf', { purchase: bom.purchase, openOnly })
+  const file = await bomFile(bom.snapshot as BomSnapshot, 'pdf', { purchase: bom.purchase, openOnly, locale })
   await useStorage('uploads').setItemRaw(jobFileKey(job.id), file.content)
   return { filename: file.filename, bytes: file.content.length, contentType: 'application/pdf' }
 }

@@ -10,6 +10,7 @@ import { sees, type Role } from '#shared/roles'
 import { topologyById, type DesignInput } from '#shared/engine'
 import type { BomSettings } from '#shared/schemas/design'
 import { formatSi } from '#shared/utils/si'
+import { count, formatMoney } from '#shared/utils/format'
 import demo from '../db/demo-accounts.json'
 import { legPositions, matchDesign, type PositionMatch } from './parts'
 import { renderBomPdf } from '../workers/pool'
@@ -202,22 +203,25 @@ export interface BomFileOptions {
   previous?: BomSnapshot | null
   /** only lines not yet received, grouped by supplier (purchasing's open-lines view) */
   openOnly?: boolean
+  /** the requesting user's locale for dates and numbers shown as text */
+  locale?: string
 }
 
 /** One export of a BOM: Excel workbook or PDF. */
 export async function bomFile(snapshot: BomSnapshot, format: 'xlsx' | 'pdf', options: BomFileOptions = {}) {
   const purchase = options.purchase ?? {}
+  const locale = options.locale ?? companyLocale()
   // PDFs render on the worker-thread pool (server/workers)
-  const content = format === 'xlsx' ? await bomToXlsx(snapshot, purchase, options) : await renderBomPdf(snapshot, purchase, { openOnly: options.openOnly })
+  const content = format === 'xlsx' ? await bomToXlsx(snapshot, purchase, { ...options, locale }) : await renderBomPdf(snapshot, purchase, { openOnly: options.openOnly, locale })
   return { filename: bomFileName(snapshot, format), content }
 }
 
 /** Answers a download of a released BOM, with purchasing's fields only for the roles that see them. */
-export async function sendBomFile(event: H3Event, id: number, format: 'xlsx' | 'pdf', role: Role, openOnly = false) {
+export async function sendBomFile(event: H3Event, id: number, format: 'xlsx' | 'pdf', role: Role, openOnly = false, locale?: string) {
   const row = await loadBom(id)
   const bom = bomForRole(row, await purchaseOf(id), role)
   const previous = await previousRelease(row.designId, row.revision)
-  const file = await bomFile(bom.snapshot as BomSnapshot, format, { purchase: bom.purchase, previous: previous?.snapshot as BomSnapshot | undefined, openOnly })
+  const file = await bomFile(bom.snapshot as BomSnapshot, format, { purchase: bom.purchase, previous: previous?.snapshot as BomSnapshot | undefined, openOnly, locale: locale ?? requestLocale(event) })
   setResponseHeaders(event, {
     'Content-Type': format === 'pdf' ? 'application/pdf' : 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
     'Content-Disposition': `attachment; filename="${file.filename}"`,
@@ -289,7 +293,7 @@ export async function releaseMail(bomId: number, releasedBy: string) {
   const files = { xlsx: await bomFile(s, 'xlsx', { previous: previous?.snapshot as BomSnapshot | undefined }), pdf: await bomFile(s, 'pdf') }
   const gated = s.lines.filter(l => l.gate?.length)
   return {
-    text: `${releasedBy} released revision ${s.revision} of the bill of materials for "${s.designName}" (design revision ${s.designRevision}).\n\n${s.totals.lines} lines, ${s.totals.pieces} pieces, ${s.totals.extendedPrice.toLocaleString('en', { maximumFractionDigits: 2 })} ${s.currency} at catalogue prices for ${s.buildQuantity} sets.${gated.length ? `\n\n${gated.length} line(s) hold parts that are not approved, not recommended or obsolete, released with a design engineer's recorded reason (marked in the files).` : ''}\n\nOpen it: ${appUrl(`/boms/${row.id}`)}\n\nThe Excel and PDF files are attached.\n\n${SAFETY_NOTE}\n`,
+    text: `${releasedBy} released revision ${s.revision} of the bill of materials for "${s.designName}" (design revision ${s.designRevision}).\n\n${s.totals.lines} lines, ${s.totals.pieces} pieces, ${formatMoney(s.totals.extendedPrice, s.currency, companyLocale())} at catalogue prices for ${s.buildQuantity} sets.${gated.length ? `\n\n${count(gated.length, 'line')} ${gated.length === 1 ? 'holds' : 'hold'} parts that are not approved, not recommended or obsolete, released with a design engineer's recorded reason (marked in the files).` : ''}\n\nOpen it: ${appUrl(`/boms/${row.id}`)}\n\nThe Excel and PDF files are attached.\n\n${SAFETY_NOTE}\n`,
     attachments: [
       { filename: files.xlsx.filename, content: files.xlsx.content, contentType: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet' },
       { filename: files.pdf.filename, content: files.pdf.content, contentType: 'application/pdf' },

@@ -10,6 +10,8 @@ export interface CurrentUser {
   email: string
   name: string
   role: Role
+  /** the person's chosen locale, or null for the company default */
+  locale: string | null
 }
 
 export function sha256(value: string) {
@@ -51,19 +53,19 @@ export function sessionCookie(event: H3Event): { cookie: CookieSerializeOptions 
 async function userFromBearer(event: H3Event, token: string): Promise<CurrentUser | null> {
   // One round trip: the token's owner as the database knows them now (role changes apply at once), and
   // last_used_at moved on at most once a minute, so a busy token does not write (and lock its row) per request.
-  const [row] = await useDb().execute<{ id: number, email: string, name: string, role: string, disabled: boolean }>(sql`
+  const [row] = await useDb().execute<{ id: number, email: string, name: string, role: string, disabled: boolean, locale: string | null }>(sql`
     with hit as (
-      select t.id as token_id, t.last_used_at, u.id, u.email, u.name, u.role, u.disabled
+      select t.id as token_id, t.last_used_at, u.id, u.email, u.name, u.role, u.disabled, u.locale
       from api_tokens t join users u on u.id = t.user_id
       where t.token_hash = ${sha256(token)} and t.revoked_at is null
     ), touched as (
       update api_tokens set last_used_at = now() from hit
       where api_tokens.id = hit.token_id and (hit.last_used_at is null or hit.last_used_at < now() - interval '1 minute')
     )
-    select id, email, name, role, disabled from hit`)
+    select id, email, name, role, disabled, locale from hit`)
   if (!row || row.disabled || !isRole(row.role)) return null
   event.context.viaToken = true
-  return { id: row.id, email: row.email, name: row.name, role: row.role }
+  return { id: row.id, email: row.email, name: row.name, role: row.role, locale: row.locale ?? null }
 }
 
 /** The signed-in person (session cookie, or a Bearer token on /api/v1), checked against the database on every request. */
@@ -84,7 +86,7 @@ export async function currentUser(event: H3Event): Promise<CurrentUser | null> {
       }).from(tables.users).where(eq(tables.users.id, session.user.id))
       const row = found?.row
       if (row && !found.revoked && !row.disabled && row.sessionVersion === session.sessionVersion && isRole(row.role)) {
-        user = { id: row.id, email: row.email, name: row.name, role: row.role }
+        user = { id: row.id, email: row.email, name: row.name, role: row.role, locale: row.locale ?? null }
       }
       else {
         await clearUserSession(event, sessionCookie(event))

@@ -15,7 +15,7 @@ import { compactProvenance } from './provenance'
 import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
 
 /** what the BOM PDF takes besides the snapshot and purchasing's entries */
-export interface BomPdfOptions { openOnly?: boolean }
+export interface BomPdfOptions { openOnly?: boolean, locale?: string }
 
 export type CatalogPartRow = CatalogPart & { partVersionId: number, approved: boolean }
 

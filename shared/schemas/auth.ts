@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { roles } from '../roles'
 import { dbIdValue } from './bounds'
+import { LOCALES } from '../utils/format'
 
 export const email = z.string().trim().toLowerCase().max(254).email('Enter a valid e-mail address')
 export const newPassword = z.string().min(10, 'Use at least 10 characters').max(200, 'Use at most 200 characters')
@@ -30,6 +31,11 @@ export const forgotSchema = z.object({ email })
 
 export const apiTokenCreateSchema = z.object({
   name: z.string().trim().min(1, 'Name the token (e.g. "CI script")').max(80),
+})
+
+/** A person's locale for dates, numbers and money; null goes back to the company default. */
+export const localeSettingSchema = z.object({
+  locale: z.enum(LOCALES, { message: `Choose one of: ${LOCALES.join(', ')}, or none for the company default` }).nullable(),
 })
 
 export const idParam = z.object({ id: dbIdValue })

@@ -38,6 +38,7 @@ export const FIELD_LABELS = {
   password: 'Password',
   role: 'Role',
   revision: 'Revision',
+  locale: 'Language and number format',
 } as const satisfies Record<string, string>
 
 /** The same map, looked up by any key (a path's key may have no label). */

@@ -75,7 +75,7 @@ describe('one-time links', () => {
     expect((await invitee.json('POST', '/api/auth/set-password', { token: second, password: 'second-link-password' })).status).toBe(200)
     expect((await invitee.json('GET', '/api/auth/me')).body.user.role).toBe('viewer')
     const audit = await admin.json('GET', `/api/admin/audit?q=${encodeURIComponent(email)}`)
-    const change = audit.body.find((a: { action: string }) => a.action === 'role changed')
+    const change = audit.body.rows.find((a: { action: string }) => a.action === 'role changed')
     expect(change?.details).toMatchObject({ from: 'design-engineer', to: 'viewer' })
   })
 })

@@ -53,7 +53,7 @@ describe('invitations, roles and disabling', () => {
     expect((await client().json('POST', '/api/auth/set-password', { token, password: 'another-long-password' })).status).toBe(410)
     await signIn(email, 'a-good-long-password')
     const audit = await admin.json('GET', `/api/admin/audit?q=${encodeURIComponent(email)}`)
-    expect(audit.body.map((a: { action: string }) => a.action)).toEqual(expect.arrayContaining(['user invited', 'invitation accepted', 'signed in']))
+    expect(audit.body.rows.map((a: { action: string }) => a.action)).toEqual(expect.arrayContaining(['user invited', 'invitation accepted', 'signed in']))
   })
 
   it('a role change applies at once and disabling ends the sessions', async () => {

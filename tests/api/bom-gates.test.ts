@@ -145,7 +145,7 @@ describe('approval and lifecycle gates', () => {
       expect(await pdfText(buyer, released.body.id)).toMatch(/CHECK: not approved/)
       const admin = await signInAs('admin')
       const audit = await admin.json('GET', `/api/admin/audit?q=${encodeURIComponent('BOM line acknowledged')}`)
-      expect(audit.body.some((a: { details: { reason?: string } }) => a.details?.reason === 'only qualified source for this rating')).toBe(true)
+      expect(audit.body.rows.some((a: { details: { reason?: string } }) => a.details?.reason === 'only qualified source for this rating')).toBe(true)
       const usage2 = await comp.json('GET', `/api/catalog/parts/${partId}/usage`)
       expect(usage2.body.released).toContainEqual(expect.objectContaining({ bomId: released.body.id, designId: design.id }))
     }

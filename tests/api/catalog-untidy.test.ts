@@ -65,7 +65,7 @@ describe('catalogue import: an untidy supplier sheet, without editing the file',
   it('commits the valid rows only after a confirmation naming how many are left out', async () => {
     const plain = await engineer.json('POST', `/api/catalog/imports/${importId}/commit`, choiceOf(first))
     expect(plain.status).toBe(422)
-    expect((plain.body as any).message).toMatch(/2 row\(s\) have errors\. Import the 4 valid row\(s\) and leave the 2 refused one\(s\)\?/)
+    expect((plain.body as any).message).toMatch(/2 rows have errors\. Import the 4 valid rows and leave the 2 refused ones\?/)
     expect((plain.body as any).data.refusedCount).toBe(2)
     const wrong = await engineer.json('POST', `/api/catalog/imports/${importId}/commit`, { ...choiceOf(first), leaveRefused: 1 })
     expect(wrong.status).toBe(422)

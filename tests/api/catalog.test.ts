@@ -96,7 +96,7 @@ describe('catalogue import: untidy spreadsheet to catalogue version', () => {
     const current = await engineer.json('GET', `/api/catalog/imports/${importId}`)
     const r = await engineer.json('POST', `/api/catalog/imports/${importId}/commit`, { mapping: current.body.mapping, decimalSeparator: '.' })
     expect(r.status).toBe(422)
-    expect(r.body.message).toMatch(/All 3 row\(s\) have errors; nothing can be imported/)
+    expect(r.body.message).toMatch(/All 3 rows have errors; nothing can be imported/)
     expect(r.body.data.issues.some((i: any) => i.row === 2 && i.column === 'Z')).toBe(true)
     expect((await partsMatching(engineer, prefix)).total).toBe(0)
     expect((await engineer.json('GET', `/api/catalog/imports/${importId}`)).body.import.status).toBe('preview')

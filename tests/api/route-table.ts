@@ -43,6 +43,7 @@ export const routeTable: RouteCase[] = [
   { file: 'admin/audit.get.ts', method: 'GET', path: '/api/admin/audit', access: 'audit:read' },
   { file: 'admin/mail.get.ts', method: 'GET', path: '/api/admin/mail', access: 'mail:read' },
   { file: 'admin/mail/[id].get.ts', method: 'GET', path: '/api/admin/mail/does-not-exist', access: 'mail:read' },
+  { file: 'settings/locale.put.ts', method: 'PUT', path: '/api/settings/locale', access: 'signed-in', body: { locale: 'xx-XX' } },
   { file: 'tokens.get.ts', method: 'GET', path: '/api/tokens', access: 'tokens:own' },
   { file: 'tokens.post.ts', method: 'POST', path: '/api/tokens', access: 'tokens:own', body: { name: '' } },
   { file: 'tokens/[id].delete.ts', method: 'DELETE', path: '/api/tokens/999999', access: 'tokens:own' },

@@ -6,7 +6,7 @@ import { execFileSync } from 'node:child_process'
 import { mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { afterAll, beforeAll, describe, expect, it, onTestFinished } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
 import { baseUrl, linkIn, signInAs, unique, waitForMail } from '../support/api'
 import { launch, newPage, screenshot, signInPage } from '../support/browser'
@@ -99,8 +99,12 @@ describe('back-to-back BOM with modules to purchasing in Chromium', () => {
     expect(mail.attachments.length).toBe(2)
     expect(new URL(linkIn(mail.text)).pathname).toBe(bomPath)
 
-    // Purchasing in a German locale types the quote with a decimal comma.
-    const buyerContext = await browser.newContext({ baseURL: baseUrl, viewport: { width: 1600, height: 900 }, locale: 'de-DE', acceptDownloads: true })
+    // Purchasing, who chose the German locale in the settings, types the quote with a decimal comma (the browser's
+    // own language is en-GB: the person's choice decides). Back to the company default when the test ends.
+    const buyerApi = await signInAs('purchasing')
+    expect((await buyerApi.json('PUT', '/api/settings/locale', { locale: 'de-DE' })).status).toBe(200)
+    onTestFinished(async () => { await buyerApi.json('PUT', '/api/settings/locale', { locale: null }) })
+    const buyerContext = await browser.newContext({ baseURL: baseUrl, viewport: { width: 1600, height: 900 }, locale: 'en-GB', acceptDownloads: true })
     const buyer = await buyerContext.newPage()
     buyer.on('dialog', d => void d.dismiss())
     await buyer.route(url => !url.toString().startsWith(baseUrl) && !url.toString().startsWith('data:') && !url.toString().startsWith('blob:'), route => route.abort())

@@ -59,11 +59,11 @@ describe('untidy catalogue upload in Chromium', () => {
     const commit = page.getByRole('button', { name: 'Commit as new catalogue version' })
     expect(await commit.isDisabled()).toBe(true)
     await page.getByTestId('leave-refused').check()
-    expect(await page.getByText('Import the 4 valid row(s) and leave the 2 refused row(s) out').count()).toBe(1)
+    expect(await page.getByText('Import the 4 valid rows and leave the 2 refused rows out').count()).toBe(1)
     await commit.click()
     const summary = page.getByTestId('commit-summary')
     await expect.poll(() => summary.textContent()).toMatch(/Committed as catalogue version \d+/)
-    expect(await summary.textContent()).toContain('4 added · 0 updated · 0 unchanged · 2 refused row(s) left out')
+    expect(await summary.textContent()).toContain('4 added · 0 updated · 0 unchanged · 2 refused rows left out')
     await screenshot(page, 'catalog-untidy-committed')
 
     await page.goto(`/catalog?q=${prefix}`)

@@ -1,10 +1,37 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
-import { demoEmail, signInAs } from '../support/api'
+import { client, demoEmail, linkIn, signIn, signInAs, unique, waitForMail } from '../support/api'
 import { launch, newPage, screenshot, signInPage } from '../support/browser'
 
-// Issue 14 items 2–4 in Chromium: the quantity input in the operating-point table per locale, the out-of-date
+// Issue 14 items 2–5 in Chromium: the quantity input in the operating-point table per chosen locale, the out-of-date
 // marker, a role change seen in another person's open tab, and a disabled account's tab sent to sign-in.
+
+const designInput = {
+  machineSide: {
+    topology: 'two-level', levels: 2, dcVoltage: 650, dcVoltageMax: 750, switchingHz: 6000, modulation: 'space-vector', overshootVoltage: 60,
+    operatingPoints: [{ name: 'Rated', lineVoltageRms: 400, phaseCurrentRms: 120, powerFactor: 0.9, fundamentalHz: 50 }],
+  },
+}
+
+/** A person of our own, so that a locale choice never reaches the demo accounts other tests use. */
+async function newPerson(role: string) {
+  const admin = await signInAs('admin')
+  const email = `${unique('locale')}@example.com`
+  const password = 'locale-password-123'
+  expect((await admin.json('POST', '/api/admin/users', { email, name: 'Linnea Locale', role })).status).toBe(201)
+  const token = new URL(linkIn((await waitForMail(email, 'invited')).text)).searchParams.get('token')!
+  expect((await client().json('POST', '/api/auth/set-password', { token, password })).status).toBe(200)
+  return { email, password }
+}
+
+async function signInWith(page: Page, email: string, password: string) {
+  await page.goto('/sign-in')
+  await page.getByLabel('E-mail').fill(email)
+  await page.getByLabel('Password').fill(password)
+  await page.getByRole('button', { name: 'Sign in' }).click()
+  await page.waitForURL(url => !url.pathname.startsWith('/sign-in'))
+  await page.locator('main#main').waitFor()
+}
 
 async function type(page: Page, label: string, text: string) {
   const field = page.getByLabel(label)
@@ -46,28 +73,78 @@ describe('daily use in Chromium', () => {
     await page.context().close()
   })
 
-  for (const [locale, accepted, refused, shown] of [
-    ['de-DE', '4,5 kHz', '4.5 kHz', '4,5 kHz'],
-    ['sv-SE', '4,5 kHz', '4.5 kHz', '4,5 kHz'],
-    ['en-US', '4.5 kHz', '4,5 kHz', '4.5 kHz'],
-    ['en-GB', '4.5k', '4,5 kHz', '4.5 kHz'],
+  for (const [locale, accepted, refused, shown, dateShape, sample] of [
+    ['de-DE', '4,5 kHz', '4.5 kHz', '4,5 kHz', /\d{2}\.\d{2}\.\d{4}, \d{2}:\d{2} UTC/, '1.234,5 · 1.234,50 EUR · 14.03.2026, 09:30 UTC'],
+    ['sv-SE', '4,5 kHz', '4.5 kHz', '4,5 kHz', /\d{1,2} [a-zé]+\.? \d{4} \d{2}:\d{2} UTC/, '1\u00a0234,5 · 1\u00a0234,50 EUR · 14 mars 2026 09:30 UTC'],
+    ['en-US', '4.5 kHz', '4,5 kHz', '4.5 kHz', /[A-Z][a-z]{2} \d{1,2}, \d{4}, \d{2}:\d{2} UTC/, '1,234.5 · 1,234.50 EUR · Mar 14, 2026, 09:30 UTC'],
   ] as const) {
-    it(`switching frequency in ${locale}: "${accepted}" accepted, "${refused}" refused with the decimal mark to use`, async () => {
-      const page = await newPage(browser, 1280, locale)
-      await signInPage(page, 'design-engineer')
+    it(`choosing ${locale} in the settings changes dates and numbers on the pages and the decimal mark of quantity fields ("${accepted}" accepted, "${refused}" refused), with no hydration warning`, async () => {
+      const { email, password } = await newPerson('design-engineer')
+      const api = await signIn(email, password)
+      expect((await api.json('POST', '/api/designs', { name: unique(`Locale ${locale}`), input: designInput })).status).toBe(201)
+      // the browser's own language is left at en-GB: the person's choice decides, not the browser
+      const page = await newPage(browser, 1280, 'en-GB')
+      const warnings: string[] = []
+      page.on('console', (m) => { if (m.type() === 'error' || m.type() === 'warning') warnings.push(m.text()) })
+      await signInWith(page, email, password)
+      await page.goto('/settings')
+      await expect.poll(() => page.getByTestId('locale-sample').textContent()).toContain('1,234.5 · 1,234.50 EUR · 14 Mar 2026, 09:30 UTC')
+      await page.getByLabel('Language and number format').selectOption(locale)
+      await page.getByRole('status').getByText('Saved').waitFor()
+      await expect.poll(async () => (await page.getByTestId('locale-sample').textContent())?.trim()).toBe(`Example: ${sample}`)
+
+      // a list page: the design's date in the chosen format, rendered by the server and hydrated alike
+      await page.goto('/designs')
+      await expect.poll(() => page.locator('main').textContent()).toMatch(dateShape)
+
       await page.goto('/designs/new')
       await page.locator('tr[data-position="Dc1+"]').first().waitFor()
-      // once the page is live it shows numbers in the browser's format (the DC link 1100 V)
       const comma = locale === 'de-DE' || locale === 'sv-SE'
-      await expect.poll(() => page.getByLabel('DC link, nominal').inputValue()).toBe(comma ? '1,1 kV' : '1.1 kV')
+      expect(await page.getByLabel('DC link, nominal').inputValue()).toBe(comma ? '1,1 kV' : '1.1 kV')
       const field = await type(page, 'Switching frequency [Hz]', refused)
       await page.getByText(`your number format (${locale}) uses "${comma ? ',' : '.'}"`).waitFor()
       await type(page, 'Switching frequency [Hz]', accepted)
       await expect.poll(() => field.inputValue()).toBe(shown)
       await expect.poll(() => page.getByTestId('out-of-date').count()).toBe(0)
+      expect(warnings.filter(w => /hydration/i.test(w))).toEqual([])
       await page.context().close()
     })
   }
+
+  it('People asks before a role change or disabling; the audit log filters as you type and shows details as fields', async () => {
+    const { email } = await newPerson('viewer')
+    const admin = await signInAs('admin')
+    const find = async () => (await admin.json<{ email: string, role: string, disabled: boolean }[]>('GET', '/api/admin/users')).body.find(u => u.email === email)!
+    const page = await newPage(browser)
+    await signInPage(page, 'admin')
+    await page.goto('/admin/users')
+    const row = page.locator(`tr[data-email="${email}"]`)
+    await row.getByLabel('Role of Linnea Locale').selectOption('purchasing')
+    const dialog = page.getByRole('alertdialog')
+    await dialog.getByText('Change the role of Linnea Locale from Viewer to Purchasing?').waitFor()
+    await dialog.getByRole('button', { name: 'Cancel' }).click()
+    expect((await find()).role).toBe('viewer')
+    expect(await row.getByLabel('Role of Linnea Locale').inputValue()).toBe('viewer')
+    await row.getByLabel('Role of Linnea Locale').selectOption('purchasing')
+    await dialog.getByRole('button', { name: 'Change role' }).click()
+    await expect.poll(async () => (await find()).role).toBe('purchasing')
+    await row.getByRole('button', { name: 'Disable' }).click()
+    await dialog.getByText('Disable the account of Linnea Locale?').waitFor()
+    expect((await find()).disabled).toBe(false)
+    await dialog.getByRole('button', { name: 'Disable account' }).click()
+    await expect.poll(async () => (await find()).disabled).toBe(true)
+
+    await page.goto('/admin/audit')
+    await page.getByLabel('Filter').pressSequentially(email, { delay: 5 })
+    // no Enter, no leaving the field: the filter applies as it is typed
+    await expect.poll(() => page.getByTestId('audit-count').textContent()).toMatch(/\b[3-9] entries|\b\d{2,} entries/)
+    const roleRow = page.locator('tr', { hasText: 'role changed' }).first()
+    await roleRow.getByText('From', { exact: true }).waitFor()
+    expect(await roleRow.locator('dd').allTextContents()).toEqual(expect.arrayContaining(['viewer', 'purchasing']))
+    await page.getByLabel('To (UTC)').fill('2020-01-01')
+    await expect.poll(() => page.getByTestId('audit-count').textContent()).toContain('0 entries')
+    await page.context().close()
+  })
 
   it('a role change shows in the other person\'s open tab at the next navigation; disabling sends the tab to sign-in with a note', async () => {
     const admin = await signInAs('admin')

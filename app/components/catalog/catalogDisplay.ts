@@ -7,6 +7,8 @@ import {
 import type { MappingSuggestion, MatchReason } from '#shared/catalog/mapping'
 import type { CatalogPart, ColumnMapping, PriceBreak, TableProblem, ValidationIssue } from '#shared/catalog/types'
 import { formatSi } from '#shared/utils/si'
+import { formatDateTime, formatInteger, formatMoney, formatNumber } from '#shared/utils/format'
+import { activeLocale } from '~/composables/useLocale'
 
 export { CATALOG_COLUMNS, COLUMN_BY_KEY, LIFECYCLES, PART_KINDS }
 
@@ -96,13 +98,12 @@ export const reasonLabels: Record<MatchReason, string> = {
 }
 
 export function money(value: number | null | undefined, currency?: string | null): string {
-  if (value === null || value === undefined) return '—'
-  return `${value.toLocaleString('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 })}${currency ? ` ${currency}` : ''}`
+  return formatMoney(value, currency ?? null, activeLocale())
 }
 
 export function formatPriceBreaksText(breaks: readonly PriceBreak[], currency?: string | null): string {
   if (!breaks.length) return '—'
-  return breaks.map(b => `from ${b.minQuantity.toLocaleString('en-GB')} pcs: ${money(b.unitPrice, currency)}`).join('; ')
+  return breaks.map(b => `from ${formatInteger(b.minQuantity, activeLocale())} pcs: ${money(b.unitPrice, currency)}`).join('; ')
 }
 
 /** Units shown with an SI prefix ("2.1 mΩ", "45 mJ", "500 µF"); volts and amperes only from 1 k up ("0.9 V", "1.2 kV"). */
@@ -110,13 +111,13 @@ const PREFIXED_UNITS = new Set(['Ω', 'J', 'F'])
 const KILO_UNITS = new Set(['V', 'A'])
 
 function plainNumber(value: number): string {
-  return Number(value.toPrecision(6)).toLocaleString('en-GB', { maximumFractionDigits: 6 })
+  return formatNumber(Number(value.toPrecision(6)), activeLocale(), { maxDecimals: 6 })
 }
 
 /** One quantity in a column's unit as the UI shows it. */
 export function formatQuantity(value: number | null | undefined, unit: string): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—'
-  if (PREFIXED_UNITS.has(unit) || (KILO_UNITS.has(unit) && Math.abs(value) >= 1000)) return formatSi(value, unit, 4)
+  if (PREFIXED_UNITS.has(unit) || (KILO_UNITS.has(unit) && Math.abs(value) >= 1000)) return formatSi(value, unit, 4, activeLocale())
   if (unit === 'd') return `${plainNumber(value)} ${value === 1 ? 'day' : 'days'}`
   if (unit === 'pcs') return `${plainNumber(value)} pcs`
   return unit ? `${plainNumber(value)} ${unit}` : plainNumber(value)
@@ -178,6 +179,5 @@ export function formatBytes(bytes: number): string {
 }
 
 export function formatDate(value: string | Date | null | undefined): string {
-  if (!value) return '—'
-  return new Date(value).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })
+  return formatDateTime(value, activeLocale())
 }

@@ -29,7 +29,7 @@ export default defineEventHandler(async (event) => {
   }
   await clearSignInFailures(email)
   await db.update(tables.users).set({ lastSignInAt: new Date() }).where(eq(tables.users.id, user.id))
-  const sessionUser = { id: user.id, email: user.email, name: user.name, role: user.role }
+  const sessionUser = { id: user.id, email: user.email, name: user.name, role: user.role, locale: user.locale ?? null }
   await startSession(event, sessionUser, user.sessionVersion)
   await audit(event, 'signed in', { actorId: user.id, actorEmail: user.email })
   return { user: sessionUser }

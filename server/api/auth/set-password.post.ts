@@ -13,7 +13,7 @@ export default defineEventHandler(async (event) => {
   }
   await clearSignInFailures(user.email.toLowerCase())
   await audit(event, result.purpose === 'invite' ? 'invitation accepted' : 'password reset', { actorId: user.id, actorEmail: user.email })
-  const sessionUser = { id: user.id, email: user.email, name: user.name, role: user.role }
+  const sessionUser = { id: user.id, email: user.email, name: user.name, role: user.role, locale: user.locale ?? null }
   await startSession(event, sessionUser, user.sessionVersion)
   return { user: sessionUser }
 })

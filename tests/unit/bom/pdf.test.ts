@@ -83,7 +83,7 @@ describe('bomToPdf', () => {
     expect(text).toContain('BOM rev 2')
     expect(text).toContain('Brennholm Drives AB')
     expect(text).toContain('Emil Sandberg')
-    expect(text).toContain('2026-03-14')
+    expect(text).toContain('released 14 Mar 2026, 09:30 UTC by')
     expect(text).toContain('ORS-IG12-150')
     // 28443.70 EUR, worked by hand in build.test.ts
     expect(formatMoney(snapshot.totals.extendedPrice)).toBe('28,443.70')
@@ -95,6 +95,17 @@ describe('bomToPdf', () => {
     // characters outside Latin-1 survive (µ in a description, × in references)
     expect(text).toContain('500 µF')
     expect(text).toContain('machine S1 (×3)')
+  })
+
+  it.skipIf(!hasPdfToText)('writes dates, pieces and money in the requesting user\'s locale (de-DE: "14.03.2026, 09:30 UTC", "28.443,70 EUR") [skipped when /usr/bin/pdftotext is missing]', async () => {
+    const snapshot = demoSnapshot()
+    const text = flat(pdfText(await bomToPdf(snapshot, fonts, {}, { locale: 'de-DE' })))
+    expect(text).toContain('released 14.03.2026, 09:30 UTC by')
+    expect(text).toContain('28.443,70 EUR')
+    expect(text).not.toContain('28,443.70')
+    const us = flat(pdfText(await bomToPdf(snapshot, fonts, {}, { locale: 'en-US' })))
+    expect(us).toContain('released Mar 14, 2026, 09:30 UTC by')
+    expect(us).toContain('28,443.70 EUR')
   })
 
   it('an empty BOM still renders (header, totals row, safety note)', async () => {
@@ -159,6 +170,14 @@ describe('designReportPdf', () => {
       'Dc1+', 'clamp-diode', '509.1', 'Required V rating [V]', '4,700', 'Amplitude [V peak]', '21.6', '31.0 %', 'brake chopper threshold',
       'LEGLABEL-S1', 'IEC 61800-5-1', 'page 1 of',
     ]) expect(text, expected).toContain(expected)
+  })
+
+  it.skipIf(!hasPdfToText)('writes numbers and the date in the report\'s locale (de-DE: "509,1", "4.700", "31,0 %", "14.03.2026, 09:30 UTC") [skipped when /usr/bin/pdftotext is missing]', async () => {
+    const text = flat(pdfText(await designReportPdf(report({ locale: 'de-DE' }), fonts)))
+    for (const expected of ['509,1', '4.700', '31,0 %', '14.03.2026, 09:30 UTC']) expect(text, expected).toContain(expected)
+    expect(text).not.toContain('509.1')
+    const gb = flat(pdfText(await designReportPdf(report(), fonts)))
+    expect(gb).toContain('14 Mar 2026, 09:30 UTC')
   })
 
   it('never fetches what an SVG links to', async () => {

@@ -106,6 +106,18 @@ describe('bomToXlsx read back with exceljs', async () => {
 })
 
 describe('bomToXlsx edge cases', () => {
+  it('writes the release moment as text in the requesting user\'s locale; numbers stay numbers', async () => {
+    const releasedAt = async (locale?: string) => {
+      const design = (await readBack(await bomToXlsx(demoSnapshot(), {}, { locale }))).getWorksheet('Design')!
+      const row = design.getRows(1, design.rowCount)!.find(r => r.getCell(1).value === 'Released at')!
+      const dc = design.getRows(1, design.rowCount)!.find(r => r.getCell(1).value === 'DC link worst case')!
+      return { text: row.getCell(2).value, dc: dc.getCell(2).value }
+    }
+    expect(await releasedAt()).toEqual({ text: '14 Mar 2026, 09:30 UTC', dc: 1200 })
+    expect(await releasedAt('de-DE')).toEqual({ text: '14.03.2026, 09:30 UTC', dc: 1200 })
+    expect(await releasedAt('sv-SE')).toEqual({ text: '14 mars 2026 09:30 UTC', dc: 1200 })
+  })
+
   it('an empty BOM still has its header, filter and zero totals', async () => {
     const empty = { ...demoSnapshot(), lines: [], positions: [], totals: { lines: 0, pieces: 0, extendedPrice: 0, unpricedLines: 0 } }
     const sheet = (await readBack(await bomToXlsx(empty))).getWorksheet('BOM')!

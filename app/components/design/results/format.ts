@@ -1,4 +1,10 @@
-// Display formatting for result numbers: SI prefixes, three significant digits. No engineering here.
+// Display formatting for result numbers: SI prefixes, three significant digits, the active locale's decimal
+// mark. No engineering here.
+import { decimalMark } from '#shared/utils/format'
+import { activeLocale } from '~/composables/useLocale'
+
+/** The number text with the active locale's decimal mark. */
+const localised = (text: string) => (decimalMark(activeLocale()) === ',' ? text.replace('.', ',') : text)
 
 const PREFIXES: { symbol: string, factor: number }[] = [
   { symbol: 'G', factor: 1e9 },
@@ -23,7 +29,7 @@ export function formatSI(value: number | null | undefined, unit: string, digits 
   const prefix = PREFIXES.find(p => magnitude >= p.factor * (1 - 1e-12)) ?? PREFIXES[PREFIXES.length - 1]!
   const mantissa = (rounded / prefix.factor).toPrecision(digits)
   const text = mantissa.includes('e') ? String(Number(mantissa)) : mantissa
-  return `${text.replace('-', '−')} ${prefix.symbol}${unit}`
+  return `${localised(text).replace('-', '−')} ${prefix.symbol}${unit}`
 }
 
 /** Below this magnitude a voltage or current is numerical noise of the integration: shown as 0. */
@@ -43,13 +49,13 @@ export const formatFrequency = (hertz: number | null | undefined): string => for
 export function formatPercent(fraction: number | null | undefined, digits = 3): string {
   if (fraction === null || fraction === undefined || !Number.isFinite(fraction)) return DASH
   if (fraction === 0) return '0 %'
-  return `${Number((fraction * 100).toPrecision(digits))} %`
+  return `${localised(String(Number((fraction * 100).toPrecision(digits))))} %`
 }
 
 /** plain number (modulation index, ratios) to `digits` significant digits */
 export function formatNumber(value: number | null | undefined, digits = 3): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return DASH
-  return String(Number(value.toPrecision(digits))).replace('-', '−')
+  return localised(String(Number(value.toPrecision(digits)))).replace('-', '−')
 }
 
 /** whole counts */

@@ -15,7 +15,7 @@ export default defineEventHandler(async (event) => {
   const { id } = paramsValid(event, idParam)
   const { open, async } = queryValid(event, exportQuery)
   if (async === '1' || (await loadBom(id).then(b => (b.snapshot as BomSnapshot).lines.length)) > QUEUE_FROM_LINES) {
-    const jobId = await enqueue('bom-pdf', { bomId: id, role: user.role, openOnly: open === '1' }, user.id)
+    const jobId = await enqueue('bom-pdf', { bomId: id, role: user.role, openOnly: open === '1', locale: requestLocale(event) }, user.id)
     setResponseStatus(event, 202)
     return { jobId, status: 'queued', file: `/api/jobs/${jobId}/file` }
   }

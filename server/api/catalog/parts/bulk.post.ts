@@ -2,6 +2,7 @@ import { inArray, eq } from 'drizzle-orm'
 import { commitParts } from '~~/server/services/catalog'
 import { partsBulkSchema } from '#shared/schemas/catalog'
 import type { CatalogPart } from '#shared/catalog/types'
+import { count } from '#shared/utils/format'
 
 // Approve, or change the lifecycle of, many parts at once: `confirm` must name how many change.
 // A lifecycle change is one new catalogue version for all of them; approval is a flag on the part.
@@ -21,8 +22,8 @@ export default defineEventHandler(async (event) => {
     if (approved !== undefined) await tx.update(tables.parts).set({ approved }).where(inArray(tables.parts.id, unique))
     if (lifecycle === undefined) return null
     const parts = rows.map(r => ({ ...(r.data as CatalogPart), lifecycle }))
-    return commitParts(tx, parts, { userId: user.id, note: `Lifecycle of ${parts.length} part(s) set to ${lifecycle}`, approve: false })
+    return commitParts(tx, parts, { userId: user.id, note: `Lifecycle of ${count(parts.length, 'part')} set to ${lifecycle}`, approve: false })
   })
-  await audit(event, 'parts changed in bulk', { subject: `${unique.length} part(s)`, details: { approved, lifecycle, ids: unique.slice(0, 100) } })
+  await audit(event, 'parts changed in bulk', { subject: count(unique.length, 'part'), details: { approved, lifecycle, ids: unique.slice(0, 100) } })
   return { changed: unique.length, approved: approved ?? null, lifecycle: lifecycle ?? null, catalogVersion: summary?.number ?? null }
 })

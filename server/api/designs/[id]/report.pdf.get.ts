@@ -33,6 +33,7 @@ export default defineEventHandler(async (event) => {
     revision: rev,
     author: row.author ?? '—',
     date: new Date(row.createdAt).toISOString(),
+    locale: requestLocale(event),
     topologySummary: topologySummary(input),
     inputs,
     operatingPoints: preview.result.converters.flatMap(c => c.points.map((pt) => {

@@ -6,6 +6,7 @@ import type { ImportSettings } from '#shared/catalog/types'
 import { loadImportTable, previewOf, type ImportChoice } from '~~/server/services/catalog-import'
 import { enqueue, jobAnswer, waitForJob } from '~~/server/queue/jobs'
 import type { CatalogCommitInput } from '~~/server/queue/catalog-commit'
+import { count } from '#shared/utils/format'
 
 const commitQuery = z.object({ async: z.enum(['0', '1'], { message: 'Use async=1 to follow the commit as a job' }).optional() })
 
@@ -26,13 +27,13 @@ export default defineEventHandler(async (event) => {
   // refuse at once what the job would refuse, so the page hears it without waiting for a worker
   const preview = previewOf(await loadImportTable(row, choice.headerRow), choice)
   if (preview.validParts === 0) {
-    throw createError({ statusCode: 422, message: preview.rowsWithErrors ? `All ${preview.rowsWithErrors} row(s) have errors; nothing can be imported. Fix the file or the mapping.` : 'The file holds no parts to import.', data: { issues: preview.issues.slice(0, 50) } })
+    throw createError({ statusCode: 422, message: preview.rowsWithErrors ? `${preview.rowsWithErrors === 1 ? 'The only row has' : `All ${preview.rowsWithErrors} rows have`} errors; nothing can be imported. Fix the file or the mapping.` : 'The file holds no parts to import.', data: { issues: preview.issues.slice(0, 50) } })
   }
   if (preview.rowsWithErrors > 0 && leaveRefused !== preview.rowsWithErrors) {
     throw createError({
       statusCode: 422,
-      message: `${preview.rowsWithErrors} row(s) have errors. Import the ${preview.validParts} valid row(s) and leave the ${preview.rowsWithErrors} refused one(s)? Confirm with leaveRefused: ${preview.rowsWithErrors}. Nothing was imported.`,
-      data: { refusedCount: preview.rowsWithErrors, validParts: preview.validParts, issues: [{ path: 'leaveRefused', message: `Confirm leaving out ${preview.rowsWithErrors} refused row(s)` }, ...preview.issues.slice(0, 50).map(i => ({ path: `row ${i.row}`, message: i.message }))] },
+      message: `${count(preview.rowsWithErrors, 'row')} ${preview.rowsWithErrors === 1 ? 'has' : 'have'} errors. Import the ${count(preview.validParts, 'valid row')} and leave the ${count(preview.rowsWithErrors, 'refused one', 'refused ones')}? Confirm with leaveRefused: ${preview.rowsWithErrors}. Nothing was imported.`,
+      data: { refusedCount: preview.rowsWithErrors, validParts: preview.validParts, issues: [{ path: 'leaveRefused', message: `Confirm leaving out ${count(preview.rowsWithErrors, 'refused row')}` }, ...preview.issues.slice(0, 50).map(i => ({ path: `row ${i.row}`, message: i.message }))] },
     })
   }
   const input: CatalogCommitInput = { importId: id, choice, leaveRefused, userId: user.id }
