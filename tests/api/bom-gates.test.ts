@@ -199,12 +199,12 @@ describe('module coverage', () => {
     await fillRest(eng, design.id)
     const draft = (await eng.json('GET', `/api/designs/${design.id}/bom`)).body.draft
     const line = draft.lines.find((l: { partNumber: string }) => l.partNumber === single.part.partNumber)
-    // S1: the packages matching counted for it (one per phase and device, 3 × series × parallel), D1 inside and
-    // not bought again; other positions may take the same part: the line is the sum of the positions' packages.
+    // S1 hosts D1: at least the packages S1 itself needs (more when D1 needs more devices than S1), D1 not
+    // bought again; other positions may take the same part: the line is the sum of the positions' packages.
     const same = draft.positions.filter((p: { partNumber: string }) => p.partNumber === single.part.partNumber)
     const s1Row = same.find((p: { position: string }) => p.position === 'S1')
-    expect(s1Row.perConverter).toBe(single.packagesPerConverter)
-    expect(s1Row.perConverter).toBe(3 * single.seriesCount * single.parallelCount)
+    expect(s1Row.perConverter).toBeGreaterThanOrEqual(single.packagesPerConverter)
+    expect(s1Row.perConverter % 3).toBe(0)
     expect(line.quantityPerUnit).toBe(same.reduce((n: number, p: { perConverter: number }) => n + p.perConverter, 0))
     expect(draft.positions.find((p: { position: string }) => p.position === 'D1')).toMatchObject({ perConverter: 0, coveredBy: 'S1' })
   })
