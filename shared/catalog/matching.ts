@@ -182,7 +182,7 @@ export function slotsPerPackage(part: Pick<CatalogPart, 'kind' | 'packageConfigu
   }
 }
 
-function fitsTopology(part: CatalogPart, duty: PositionDuty): boolean {
+function fitsTopology(part: PartFigures, duty: PositionDuty): boolean {
   const cfg = PACKAGE_CONFIGURATIONS[part.packageConfiguration]
   if (!cfg?.topologies || !duty.topology) return true
   if (!cfg.topologies.includes(duty.topology)) return false
@@ -208,7 +208,7 @@ function round(value: number, digits = 2): number {
 
 interface Sizing { series: number, parallel: number }
 
-function semiconductorSizing(part: CatalogPart, duty: PositionDuty, maxSeries: number, maxParallel: number, parallelSharing: number, seriesSharing: number): Sizing | 'voltage' | 'current' | 'missingData' {
+function semiconductorSizing(part: PartFigures, duty: PositionDuty, maxSeries: number, maxParallel: number, parallelSharing: number, seriesSharing: number): Sizing | 'voltage' | 'current' | 'missingData' {
   const rating = part.voltageRating
   const current = part.currentRating
   if (!(rating > 0) || !(current !== undefined && current > 0)) return 'missingData'
@@ -222,7 +222,7 @@ function semiconductorSizing(part: CatalogPart, duty: PositionDuty, maxSeries: n
   return { series, parallel }
 }
 
-function capacitorSizing(part: CatalogPart, duty: PositionDuty, maxSeries: number, maxParallel: number): Sizing | 'voltage' | 'current' | 'capacitance' | 'missingData' {
+function capacitorSizing(part: PartFigures, duty: PositionDuty, maxSeries: number, maxParallel: number): Sizing | 'voltage' | 'current' | 'capacitance' | 'missingData' {
   const rating = part.voltageRating
   const ripple = part.rippleCurrentRating
   const capacitance = part.capacitance
@@ -444,13 +444,15 @@ export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] 
   const best = new BestRanks(options.limit)
   let fitting = 0
   let leftOut = 0
-  for (const { part, slots } of pool) {
-    if (!fitsTopology(part, duty)) { rejected.wrongTopology++; continue }
+  // The checks read the entry's compact copy of the figures (laid out together when the index was built), and
+  // the part itself only once it fits: on a large catalogue most of the time went into fetching parts' memory.
+  for (const { part, slots, figures } of pool) {
+    if (!fitsTopology(figures, duty)) { rejected.wrongTopology++; continue }
     const sizing = isCapacitor
-      ? capacitorSizing(part, duty, maxSeries, maxParallel)
-      : semiconductorSizing(part, duty, maxSeries, maxParallel, parallelSharing, seriesSharing)
+      ? capacitorSizing(figures, duty, maxSeries, maxParallel)
+      : semiconductorSizing(figures, duty, maxSeries, maxParallel, parallelSharing, seriesSharing)
     if (typeof sizing === 'string') { rejected[sizing]++; continue }
-    if (part.lifecycle === 'obsolete' && !policy.includeObsolete) { rejected.obsolete++; continue }
+    if (figures.lifecycle === 'obsolete' && !policy.includeObsolete) { rejected.obsolete++; continue }
     if (options.only && !options.only(part)) { leftOut++; continue }
     rankInto(best, part, duty, policy, sizing, slots, fitting++)
   }
@@ -477,17 +479,31 @@ export function rateAssignment(part: CatalogPart, duty: PositionDuty, policy: Ma
 export interface PartIndex {
   readonly kind: 'part-index'
   readonly size: number
-  readonly byPosition: Readonly<Record<PositionKind, readonly { part: CatalogPart, slots: number }[]>>
+  readonly byPosition: Readonly<Record<PositionKind, readonly { part: CatalogPart, slots: number, figures: PartFigures }[]>>
+}
+
+/** The figures the fit and sizing checks read, copied out of the part in one shape. */
+type PartFigures = Pick<CatalogPart, 'packageConfiguration' | 'voltageRating' | 'currentRating' | 'rippleCurrentRating' | 'capacitance' | 'lifecycle'>
+
+function figuresOf(part: CatalogPart): PartFigures {
+  return {
+    packageConfiguration: part.packageConfiguration,
+    voltageRating: part.voltageRating,
+    currentRating: part.currentRating,
+    rippleCurrentRating: part.rippleCurrentRating,
+    capacitance: part.capacitance,
+    lifecycle: part.lifecycle,
+  }
 }
 
 const POSITION_KINDS: readonly PositionKind[] = ['switch', 'diode', 'clamp-diode', 'capacitor']
 
 export function indexParts(parts: readonly CatalogPart[]): PartIndex {
-  const byPosition: Record<PositionKind, { part: CatalogPart, slots: number }[]> = { 'switch': [], 'diode': [], 'clamp-diode': [], 'capacitor': [] }
+  const byPosition: Record<PositionKind, { part: CatalogPart, slots: number, figures: PartFigures }[]> = { 'switch': [], 'diode': [], 'clamp-diode': [], 'capacitor': [] }
   for (const part of parts) {
     for (const position of POSITION_KINDS) {
       const slots = slotsPerPackage(part, position)
-      if (slots > 0) byPosition[position].push({ part, slots })
+      if (slots > 0) byPosition[position].push({ part, slots, figures: figuresOf(part) })
     }
   }
   return { kind: 'part-index', size: parts.length, byPosition }
