@@ -1,6 +1,6 @@
 // Number and date text for the printed exports (PDF), in the requesting user's locale, through the one helper
 // (shared/utils/format.ts). Spreadsheets get real numbers instead (with the locale's text where text is written).
-import * as fmt from '#shared/utils/format'
+import * as fmt from '../../shared/utils/format'
 
 /** 12345.6 → "12,345.60" (en-GB) / "12.345,60" (de-DE): two decimals, thousands separated. */
 export function formatMoney(value: number | null | undefined, locale: string = fmt.DEFAULT_LOCALE): string {
