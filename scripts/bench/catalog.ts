@@ -13,6 +13,7 @@ import { indexParts, matchPosition, positionDutyFromCapacitor, positionDutyFromD
 import { evaluateDesign } from '../../shared/engine'
 import type { CatalogPart } from '../../shared/catalog/types'
 import { validateRows } from '../../shared/catalog/validate'
+import { percentile } from './support'
 
 export interface BenchFigure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
 
@@ -47,15 +48,18 @@ export async function manyPartsWorkbook(parts: CatalogPart[]): Promise<Buffer> {
   return Buffer.from(await wb.xlsx.writeBuffer())
 }
 
-/** Every position of a five-level diode-clamped design (4.16 kV, 300 A, V_dc 6 kV) as the engine rates it. */
+/** A five-level diode-clamped drive (4.16 kV, 300 A, V_dc 6 kV), motoring and braking: the catalogue benches' design. */
+export const FIVE_LEVEL_DRIVE = {
+  topology: 'diode-clamped' as const, levels: 5, dcVoltage: 6000, dcVoltageMax: 6600, switchingHz: 1000, modulation: 'space-vector' as const, overshootVoltage: 100,
+  operatingPoints: [
+    { name: 'Rated', lineVoltageRms: 4160, phaseCurrentRms: 300, powerFactor: 0.88, fundamentalHz: 50 },
+    { name: 'Braking', lineVoltageRms: 4160, phaseCurrentRms: 250, powerFactor: -0.85, fundamentalHz: 50 },
+  ],
+}
+
+/** Every position of FIVE_LEVEL_DRIVE as the engine rates it. */
 export function fiveLevelDuties(): PositionDuty[] {
-  const converter = {
-    topology: 'diode-clamped' as const, levels: 5, dcVoltage: 6000, dcVoltageMax: 6600, switchingHz: 1000, modulation: 'space-vector' as const, overshootVoltage: 100,
-    operatingPoints: [
-      { name: 'Rated', lineVoltageRms: 4160, phaseCurrentRms: 300, powerFactor: 0.88, fundamentalHz: 50 },
-      { name: 'Braking', lineVoltageRms: 4160, phaseCurrentRms: 250, powerFactor: -0.85, fundamentalHz: 50 },
-    ],
-  }
+  const converter = FIVE_LEVEL_DRIVE
   const result = evaluateDesign({ machineSide: converter })
   const envelope = result.converters[0]!.envelope
   const ctx = { switchingHz: converter.switchingHz, topology: converter.topology, levels: converter.levels }
@@ -63,11 +67,6 @@ export function fiveLevelDuties(): PositionDuty[] {
     ...envelope.devices.map(d => positionDutyFromDevice(d, ctx)),
     ...envelope.capacitors.map(c => positionDutyFromCapacitor(c, ctx)),
   ]
-}
-
-function percentile(sorted: number[], p: number): number {
-  const index = Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)
-  return Math.round(sorted[Math.max(0, index)]! * 10) / 10
 }
 
 async function time(runs: number, fn: () => unknown | Promise<unknown>): Promise<{ p50Ms: number, p99Ms: number }> {

@@ -1,35 +1,19 @@
 // End-to-end catalogue import through the built server and PostgreSQL: upload a 20 000-row .xlsx
 // (read, store, map, validate, preview), then commit it as a catalogue version (one transaction).
 // Uses its own database `stratavolt_bench`, recreated for the run, and a server on 127.0.0.1:3300.
-import { spawn } from 'node:child_process'
-import { openSync } from 'node:fs'
-import { join } from 'node:path'
 import { performance } from 'node:perf_hooks'
 // @ts-expect-error -- plain ESM helper shared with the start and test scripts
-import { demoAccounts, ensureBuild, ensurePostgres, readSecrets, root, waitForHttp } from '../lib.mjs'
+import { demoAccounts } from '../lib.mjs'
 import { manyParts, manyPartsWorkbook } from './catalog'
+import { signIn, startBuiltServer } from './support'
 
 export interface ImportFigure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
 
 const PORT = 3300
 
-async function signIn(base: string, email: string, password: string) {
-  const r = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', 'origin': base }, body: JSON.stringify({ email, password }) })
-  if (r.status !== 200) throw new Error(`sign-in answered ${r.status}`)
-  return r.headers.getSetCookie().map(c => c.split(';')[0]).join('; ')
-}
-
 export async function runImportApiBench(): Promise<ImportFigure[]> {
-  const url = ensurePostgres([{ name: 'stratavolt_bench', recreate: true }])('stratavolt_bench')
-  ensureBuild()
-  const server = spawn(process.execPath, [join(root, '.output', 'server', 'index.mjs')], {
-    cwd: root,
-    stdio: ['ignore', openSync(join(root, '.data', 'bench-server.log'), 'w'), openSync(join(root, '.data', 'bench-server.log'), 'a')],
-    env: { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: String(PORT), NUXT_DATABASE_URL: url, NUXT_SESSION_PASSWORD: readSecrets().sessionPassword, NUXT_SMTP_PORT: '1', NUXT_UPLOAD_DIR: join(root, '.data', 'bench-uploads'), NUXT_SEED_DEMO: 'true' },
-  })
-  const base = `http://127.0.0.1:${PORT}`
+  const { base, stop } = await startBuiltServer({ database: 'stratavolt_bench', port: PORT, name: 'bench', uploads: 'bench-uploads', seedDemo: true })
   try {
-    await waitForHttp(`${base}/api/health`, 120000)
     const cookie = await signIn(base, 'components@example.com', demoAccounts.password)
     const parts = manyParts(20_000)
     const workbook = await manyPartsWorkbook(parts)
@@ -55,6 +39,6 @@ export async function runImportApiBench(): Promise<ImportFigure[]> {
     ]
   }
   finally {
-    server.kill('SIGTERM')
+    stop()
   }
 }

@@ -3,30 +3,17 @@
 // sorted page, a search, and matching every position of a five-level diode-clamped design.
 // Uses its own database `stratavolt_bench_scale`, recreated for the run, and a server on 127.0.0.1:3301.
 // Run alone with `npm run bench -- scale`.
-import { spawn } from 'node:child_process'
-import { openSync } from 'node:fs'
-import { join } from 'node:path'
 import { performance } from 'node:perf_hooks'
 // @ts-expect-error -- plain ESM helper shared with the start and test scripts
-import { demoAccounts, ensureBuild, ensurePostgres, readSecrets, root, waitForHttp } from '../lib.mjs'
-import { manyParts, manyPartsWorkbook } from './catalog'
+import { demoAccounts } from '../lib.mjs'
+import { FIVE_LEVEL_DRIVE, manyParts, manyPartsWorkbook } from './catalog'
+import { percentile, signIn, startBuiltServer } from './support'
 
 export interface ScaleFigure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
 
 const PORT = 3301
 const FILES = 5
 const PER_FILE = 20_000
-
-async function signIn(base: string, email: string, password: string) {
-  const r = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', 'origin': base }, body: JSON.stringify({ email, password }) })
-  if (r.status !== 200) throw new Error(`sign-in as ${email} answered ${r.status}`)
-  return r.headers.getSetCookie().map(c => c.split(';')[0]).join('; ')
-}
-
-function percentile(sorted: number[], p: number): number {
-  const index = Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)
-  return Math.round(sorted[Math.max(0, index)]! * 10) / 10
-}
 
 /** p50 and p95 (reported in the p99 column's place, named so) of `runs` sequential GETs. */
 async function timeGet(base: string, cookie: string, path: string, runs: number) {
@@ -42,32 +29,11 @@ async function timeGet(base: string, cookie: string, path: string, runs: number)
   return { p50Ms: percentile(samples, 50), p99Ms: percentile(samples, 95), runs }
 }
 
-/** The five-level design of the catalogue bench (4.16 kV drive, V_dc 6 kV) as a saved design. */
-const fiveLevelDesign = {
-  name: 'Scale bench five-level drive',
-  input: {
-    machineSide: {
-      topology: 'diode-clamped', levels: 5, dcVoltage: 6000, dcVoltageMax: 6600, switchingHz: 1000, modulation: 'space-vector', overshootVoltage: 100,
-      operatingPoints: [
-        { name: 'Rated', lineVoltageRms: 4160, phaseCurrentRms: 300, powerFactor: 0.88, fundamentalHz: 50 },
-        { name: 'Braking', lineVoltageRms: 4160, phaseCurrentRms: 250, powerFactor: -0.85, fundamentalHz: 50 },
-      ],
-    },
-  },
-}
+const fiveLevelDesign = { name: 'Scale bench five-level drive', input: { machineSide: FIVE_LEVEL_DRIVE } }
 
 export async function runScaleBench(): Promise<ScaleFigure[]> {
-  const url = ensurePostgres([{ name: 'stratavolt_bench_scale', recreate: true }])('stratavolt_bench_scale')
-  ensureBuild()
-  const log = join(root, '.data', 'bench-scale-server.log')
-  const server = spawn(process.execPath, [join(root, '.output', 'server', 'index.mjs')], {
-    cwd: root,
-    stdio: ['ignore', openSync(log, 'w'), openSync(log, 'a')],
-    env: { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: String(PORT), NUXT_DATABASE_URL: url, NUXT_SESSION_PASSWORD: readSecrets().sessionPassword, NUXT_SMTP_PORT: '1', NUXT_UPLOAD_DIR: join(root, '.data', 'bench-scale-uploads'), NUXT_SEED_DEMO: 'true' },
-  })
-  const base = `http://127.0.0.1:${PORT}`
+  const { base, stop } = await startBuiltServer({ database: 'stratavolt_bench_scale', port: PORT, name: 'bench-scale', uploads: 'bench-scale-uploads', seedDemo: true })
   try {
-    await waitForHttp(`${base}/api/health`, 120000)
     const components = await signIn(base, 'components@example.com', demoAccounts.password)
     const engineer = await signIn(base, 'engineer@example.com', demoAccounts.password)
     const all = manyParts(FILES * PER_FILE)
@@ -103,6 +69,6 @@ export async function runScaleBench(): Promise<ScaleFigure[]> {
     return figures
   }
   finally {
-    server.kill('SIGTERM')
+    stop()
   }
 }
