@@ -55,3 +55,37 @@ export function fft(re: Float64Array, im: Float64Array): void {
     }
   }
 }
+
+/**
+ * X_h, h = 0…n/2, of a real sequence x of power-of-two length n, from one complex FFT of length n/2: the even
+ * and odd samples as real and imaginary parts, then X_h = E_h + e^(−i2πh/n)·O_h with E_h = (Z_h + Z*_(n/2−h))/2
+ * and O_h = (Z_h − Z*_(n/2−h))/(2i) (the standard split of a real transform).
+ */
+export function realFft(x: Float64Array): { re: Float64Array, im: Float64Array } {
+  const n = x.length
+  if (!isPowerOfTwo(n) || n < 2) throw new Error('realFft: length must be a power of two, at least 2')
+  const half = n / 2
+  const zr = new Float64Array(half)
+  const zi = new Float64Array(half)
+  for (let k = 0; k < half; k++) {
+    zr[k] = x[2 * k]!
+    zi[k] = x[2 * k + 1]!
+  }
+  if (half > 1) fft(zr, zi)
+  const re = new Float64Array(half + 1)
+  const im = new Float64Array(half + 1)
+  const { cos, sin } = tableFor(n)
+  for (let k = 0; k <= half; k++) {
+    const k1 = k % half
+    const k2 = (half - k) % half
+    const er = (zr[k1]! + zr[k2]!) / 2
+    const ei = (zi[k1]! - zi[k2]!) / 2
+    const or = (zi[k1]! + zi[k2]!) / 2
+    const oi = -(zr[k1]! - zr[k2]!) / 2
+    const c = k < half ? cos[k]! : -1
+    const s = k < half ? -sin[k]! : 0
+    re[k] = er + c * or - s * oi
+    im[k] = ei + c * oi + s * or
+  }
+  return { re, im }
+}

@@ -5,7 +5,7 @@ import { clampStack, defaultDerating } from './derating'
 import { EngineInputError } from './errors'
 import { DEFAULT_INTEGRATION_POINTS, integrateLeg } from './integrate'
 import { linearLimit, makeReference, SIX_STEP_INDEX } from './modulation'
-import { harmonicAmplitudes, lineMeanSquare, synthesise, totalHarmonicDistortion } from './synth'
+import { harmonicAmplitudes, synthesise, totalHarmonicDistortion } from './synth'
 import type { CompiledLeg } from './model'
 import type { DeratingPolicy, DeviceStress, SpectrumLine, StressInput, StressResult } from './types'
 import { resolveStressInput, type ResolvedInput } from './validate'
@@ -136,11 +136,11 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
   samples = Math.min(MAX_SAMPLES, Math.max(MIN_SAMPLES, samples))
   const thdMaxOrder = Math.min(maxOrderWanted, samples / 4)
   const synthesisInput = { leg, reference, sixStep, frequencyRatio: mf, stepVoltage: scales.stepVoltage, samples }
-  const synthesis = synthesise(synthesisInput)
+  const synthesis = synthesise(synthesisInput, { pole: options.includeWaveform })
   const amplitudes = harmonicAmplitudes(synthesis.line, thdMaxOrder)
   let lineVoltageThdToOrder = totalHarmonicDistortion(amplitudes)
   // Full band: the switched waveform's own RMS, so no switching harmonic beyond the summed orders is lost.
-  const lineRms = Math.sqrt(lineMeanSquare(synthesisInput))
+  const lineRms = Math.sqrt(synthesis.lineMeanSquare)
   const fundamentalRms = amplitudes[1]! / Math.SQRT2
   let lineVoltageThd = fundamentalRms > 0 ? Math.sqrt(Math.max(0, lineRms ** 2 - amplitudes[0]! ** 2 - fundamentalRms ** 2)) / fundamentalRms : 0
   if (amplitudes[1]! <= 1e-9 * Math.max(scales.halfLink, 1e-9)) {
@@ -184,7 +184,7 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
       time[j] = (j + 0.5) / (S * p.fundamentalHz)
       current[j] = currentPeak * Math.sin((2 * Math.PI * (j + 0.5)) / S - phi)
     }
-    result.waveform = { time, lineVoltage: Array.from(synthesis.line), poleVoltage: Array.from(synthesis.pole), phaseCurrent: current }
+    result.waveform = { time, lineVoltage: Array.from(synthesis.line), poleVoltage: Array.from(synthesis.pole!), phaseCurrent: current }
   }
   return result
 }

@@ -1,5 +1,5 @@
 // Switched pole and line voltages over one fundamental period (naturally sampled carriers), their spectrum and THD.
-import { fft } from './fft'
+import { realFft } from './fft'
 import type { CompiledLeg } from './model'
 
 const TWO_PI = 2 * Math.PI
@@ -45,16 +45,43 @@ function comparatorsFor(leg: CompiledLeg, stepVoltage: number): { list: Comparat
   }
 }
 
+/**
+ * A piecewise-constant switched voltage, walked in time order: `add(t0, t1, v)` takes each constant stretch
+ * (t in fundamental periods, 0…1). It keeps the exact mean square and the mean over each of `samples` intervals.
+ */
+class StepAccumulator {
+  readonly bins: Float64Array
+  sumSquare = 0
+  constructor(readonly samples: number) {
+    this.bins = new Float64Array(samples)
+  }
+
+  add(t0: number, t1: number, v: number): void {
+    if (t1 <= t0) return
+    this.sumSquare += v * v * (t1 - t0)
+    if (v === 0) return
+    const S = this.samples
+    const x0 = t0 * S
+    const x1 = t1 * S
+    let j0 = Math.floor(x0)
+    const j1 = Math.min(S - 1, Math.floor(x1))
+    if (j0 >= j1) {
+      this.bins[Math.min(S - 1, j0)]! += v * (x1 - x0)
+      return
+    }
+    this.bins[j0]! += v * (j0 + 1 - x0)
+    for (j0++; j0 < j1; j0++) this.bins[j0]! += v
+    this.bins[j1]! += v * (x1 - j1)
+  }
+}
+
 /** Triangle carrier 0…1 with troughs at integer carrier periods p. */
 function triangle(p: number): number {
   return 1 - Math.abs(2 * (p - Math.floor(p)) - 1)
 }
 
-/** Fraction of a linear segment from a to b where it is positive. */
-function positiveFraction(a: number, b: number): number {
-  if (a > 0) return b > 0 ? 1 : a / (a - b)
-  return b > 0 ? b / (b - a) : 0
-}
+/** At least this many segments per fundamental period, so a reference that moves fast between carrier vertices stays linear enough. */
+const MIN_SEGMENTS = 256
 
 export interface SynthesisInput {
   leg: CompiledLeg
@@ -70,240 +97,150 @@ export interface SynthesisInput {
 }
 
 export interface Synthesis {
-  /** V, phase-a pole voltage (relative to the DC midpoint / cell string), each sample the mean over its interval */
-  pole: Float64Array
-  /** V, line voltage u_ab, interval means */
+  /** V, line voltage u_ab, each sample the exact mean over its interval */
   line: Float64Array
+  /** V², mean square of u_ab over the period: the time-domain RMS² the full-band THD needs, with no order left out */
+  lineMeanSquare: number
+  /** V, phase-a pole voltage (relative to the DC midpoint / cell string), interval means; only when asked for */
+  pole?: Float64Array
 }
 
 /**
- * Pole voltage of one phase, each sample the exact mean over its interval of the comparison
- * outcomes: u = α·m + β − carrier is linear between the sample edges and carrier vertices
- * (m interpolated linearly), so every crossing lands at its own instant, not on the sample grid.
+ * Segment boundaries of one fundamental period (in periods, 0…1): every vertex of every carrier (troughs at
+ * whole, peaks at half carrier periods, shifted by τ) and a uniform floor of MIN_SEGMENTS, sorted. Between two
+ * boundaries every carrier is linear.
  */
-function pole(input: SynthesisInput, shift: number): Float64Array {
-  const S = input.samples
-  const out = new Float64Array(S)
-  if (input.sixStep) {
-    // High while sin(θ − shift) ≥ 0: t ∈ [s, s + ½) in fundamental periods, s = shift/2π.
-    const s = shift / TWO_PI
-    const V = input.stepVoltage
-    for (let j = 0; j < S; j++) {
-      const t0 = j / S
-      const t1 = (j + 1) / S
-      let high = 0
-      for (const start of [s - 1, s, s + 1]) high += Math.max(0, Math.min(t1, start + 0.5) - Math.max(t0, start))
-      out[j] = V * (high * S) - V / 2
+function segmentBoundaries(taus: number[], mf: number): Float64Array {
+  const list: number[] = []
+  for (let j = 0; j <= MIN_SEGMENTS; j++) list.push(j / MIN_SEGMENTS)
+  for (const tau of taus) {
+    for (let k = Math.floor(2 * tau) + 1; ; k++) {
+      const t = (k / 2 - tau) / mf
+      if (t >= 1) break
+      if (t > 0) list.push(t)
     }
-    return out
   }
-  const m = new Float64Array(S + 1)
-  for (let j = 0; j <= S; j++) m[j] = input.reference((TWO_PI * j) / S - shift)
-  const { list, offset } = comparatorsFor(input.leg, input.stepVoltage)
-  const dp = input.frequencyRatio / S
-  out.fill(offset)
-  // Comparisons sharing a carrier share its samples and vertices.
-  const byCarrier = new Map<number, Comparator[]>()
-  for (const c of list) byCarrier.set(c.tau, [...(byCarrier.get(c.tau) ?? []), c])
-  const u = new Float64Array(S + 1)
-  const carrier = new Float64Array(S + 1)
-  const first = new Int32Array(S + 1)
-  const maxVertices = 2 * Math.ceil(input.frequencyRatio) + 4
-  const vertexZ = new Float64Array(maxVertices)
-  const vertexC = new Float64Array(maxVertices)
-  for (const [tau, comparisons] of byCarrier) {
-    carrierGrid(tau, S, dp, maxVertices, carrier, first, vertexZ, vertexC)
-    for (const c of comparisons) {
-      for (let j = 0; j <= S; j++) u[j] = c.alpha * m[j]! + c.beta - carrier[j]!
-      for (let j = 0; j < S; j++) {
-        const from = first[j]!
-        const to = first[j + 1]!
-        let area: number
-        if (from === to) {
-          area = positiveFraction(u[j]!, u[j + 1]!)
+  const sorted = Float64Array.from(list).sort()
+  let n = 0
+  for (let k = 0; k < sorted.length; k++) if (n === 0 || sorted[k]! - sorted[n - 1]! > 1e-15) sorted[n++] = sorted[k]!
+  return sorted.subarray(0, n)
+}
+
+interface PhaseRef {
+  /** reference at each segment boundary */
+  m: Float64Array
+  /** +1 adds this phase's pole voltage, −1 subtracts it */
+  sign: number
+}
+
+/**
+ * Walks the segments in time order. In each, u = α·m + β − carrier is linear for every comparison (m
+ * interpolated between the boundaries), so each comparison switches at most once, at the root of u; the
+ * stretches between those instants are constant and go to the accumulator. Carrier crossings are thus found
+ * per carrier half-period, not searched for on the sample grid.
+ */
+function walkSegments(bounds: Float64Array, carriers: Float64Array, carrierCount: number, comparisons: (Comparator & { carrier: number })[], phases: PhaseRef[], offset: number, samples: number): StepAccumulator {
+  const acc = new StepAccumulator(samples)
+  const capacity = comparisons.length * phases.length
+  const evT = new Float64Array(capacity)
+  const evW = new Float64Array(capacity)
+  const C = carrierCount
+  for (let b = 0; b + 1 < bounds.length; b++) {
+    const t0 = bounds[b]!
+    const t1 = bounds[b + 1]!
+    const dt = t1 - t0
+    let level = offset
+    let n = 0
+    for (let q = 0; q < comparisons.length; q++) {
+      const c = comparisons[q]!
+      const c0 = carriers[b * C + c.carrier]!
+      const c1 = carriers[(b + 1) * C + c.carrier]!
+      for (let ph = 0; ph < phases.length; ph++) {
+        const { m, sign } = phases[ph]!
+        const w = sign * c.weight
+        const u0 = c.alpha * m[b]! + c.beta - c0
+        const u1 = c.alpha * m[b + 1]! + c.beta - c1
+        if (u0 > 0) {
+          level += w
+          if (u1 > 0) continue
         }
-        else {
-          let zPrev = 0
-          let uPrev = u[j]!
-          area = 0
-          for (let k = from; k < to; k++) {
-            const z = vertexZ[k]!
-            const uv = c.alpha * (m[j]! + z * (m[j + 1]! - m[j]!)) + c.beta - vertexC[k]!
-            area += (z - zPrev) * positiveFraction(uPrev, uv)
-            zPrev = z
-            uPrev = uv
-          }
-          area += (1 - zPrev) * positiveFraction(uPrev, u[j + 1]!)
+        else if (u1 <= 0) {
+          continue
         }
-        out[j]! += c.weight * area
+        // One crossing inside the segment: on at a rising u, off at a falling one.
+        const t = t0 + (dt * u0) / (u0 - u1)
+        const dw = u0 > 0 ? -w : w
+        // Insertion keeps the handful of crossings of a segment sorted.
+        let k = n++
+        while (k > 0 && evT[k - 1]! > t) {
+          evT[k] = evT[k - 1]!
+          evW[k] = evW[k - 1]!
+          k--
+        }
+        evT[k] = t
+        evW[k] = dw
       }
     }
+    let prev = t0
+    for (let k = 0; k < n; k++) {
+      acc.add(prev, evT[k]!, level)
+      level += evW[k]!
+      prev = evT[k]!
+    }
+    acc.add(prev, t1, level)
+  }
+  return acc
+}
+
+/** Six-step: pole high (+V/2) while sin(θ − shift) ≥ 0, low (−V/2) otherwise; u_ab = u_a − u_b. */
+function sixStepWaveforms(input: SynthesisInput, wantPole: boolean): Synthesis {
+  const V = input.stepVoltage
+  const S = input.samples
+  const poleAt = (t: number, s: number) => ((((t - s) % 1) + 1) % 1 < 0.5 ? V / 2 : -V / 2)
+  const edges = [0, 1 / 3, 1 / 2, 5 / 6, 1]
+  const line = new StepAccumulator(S)
+  for (let k = 0; k + 1 < edges.length; k++) {
+    const mid = (edges[k]! + edges[k + 1]!) / 2
+    line.add(edges[k]!, edges[k + 1]!, poleAt(mid, 0) - poleAt(mid, 1 / 3))
+  }
+  const out: Synthesis = { line: line.bins, lineMeanSquare: line.sumSquare }
+  if (wantPole) {
+    const pole = new StepAccumulator(S)
+    pole.add(0, 0.5, V / 2)
+    pole.add(0.5, 1, -V / 2)
+    out.pole = pole.bins
   }
   return out
 }
 
 /**
- * The carrier at the sample edges and its vertices (troughs at whole, peaks at half periods) inside each
- * sample interval, as fractions z of it: vertices of interval j are first[j] … first[j+1]−1.
+ * The switched line voltage u_ab over one fundamental period (naturally sampled carriers): interval means on
+ * `samples` intervals for the spectrum and the exact mean square for the full-band THD, both from the same
+ * switching instants; the phase-a pole voltage too when `pole` is asked for (the waveform view).
  */
-function carrierGrid(tau: number, S: number, dp: number, maxVertices: number, carrier: Float64Array, first: Int32Array, vertexZ: Float64Array, vertexC: Float64Array): void {
-  for (let j = 0; j <= S; j++) carrier[j] = triangle(j * dp + tau)
-  let count = 0
-  let v = (Math.floor(2 * tau) + 1) / 2
-  for (let j = 0; j < S; j++) {
-    first[j] = count
-    const p0 = j * dp + tau
-    for (; v < p0 + dp && count < maxVertices; v += 0.5) {
-      vertexZ[count] = (v - p0) / dp
-      vertexC[count] = Math.round(2 * v) % 2 === 0 ? 0 : 1
-      count++
-    }
-  }
-  first[S] = count
-}
-
-/** Events of a piecewise-constant signal inside one sample interval: +w at a positive stretch's start, −w at its end. */
-class Events {
-  z: Float64Array
-  w: Float64Array
-  n = 0
-  /** V, the stretches covering the whole interval (most of them: no event needed) */
-  base = 0
-  constructor(capacity: number) {
-    this.z = new Float64Array(capacity)
-    this.w = new Float64Array(capacity)
-  }
-
-  push(z: number, w: number): void {
-    if (this.n === this.z.length) {
-      const z2 = new Float64Array(2 * this.n)
-      const w2 = new Float64Array(2 * this.n)
-      z2.set(this.z)
-      w2.set(this.w)
-      this.z = z2
-      this.w = w2
-    }
-    // Insertion keeps the events sorted by z (a handful per interval).
-    let k = this.n++
-    while (k > 0 && this.z[k - 1]! > z) {
-      this.z[k] = this.z[k - 1]!
-      this.w[k] = this.w[k - 1]!
-      k--
-    }
-    this.z[k] = z
-    this.w[k] = w
-  }
-
-  /** the stretch of [zA, zB] where the linear u runs from uA to uB above 0 */
-  addPositive(zA: number, zB: number, uA: number, uB: number, weight: number): void {
-    if (uA <= 0 && uB <= 0) return
-    const start = uA > 0 ? zA : zA + ((zB - zA) * -uA) / (uB - uA)
-    const end = uB > 0 ? zB : zA + ((zB - zA) * uA) / (uA - uB)
-    if (end <= start) return
-    if (start <= 0 && end >= 1) {
-      this.base += weight
-      return
-    }
-    this.push(start, weight)
-    this.push(end, -weight)
-  }
-
-  /** (1/Δz)∫ v² dz over the interval, v the sum of the stretches; empties the list */
-  takeMeanSquare(): number {
-    let v = this.base
-    this.base = 0
-    let sum = 0
-    let zPrev = 0
-    for (let k = 0; k < this.n; k++) {
-      const z = this.z[k]!
-      sum += v * v * (z - zPrev)
-      v += this.w[k]!
-      zPrev = z
-    }
-    this.n = 0
-    return sum + v * v * (1 - zPrev)
-  }
-}
-
-/**
- * Mean square of the switched line voltage u_ab over one fundamental period, exact for the same
- * comparisons `pole` averages (every stretch between carrier vertices linear): the time-domain RMS²
- * that the full-band THD √(V_rms² − V_1²)/V_1 needs, with no harmonic order left out.
- */
-export function lineMeanSquare(input: SynthesisInput): number {
-  const S = input.samples
-  const events = new Events(64)
-  let total = 0
-  if (input.sixStep) {
-    // Pole high while sin(θ − shift) ≥ 0: t ∈ [s, s + ½) in fundamental periods; u_ab = V·(high_a − high_b).
-    const starts = [0, 1 / 3].map(s => [s - 1, s, s + 1])
-    for (let j = 0; j < S; j++) {
-      const t0 = j / S
-      starts.forEach((list, phase) => {
-        for (const start of list) {
-          const a = Math.max(t0, start)
-          const b = Math.min(t0 + 1 / S, start + 0.5)
-          if (b > a) {
-            const w = phase === 0 ? input.stepVoltage : -input.stepVoltage
-            events.push((a - t0) * S, w)
-            events.push((b - t0) * S, -w)
-          }
-        }
-      })
-      total += events.takeMeanSquare()
-    }
-    return total / S
-  }
-  const ma = new Float64Array(S + 1)
-  const mb = new Float64Array(S + 1)
-  for (let j = 0; j <= S; j++) {
-    ma[j] = input.reference((TWO_PI * j) / S)
-    mb[j] = input.reference((TWO_PI * j) / S - TWO_PI / 3)
-  }
-  const { list } = comparatorsFor(input.leg, input.stepVoltage)
-  const dp = input.frequencyRatio / S
-  const maxVertices = 2 * Math.ceil(input.frequencyRatio) + 4
+export function synthesise(input: SynthesisInput, options: { pole?: boolean } = {}): Synthesis {
+  if (input.sixStep) return sixStepWaveforms(input, options.pole ?? false)
+  const { list, offset } = comparatorsFor(input.leg, input.stepVoltage)
   const taus = Array.from(new Set(list.map(c => c.tau)))
-  const grids = taus.map((tau) => {
-    const g = { tau, carrier: new Float64Array(S + 1), first: new Int32Array(S + 1), vertexZ: new Float64Array(maxVertices), vertexC: new Float64Array(maxVertices), comparisons: list.filter(c => c.tau === tau) }
-    carrierGrid(tau, S, dp, maxVertices, g.carrier, g.first, g.vertexZ, g.vertexC)
-    return g
-  })
-  const phases = [ma, mb]
-  for (let j = 0; j < S; j++) {
-    for (const g of grids) {
-      const from = g.first[j]!
-      const to = g.first[j + 1]!
-      for (const c of g.comparisons) {
-        for (let ph = 0; ph < 2; ph++) {
-          const m = phases[ph]!
-          const sign = ph === 0 ? 1 : -1
-          const m0 = m[j]!
-          const dm = m[j + 1]! - m0
-          let zPrev = 0
-          let uPrev = c.alpha * m0 + c.beta - g.carrier[j]!
-          for (let k = from; k < to; k++) {
-            const z = g.vertexZ[k]!
-            const uv = c.alpha * (m0 + z * dm) + c.beta - g.vertexC[k]!
-            events.addPositive(zPrev, z, uPrev, uv, sign * c.weight)
-            zPrev = z
-            uPrev = uv
-          }
-          events.addPositive(zPrev, 1, uPrev, c.alpha * m[j + 1]! + c.beta - g.carrier[j + 1]!, sign * c.weight)
-        }
-      }
-    }
-    total += events.takeMeanSquare()
+  const comparisons = list.map(c => ({ ...c, carrier: taus.indexOf(c.tau) }))
+  const mf = input.frequencyRatio
+  const bounds = segmentBoundaries(taus, mf)
+  const B = bounds.length
+  const C = taus.length
+  const carriers = new Float64Array(B * C)
+  const ma = new Float64Array(B)
+  const mb = new Float64Array(B)
+  for (let b = 0; b < B; b++) {
+    const t = bounds[b]!
+    for (let ci = 0; ci < C; ci++) carriers[b * C + ci] = triangle(t * mf + taus[ci]!)
+    ma[b] = input.reference(TWO_PI * t)
+    mb[b] = input.reference(TWO_PI * t - TWO_PI / 3)
   }
-  return total / S
-}
-
-export function synthesise(input: SynthesisInput): Synthesis {
-  const a = pole(input, 0)
-  const b = pole(input, TWO_PI / 3)
-  const line = new Float64Array(a.length)
-  for (let j = 0; j < a.length; j++) line[j] = a[j]! - b[j]!
-  return { pole: a, line }
+  // The line voltage: the offsets of the two poles cancel.
+  const line = walkSegments(bounds, carriers, C, comparisons, [{ m: ma, sign: 1 }, { m: mb, sign: -1 }], 0, input.samples)
+  const out: Synthesis = { line: line.bins, lineMeanSquare: line.sumSquare }
+  if (options.pole) out.pole = walkSegments(bounds, carriers, C, comparisons, [{ m: ma, sign: 1 }], offset, input.samples).bins
+  return out
 }
 
 /**
@@ -312,9 +249,7 @@ export function synthesise(input: SynthesisInput): Synthesis {
  */
 export function harmonicAmplitudes(samples: Float64Array, maxOrder: number): Float64Array {
   const n = samples.length
-  const re = Float64Array.from(samples)
-  const im = new Float64Array(n)
-  fft(re, im)
+  const { re, im } = realFft(samples)
   const out = new Float64Array(maxOrder + 1)
   out[0] = Math.abs(re[0]!) / n
   for (let h = 1; h <= maxOrder && h < n / 2; h++) {
