@@ -177,6 +177,21 @@ export interface SwitchingDuty {
   recovery: number
 }
 
+/** The non-zero entries of each weights row, kept once per table (most positions do not switch at a given level). */
+function sparseWeights(table: CommutationTable): { index: Int32Array, weight: Float64Array }[][][] {
+  let rows = sparseRows.get(table)
+  if (!rows) {
+    rows = table.weights.map(half => half.map(level => level.map((row) => {
+      const index = Int32Array.from(Array.from(row).flatMap((w, q) => (w !== 0 ? [q] : [])))
+      return { index, weight: Float64Array.from(index, q => row[q]!) }
+    })))
+    sparseRows.set(table, rows)
+  }
+  return rows
+}
+
+const sparseRows = new WeakMap<CommutationTable, { index: Int32Array, weight: Float64Array }[][][]>()
+
 /**
  * Integrates the commutations over one fundamental period: at each angle the PD level shares give
  * the two levels the carrier steps between; every carrier period has `stepsPerCarrier` up- and
@@ -199,6 +214,7 @@ export function integrateSwitching(
   const R = ROLES.length
   const L = leg.def.modelLevels
   const sum = new Float64Array(P * R)
+  const sparse = sparseWeights(table)
   const points = options.points
   const dTheta = (2 * Math.PI) / points
   let previousLevel = -1
@@ -231,8 +247,8 @@ export function integrateSwitching(
     if (f <= EPS || f >= 1 - EPS) continue
     const i = currentPeak * Math.sin(theta - phi)
     const ai = Math.abs(i)
-    const row = table.weights[half]![lo]![i >= 0 ? 0 : 1]!
-    for (let q = 0; q < row.length; q++) if (row[q]! !== 0) sum[q]! += row[q]! * ai
+    const row = sparse[half]![lo]![i >= 0 ? 0 : 1]!
+    for (let q = 0; q < row.index.length; q++) sum[row.index[q]!]! += row.weight[q]! * ai
   }
   if (options.sixStep && previousLevel >= 0) {
     // close the period: the step from the last sample back to the first

@@ -52,9 +52,8 @@ export function integrateLeg(
   const shares = new Float64Array(L)
   const dTheta = (2 * Math.PI) / points
   let fundamental = 0
-  // Kept for the peak search: the reference and which positions conduct at each grid point.
+  // Kept for the peak search: the reference at each grid point.
   const gridM = new Float64Array(points)
-  const gridConducts = new Uint8Array(points * P)
 
   for (let k = 0; k < points; k++) {
     const theta = (k + 0.5) * dTheta
@@ -76,7 +75,6 @@ export function integrateLeg(
         const d = share * row.weight[q]!
         sumAbs[p]! += d * ai
         sumSq[p]! += d * i2
-        gridConducts[k * P + p] = 1
       }
     }
   }
@@ -87,7 +85,7 @@ export function integrateLeg(
     avg[p] = sumAbs[p]! / points
     rms[p] = Math.sqrt(sumSq[p]! / points)
   }
-  positionPeaks(leg, reference, currentPeak, phi, gridM, gridConducts, peak)
+  positionPeaks(leg, reference, currentPeak, phi, gridM, peak)
   return { avg, rms, peak, referenceFundamental: (2 * fundamental) / points }
 }
 
@@ -95,19 +93,25 @@ const TWO_PI = 2 * Math.PI
 const EDGE_ITERATIONS = 52
 const GOLDEN = (Math.sqrt(5) - 1) / 2
 
-/** Conduction share of one position at θ (0 where it does not carry the current). */
-function shareAt(leg: CompiledLeg, reference: (theta: number) => number, phi: number, theta: number, position: number, shares: Float64Array): number {
-  const m = reference(theta)
+/**
+ * What decides which positions conduct at θ (reference m there): the level shares that are positive, the half wave and the
+ * current's sign, as one number (equal numbers, equal conduction flags). Flags into `flags` when given.
+ */
+function conductionKey(leg: CompiledLeg, m: number, phi: number, theta: number, shares: Float64Array, flags?: Uint8Array): number {
+  const half = levelShares(leg, m, shares)
   const sign = Math.sin(theta - phi) >= 0 ? 0 : 1
-  const table = leg.weights[levelShares(leg, m, shares)]!
-  let d = 0
-  for (let l = 0; l < shares.length; l++) {
-    const share = shares[l]!
-    if (share <= 0) continue
-    const row = table[l]![sign]!
-    for (let q = 0; q < row.index.length; q++) if (row.index[q] === position) d += share * row.weight[q]!
+  let key = half * 2 + sign
+  for (let l = 0; l < shares.length; l++) if (shares[l]! > 0) key += 4 << l
+  if (flags) {
+    flags.fill(0)
+    const table = leg.weights[half]!
+    for (let l = 0; l < shares.length; l++) {
+      if (shares[l]! <= 0) continue
+      const row = table[l]![sign]!
+      for (let q = 0; q < row.index.length; q++) if (row.weight[q]! > 0) flags[row.index[q]!] = 1
+    }
   }
-  return d
+  return key
 }
 
 /**
@@ -117,7 +121,7 @@ function shareAt(leg: CompiledLeg, reference: (theta: number) => number, phi: nu
  * interval between two grid points is not missed) and bisected to 10⁻¹² rad; of each final bracket
  * the larger |i| is kept, so the peak is never below the true supremum.
  */
-function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, currentPeak: number, phi: number, gridM: Float64Array, gridConducts: Uint8Array, peak: Float64Array): void {
+function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, currentPeak: number, phi: number, gridM: Float64Array, peak: Float64Array): void {
   const P = leg.positions.length
   const points = gridM.length
   const shares = new Float64Array(leg.def.modelLevels)
@@ -145,51 +149,69 @@ function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, c
     extra.push(wrap((a + b) / 2))
   }
   extra.sort((x, y) => x - y)
-  // Grid points (flags from the integration) merged with the extra angles (flags computed here).
+  // Grid points merged with the extra angles, each with its conduction key; the flags are kept once per key.
   const n = points + extra.length
   const sorted = new Float64Array(n)
-  const conducts = new Uint8Array(n * P)
+  const keys = new Int32Array(n)
+  const flagsOf = new Map<number, { flags: Uint8Array, absMax: number }>()
+  const absI = (t: number) => Math.abs(currentPeak * Math.sin(t - phi))
+  const absAt = new Float64Array(n)
   for (let k = 0, g = 0, e = 0; k < n; k++) {
     const gridTheta = g < points ? (g + 0.5) * dTheta : Infinity
-    if (e < extra.length && extra[e]! < gridTheta) {
-      const theta = extra[e++]!
-      sorted[k] = theta
-      const sign = Math.sin(theta - phi) >= 0 ? 0 : 1
-      const table = leg.weights[levelShares(leg, reference(theta), shares)]!
-      for (let l = 0; l < shares.length; l++) {
-        if (shares[l]! <= 0) continue
-        const row = table[l]![sign]!
-        for (let q = 0; q < row.index.length; q++) if (row.weight[q]! > 0) conducts[k * P + row.index[q]!] = 1
-      }
+    const fromGrid = !(e < extra.length && extra[e]! < gridTheta)
+    const theta = fromGrid ? gridTheta : extra[e++]!
+    const m = fromGrid ? gridM[g++]! : reference(theta)
+    sorted[k] = theta
+    absAt[k] = absI(theta)
+    const key = conductionKey(leg, m, phi, theta, shares)
+    keys[k] = key
+    let entry = flagsOf.get(key)
+    if (!entry) {
+      entry = { flags: new Uint8Array(P), absMax: 0 }
+      conductionKey(leg, m, phi, theta, shares, entry.flags)
+      flagsOf.set(key, entry)
     }
-    else {
-      sorted[k] = gridTheta
-      for (let p = 0; p < P; p++) conducts[k * P + p] = gridConducts[g * P + p]!
-      g++
+    if (absAt[k]! > entry.absMax) entry.absMax = absAt[k]!
+  }
+  // Largest |i| on the angles where each position conducts.
+  const best = new Float64Array(P)
+  for (const { flags, absMax } of flagsOf.values()) {
+    for (let p = 0; p < P; p++) if (flags[p] && absMax > best[p]!) best[p] = absMax
+  }
+  const before = new Uint8Array(P)
+  const after = new Uint8Array(P)
+  for (let k = 0; k < n; k++) {
+    const k2 = (k + 1) % n
+    if (keys[k] === keys[k2]) continue
+    // |i| is monotone between neighbouring angles (its peaks are among them): a bracket whose larger end does not
+    // beat a position's best cannot raise it, whatever happens inside.
+    const bracketMax = Math.max(absAt[k]!, absAt[k2]!)
+    const fa = flagsOf.get(keys[k]!)!.flags
+    const fb = flagsOf.get(keys[k2]!)!.flags
+    let needed = false
+    for (let p = 0; p < P && !needed; p++) needed = fa[p] !== fb[p] && bracketMax > best[p]!
+    if (!needed) continue
+    // Edges between angles k and k2: bisect on what decides conduction, once for every position, and walk on
+    // past each edge found until the far end's state is reached (two edges may share a bracket).
+    let a = sorted[k]!
+    const b = k2 === 0 ? sorted[0]! + TWO_PI : sorted[k2]!
+    const keyAt = (t: number, flags?: Uint8Array) => conductionKey(leg, reference(t), phi, t, shares, flags)
+    let keyA = keyAt(a, before)
+    const keyB = keyAt(b)
+    for (let edge = 0; keyA !== keyB && edge < 4 * shares.length + 4; edge++) {
+      let lo = a
+      let hi = b
+      for (let it = 0; it < EDGE_ITERATIONS && hi - lo > 1e-12; it++) {
+        const c = (lo + hi) / 2
+        if (keyAt(c) === keyA) lo = c
+        else hi = c
+      }
+      keyA = keyAt(hi, after)
+      // Of each final bracket the larger |i| is kept, so the peak is never below the true supremum.
+      for (let p = 0; p < P; p++) if (before[p] !== after[p]) best[p] = Math.max(best[p]!, absI(lo), absI(hi))
+      before.set(after)
+      a = hi
     }
   }
-  const absI = (t: number) => Math.abs(currentPeak * Math.sin(t - phi))
-  const absAt = sorted.map(absI)
-  for (let p = 0; p < P; p++) {
-    let best = 0
-    for (let k = 0; k < n; k++) if (conducts[k * P + p]! && absAt[k]! > best) best = absAt[k]!
-    for (let k = 0; k < n; k++) {
-      const here = conducts[k * P + p]!
-      const k2 = (k + 1) % n
-      if (conducts[k2 * P + p]! === here) continue
-      // |i| is monotone between neighbouring angles (its peaks are among them): an edge here cannot beat `best`
-      // unless the bracket's larger end does.
-      if (Math.max(absAt[k]!, absAt[k2]!) <= best) continue
-      // An edge between angles k and k2: bisect on the conduction flag.
-      let a = sorted[k]!
-      let b = k2 === 0 ? sorted[0]! + TWO_PI : sorted[k2]!
-      for (let it = 0; it < EDGE_ITERATIONS && b - a > 1e-12; it++) {
-        const c = (a + b) / 2
-        if ((shareAt(leg, reference, phi, c, p, shares) > 0 ? 1 : 0) === here) a = c
-        else b = c
-      }
-      best = Math.max(best, absI(a), absI(b))
-    }
-    peak[p] = Math.min(best, currentPeak)
-  }
+  for (let p = 0; p < P; p++) peak[p] = Math.min(best[p]!, currentPeak)
 }

@@ -42,3 +42,26 @@ export function makeReference(modulation: Modulation, a: number): (theta: number
 function clamp(m: number): number {
   return m > 1 ? 1 : m < -1 ? -1 : m
 }
+
+/**
+ * The same reference, remembered on the angles the period integrations use: (k + ½)·2π/points and those
+ * shifted by −2π/3 and −4π/3 (the other two phases) are all the grid (j + ½)·2π/(3·points), so each value there
+ * is computed once per evaluation instead of once per integration. Any other angle is computed afresh.
+ */
+export function rememberOnGrid(reference: (theta: number) => number, points: number): (theta: number) => number {
+  const G = 3 * points
+  const values = new Float64Array(G).fill(Number.NaN)
+  const perRadian = G / TWO_PI
+  return (theta) => {
+    const x = theta * perRadian - 0.5
+    const j = Math.round(x)
+    if (Math.abs(x - j) > 1e-7) return reference(theta)
+    const index = ((j % G) + G) % G
+    let v = values[index]!
+    if (Number.isNaN(v)) {
+      v = reference(((index + 0.5) * TWO_PI) / G)
+      values[index] = v
+    }
+    return v
+  }
+}
