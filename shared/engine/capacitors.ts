@@ -70,7 +70,10 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
   const slope = new Float64Array(3)
   const curSlope = new Float64Array(3)
 
-  for (let k = 0; k < points; k++) {
+  // The three phases are alike shifted by a third of the period, and the link currents are sums over all three,
+  // so they repeat every third: on a grid that divides by 3, one third is computed and the rest copied.
+  const third = points % 3 === 0 ? points / 3 : points
+  for (let k = 0; k < third; k++) {
     const theta = (k + 0.5) * dTheta
     const kNext = k + 1 === points ? 0 : k + 1
     const kPrev = k === 0 ? points - 1 : k - 1
@@ -142,6 +145,18 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
       sumSq[j]! += ms
       series[j * points + k] = avg
       charged[j * points + k] = avgShifted
+    }
+  }
+  if (third < points) {
+    for (let j = 0; j < J; j++) {
+      for (let k = third; k < points; k++) {
+        const from = j * points + (k % third)
+        halfSwing[j * points + k] = halfSwing[from]!
+        series[j * points + k] = series[from]!
+        charged[j * points + k] = charged[from]!
+      }
+      sum[j]! *= points / third
+      sumSq[j]! *= points / third
     }
   }
   return Array.from({ length: J }, (_, j) => {

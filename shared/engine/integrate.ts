@@ -1,7 +1,8 @@
 // The one generic integrator: switching-period-averaged device currents over one fundamental period.
 import type { CompiledLeg } from './model'
 
-export const DEFAULT_INTEGRATION_POINTS = 2048
+/** Even (the half waves) and divisible by 3 (the three phases share one grid, so three-phase sums repeat every third). */
+export const DEFAULT_INTEGRATION_POINTS = 2046
 
 export interface LegCurrents {
   /** A, per position */

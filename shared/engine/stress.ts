@@ -17,7 +17,7 @@ export interface EvaluateOptions {
   includeSpectrum?: boolean
   /** samples per fundamental period for the switched waveforms (rounded up to a power of two, 256…65536) */
   samples?: number
-  /** integration points per fundamental period for the averaged currents (default 2048) */
+  /** integration points per fundamental period for the averaged currents (default 2046) */
   integrationPoints?: number
   /** voltage derating that sizes clamp-diode stacks (default: the common-practice policy) */
   derating?: Pick<DeratingPolicy, 'semiconductorVoltageUtilisation' | 'semiconductorTransientMargin'>

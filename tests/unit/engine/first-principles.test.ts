@@ -92,7 +92,7 @@ describe('leg currents (first principles)', () => {
     }
   })
 
-  it.each(cases)('$id N=$N: integration converges (2048 vs 4096 points within 1e-5)', ({ id, N }) => {
+  it.each(cases)('$id N=$N: integration converges (default 2046 vs 4096 points within 1e-5)', ({ id, N }) => {
     const input = id === 'matrix'
       ? { topology: 'matrix' as TopologyId, inputLineVoltageRms: 690, lineVoltageRms: 500, phaseCurrentRms: 100, powerFactor: 0.8, fundamentalHz: 50, switchingHz: 5000, modulation: 'space-vector' as Modulation }
       : inputAt(id, 0.9, 0.8, { levels: N, modulation: 'space-vector' })

@@ -64,7 +64,7 @@ describe('two-level losses per operating point vs Bierhoff & Fuchs (PESC 2004)',
     const s1 = deviceLossAtPoint(part, 'switch', at('S1'), fsw)!
     const d1 = deviceLossAtPoint(part, 'diode', at('D1'), fsw)!
     expect(at('S1').pointName).toBe(name)
-    // Midpoint integration over 2048 points against the exact closed form.
+    // Midpoint integration over the default 2046 points against the exact closed form.
     expect(s1.conduction / cf.condT - 1).toBeCloseTo(0, 4)
     expect(d1.conduction / cf.condD - 1).toBeCloseTo(0, 4)
     expect(s1.switching / cf.swT - 1).toBeCloseTo(0, 4)
