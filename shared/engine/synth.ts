@@ -111,16 +111,17 @@ export interface Synthesis {
  * boundaries every carrier is linear.
  */
 function segmentBoundaries(taus: number[], mf: number): Float64Array {
-  const list: number[] = []
-  for (let j = 0; j <= MIN_SEGMENTS; j++) list.push(j / MIN_SEGMENTS)
+  const all = new Float64Array(MIN_SEGMENTS + 1 + taus.length * (Math.ceil(2 * mf) + 2))
+  let count = 0
+  for (let j = 0; j <= MIN_SEGMENTS; j++) all[count++] = j / MIN_SEGMENTS
   for (const tau of taus) {
     for (let k = Math.floor(2 * tau) + 1; ; k++) {
       const t = (k / 2 - tau) / mf
       if (t >= 1) break
-      if (t > 0) list.push(t)
+      if (t > 0) all[count++] = t
     }
   }
-  const sorted = Float64Array.from(list).sort()
+  const sorted = all.subarray(0, count).sort()
   let n = 0
   for (let k = 0; k < sorted.length; k++) if (n === 0 || sorted[k]! - sorted[n - 1]! > 1e-15) sorted[n++] = sorted[k]!
   return sorted.subarray(0, n)
