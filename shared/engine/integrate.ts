@@ -55,6 +55,7 @@ export function integrateLeg(
   let fundamental = 0
   // Kept for the peak search: the reference at each grid point.
   const gridM = new Float64Array(points)
+  const averaged = leg.def.carrier === 'input-averaged'
 
   for (let k = 0; k < points; k++) {
     const theta = (k + 0.5) * dTheta
@@ -67,7 +68,10 @@ export function integrateLeg(
     const i2 = i * i
     const half = levelShares(leg, m, shares)
     const table = leg.weights[half]!
-    for (let l = 0; l < L; l++) {
+    // PD shares sit on two neighbouring levels: visit only those (all of them for an input-averaged leg).
+    const first = averaged ? 0 : Math.max(0, Math.min(Math.floor(((1 + m) * (L - 1)) / 2), L - 2))
+    const last = averaged ? L - 1 : first + 1
+    for (let l = first; l <= last; l++) {
       const share = shares[l]!
       if (share <= 0) continue
       const row = table[l]![sign]!
