@@ -147,22 +147,11 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
       charged[j * points + k] = avgShifted
     }
   }
-  if (third < points) {
-    for (let j = 0; j < J; j++) {
-      for (let k = third; k < points; k++) {
-        const from = j * points + (k % third)
-        halfSwing[j * points + k] = halfSwing[from]!
-        series[j * points + k] = series[from]!
-        charged[j * points + k] = charged[from]!
-      }
-      sum[j]! *= points / third
-      sumSq[j]! *= points / third
-    }
-  }
+  // The charge and the ripple repeat with the currents, so their figures over one third are those of the period.
   return Array.from({ length: J }, (_, j) => {
-    const part = (a: Float64Array) => a.subarray(j * points, (j + 1) * points)
+    const part = (a: Float64Array) => a.subarray(j * points, j * points + third)
     const swing = part(halfSwing)
-    return figures(sum[j]! / points, sumSq[j]! / points, part(series), swing, fundamentalHz, swing, part(charged))
+    return figures(sum[j]! / third, sumSq[j]! / third, part(series), swing, (fundamentalHz * points) / third, swing, part(charged))
   })
 }
 
