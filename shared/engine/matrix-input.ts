@@ -148,7 +148,7 @@ export interface MatrixInputFigures {
   phaseCurrent: { fundamentalRms: number, rms: number, average: number, peak: number }
   /** A, one bidirectional switch (input X ↔ output Y, both directions together) */
   switchPath: { average: number, rms: number, peak: number }
-  /** C, largest charge above and below the carrier-period mean in one capacitor, over all input / output angle pairs */
+  /** C, largest charge excursion from the carrier period's start in one capacitor, over all input / output angle pairs */
   chargeAbove: number
   /** F per phase (star) */
   capacitance: number
@@ -231,7 +231,10 @@ export function matrixInputFigures(ctx: MatrixInputContext): MatrixInputFigures 
   const pathRms = Math.sqrt(Math.max(0, railSum * pathSq + railDiff * pathSqM))
 
   const chargeAbove = largestCharge(ctx)
-  const capacitance = chargeAbove > 0 ? (2 * chargeAbove) / ctx.rippleTarget : 0
+  // The inductor branch takes part of the switching current in anti-phase: at f_sw the capacitor voltage is
+  // 1/(1 − (f_res/f_sw)²) of the capacitor-alone value (parallel L–C admittance, first principles).
+  const lcFactor = 1 / (1 - (ctx.resonanceHz / ctx.switchingHz) ** 2)
+  const capacitance = chargeAbove > 0 ? (2 * chargeAbove * lcFactor) / ctx.rippleTarget : 0
   const wr = TWO_PI * ctx.resonanceHz
   const inductance = capacitance > 0 ? 1 / (wr * wr * capacitance) : 0
   const capacitorSwitchingRms = Math.sqrt(Math.max(0, rms ** 2 - fundamentalRms ** 2))
@@ -256,11 +259,11 @@ export function matrixInputFigures(ctx: MatrixInputContext): MatrixInputFigures 
 }
 
 /**
- * C, the largest excursion of one capacitor's charge from its carrier-period mean, when the capacitor
- * takes the converter input current minus its carrier-period mean (the inductor carries the mean).
- * Input and output angles over one 60° sector each (the pattern repeats, negated, every 60°), all
- * three input phases; above and below the mean are the same over a whole period (negation), so the
- * peak-to-peak ripple is twice this.
+ * C, the largest excursion of one capacitor's charge from its value at the carrier period's start, when
+ * the capacitor takes the converter input current minus its carrier-period mean (the inductor carries the
+ * mean). Input and output angles over one 60° sector each (the pattern repeats, negated, every 60°), all
+ * three input phases; above and below are the same over a whole period (negation), so the peak-to-peak
+ * ripple is twice this.
  */
 function largestCharge(ctx: MatrixInputContext): number {
   const pattern = newPattern()
@@ -297,7 +300,12 @@ function largestCharge(ctx: MatrixInputContext): number {
   return best.q
 }
 
-/** Largest |charge − carrier-period mean charge| (per unit of the period × A) of any input phase in one pattern. */
+/**
+ * Largest |charge| from the period's start (per unit of the period × A) of any input phase in one pattern.
+ * The period boundaries are the anchor: the carrier-period means of the input current follow the sinusoid,
+ * so the capacitor voltage at the boundaries follows the smooth (input-frequency) solution, while the
+ * charge's mean within a period changes from period to period with the angles.
+ */
 function chargeExcursion(pattern: CarrierPattern, cur: Float64Array, iCur: Float64Array): number {
   // current of each input phase in each interval: iCur[3·j + x]
   const n = pattern.n
@@ -313,22 +321,18 @@ function chargeExcursion(pattern: CarrierPattern, cur: Float64Array, iCur: Float
       mean += (pattern.end[j]! - prev) * iCur[3 * j + x]!
       prev = pattern.end[j]!
     }
-    // charge q(τ) = ∫(i − mean): piecewise linear; its mean over the period and its extremes at the vertices
+    // charge q(τ) = ∫(i − mean) from the period's start, back to 0 at its end: piecewise linear, extremes at the vertices
     let q = 0
-    let qMean = 0
     let qMax = 0
     let qMin = 0
     prev = 0
     for (let j = 0; j < n; j++) {
-      const len = pattern.end[j]! - prev
-      const q1 = q + len * (iCur[3 * j + x]! - mean)
-      qMean += (len * (q + q1)) / 2
-      q = q1
+      q += (pattern.end[j]! - prev) * (iCur[3 * j + x]! - mean)
       if (q > qMax) qMax = q
       else if (q < qMin) qMin = q
       prev = pattern.end[j]!
     }
-    const e = Math.max(qMax - qMean, qMean - qMin)
+    const e = Math.max(qMax, -qMin)
     if (e > worst) worst = e
   }
   return worst
@@ -475,7 +479,7 @@ export function evaluateMatrixInput(p: ResolvedInput, reference: (theta: number)
   if (mi.resonanceHz < 10 * mi.frequencyHz || mi.resonanceHz > p.switchingHz / 5) warnings.push(`Input filter resonance ${fmt(mi.resonanceHz)} Hz is outside 10 × the input frequency … f_sw / 5 (${fmt(10 * mi.frequencyHz)} … ${fmt(p.switchingHz / 5)} Hz): the filter either amplifies low grid harmonics or passes switching ripple (common practice).`)
   const transferRatio = (Math.SQRT2 * (p.lineVoltageRms / Math.sqrt(3))) / inputPhasePeak
   const source = 'L. Huber & D. Borojević, IEEE TIA 31(6) 1995 (indirect space-vector modulation with input power-factor control); P. W. Wheeler et al., IEEE TIE 49(2) 2002 (transfer limit (√3/2)·cos φ_in, input current q·I_o·cos φ_o / cos φ_in); J. W. Kolar & S. D. Round, IEE Proc. EPA 153(4) 2006 (rail-current RMS of the virtual inverter); f_res = 1/(2π√(LC))'
-  const method = `Carrier-period pattern between input phases (the phase with the largest input-current reference on one rail, the other rail split in two segments; output duties (1 + m·|c|)/2 centred in each segment). Input and switch-path means over the unrelated input and output periods as products of one-dimensional means; filter capacitors star-connected, the inductor carrying each carrier period's mean current: C = 2·max|q − q̄| / ΔV_pp over a grid of input × output angles (largest charge excursion from its carrier-period mean), L = 1/((2π·f_res)²·C), f_res ${mi.resonanceHz === Math.sqrt(2 * mi.frequencyHz * p.switchingHz) ? `= √(2·f_in·f_sw) by default, the geometric middle of 10·f_in … f_sw/5 (common practice)` : 'as given'}.`
+  const method = `Carrier-period pattern between input phases (the phase with the largest input-current reference on one rail, the other rail split in two segments; output duties (1 + m·|c|)/2 centred in each segment). Input and switch-path means over the unrelated input and output periods as products of one-dimensional means; filter capacitors star-connected, the inductor carrying each carrier period's mean current: C = 2·max|q| / ΔV_pp / (1 − (f_res/f_sw)²) over a grid of input × output angles (q the charge of the input current minus its carrier-period mean, from the period's start: the period boundaries follow the smooth input-frequency voltage), L = 1/((2π·f_res)²·C), f_res ${mi.resonanceHz === Math.sqrt(2 * mi.frequencyHz * p.switchingHz) ? `= √(2·f_in·f_sw) by default, the geometric middle of 10·f_in … f_sw/5 (common practice)` : 'as given'}.`
   const inputSide: MatrixInputSide = {
     transferRatio,
     transferLimit: 0.75 * mi.displacementFactor * amplitudeLimit,
