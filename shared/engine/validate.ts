@@ -174,9 +174,10 @@ export function resolveStressInput(raw: StressInput): ResolvedInput {
     if (resonanceGiven !== undefined && resonanceGiven <= 2 * frequencyHz) throw new EngineInputError('inputFilterResonanceHz', `inputFilterResonanceHz must be above twice the input frequency (${2 * frequencyHz} Hz): the filter would resonate with the grid`)
     if (resonanceGiven !== undefined && resonanceGiven >= switchingHz / 2) throw new EngineInputError('inputFilterResonanceHz', `inputFilterResonanceHz must be below half the switching frequency (${switchingHz / 2} Hz): the filter would not stop the switching ripple`)
     // Default: the geometric middle of 10·f_in … f_sw/5 (common practice), √(2·f_in·f_sw); where that band is
-    // empty (f_sw < 50·f_in) the middle of 2·f_in … f_sw/2, with a warning from the input-side figures.
+    // empty (f_sw < 50·f_in) the middle of 2·f_in … f_sw/2, and below f_sw/4 whatever the input frequency
+    // (no filter then passes f_in and stops f_sw: the input-side figures warn).
     const wide = Math.sqrt(2 * frequencyHz * switchingHz)
-    const resonanceHz = resonanceGiven ?? (wide > 2 * frequencyHz && wide < switchingHz / 2 ? wide : Math.sqrt(frequencyHz * switchingHz))
+    const resonanceHz = resonanceGiven ?? (wide > 2 * frequencyHz && wide < switchingHz / 2 ? wide : Math.min(Math.sqrt(frequencyHz * switchingHz), switchingHz / 4))
     matrixInput = { displacementFactor, sense: inSense, angle: inSense === 'leading' ? -Math.acos(displacementFactor) : Math.acos(displacementFactor), frequencyHz, resonanceHz }
   }
 
