@@ -13,7 +13,6 @@
 // it and on the negative rail otherwise (m_Y the pole reference per unit of 0.75·V̂_in·cos φ_i). So the
 // output phase is always one of the three input voltages, never a fixed DC link; its local mean is the
 // reference, and the input-current local means are sinusoidal at the displacement angle φ_i.
-import type { CompiledLeg } from './model'
 import type { CapacitorStress, MatrixInputSide } from './types'
 import type { ResolvedInput } from './validate'
 
@@ -121,7 +120,6 @@ export function carrierPattern(rect: RectifierState, d: Float64Array, pattern: C
 }
 
 export interface MatrixInputContext {
-  leg: CompiledLeg
   /** clamped pole reference of output phase a per unit of 0.75·V̂_in·cos φ_i */
   reference: (theta: number) => number
   /** V, peak input phase voltage √2·V_LL,in/√3 */
@@ -287,7 +285,7 @@ function largestCharge(ctx: MatrixInputContext): number {
     }
   }
   const sector = Math.PI / 3
-  const N = 18
+  const N = 12
   const coarse = Array.from({ length: N }, (_, k) => ((k + 0.5) * sector) / N)
   const best = { q: -1, i: 0, o: 0 }
   search(coarse, coarse, best)
@@ -457,7 +455,6 @@ export function evaluateMatrixInput(p: ResolvedInput, reference: (theta: number)
   const power = Math.abs(Math.sqrt(3) * lineFundamentalRms * p.phaseCurrentRms * p.powerFactor)
   const rippleTarget = p.capacitorRippleTarget ?? FILTER_RIPPLE_FRACTION * inputPhasePeak
   const f = matrixInputFigures({
-    leg: p.leg,
     reference,
     inputPhasePeak,
     phiIn: mi.angle,

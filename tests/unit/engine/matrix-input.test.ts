@@ -4,6 +4,8 @@
 // inductors fed by a stiff grid behind a stated source resistance, integrated at 1000 steps per carrier period.
 import { describe, expect, it } from 'vitest'
 import { EngineInputError, evaluateDesign, evaluateStress, type StressInput } from '../../../shared/engine'
+import { carrierPattern, matrixInputFigures, newPattern, newRectifier, rectifier } from '../../../shared/engine/matrix-input'
+import { makeReference } from '../../../shared/engine/modulation'
 import { designInputSchema } from '../../../shared/schemas/stress'
 import { expectClose } from './helpers'
 
@@ -310,6 +312,53 @@ describe('matrix converter input side: brute-force switched simulation', () => {
     // A fixed virtual link of 1.5·V̂ could never exceed 1.5·V̂ line-to-line; the input line voltages reach √3·V̂.
     expect(Math.max(...w.lineVoltage.map(Math.abs))).toBeGreaterThan(1.6 * Vph)
     expect(Math.max(...w.lineVoltage.map(Math.abs))).toBeLessThanOrEqual(Math.sqrt(3) * Vph * (1 + 1e-9))
+  })
+})
+
+describe('matrix converter input side: the ripple-charge search', () => {
+  it.each([
+    { modulation: 'space-vector', A: 1.1, phiIn: 0, phiOut: 0.5 },
+    { modulation: 'sine', A: 0.5, phiIn: 0.45, phiOut: 0.1 },
+    { modulation: 'third-harmonic', A: 1, phiIn: -0.3, phiOut: -0.6 },
+  ] as const)('$modulation A=$A: the refined sector search finds the largest charge of a 120 × 120 grid over whole input and output periods (brute force)', ({ modulation, A, phiIn, phiOut }) => {
+    const ref = makeReference(modulation, A)
+    const Ipk = 100
+    const f = matrixInputFigures({ reference: ref, inputPhasePeak: 326, phiIn, inputHz: 50, currentPeak: Ipk, phiOut, fundamentalHz: 40, switchingHz: 5000, power: 1e4, rippleTarget: 10, resonanceHz: 500 })
+    const pattern = newPattern()
+    const rect = newRectifier()
+    const d = new Float64Array(3)
+    let best = 0
+    const N = 120
+    for (let a = 0; a < N; a++) {
+      for (let b = 0; b < N; b++) {
+        const ti = ((a + 0.5) / N) * TWO_PI
+        const to = ((b + 0.5) / N) * TWO_PI
+        rectifier(ti, phiIn, rect)
+        const cur = [0, 1, 2].map(y => Ipk * Math.sin(to - y * SHIFT - phiOut))
+        for (let y = 0; y < 3; y++) d[y] = (1 + ref(to - y * SHIFT) * rect.a) / 2
+        carrierPattern(rect, d, pattern)
+        for (let x = 0; x < 3; x++) {
+          let mean = 0
+          let prev = 0
+          const i: number[] = []
+          for (let j = 0; j < pattern.n; j++) {
+            i.push([0, 1, 2].reduce((sum, y) => sum + (pattern.conn[3 * j + y] === x ? cur[y]! : 0), 0))
+            mean += (pattern.end[j]! - prev) * i[j]!
+            prev = pattern.end[j]!
+          }
+          let q = 0
+          prev = 0
+          for (let j = 0; j < pattern.n; j++) {
+            q += (pattern.end[j]! - prev) * (i[j]! - mean)
+            prev = pattern.end[j]!
+            best = Math.max(best, Math.abs(q))
+          }
+        }
+      }
+    }
+    const engine = f.chargeAbove * 5000
+    expect(engine).toBeGreaterThanOrEqual(best * (1 - 1e-6))
+    expect(engine).toBeLessThanOrEqual(best * 1.01)
   })
 })
 
