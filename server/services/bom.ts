@@ -3,11 +3,12 @@
 import type { H3Event } from 'h3'
 import { and, desc, eq, sql } from 'drizzle-orm'
 import { buildBomSnapshot, diffBoms, unacknowledgedLines, type BomBuildInput, type CapacitorFill, type CoveredPosition, type PositionFill } from '#shared/bom/build'
+import { specifiedLines } from '#shared/bom/specified'
 import { packGroup, type GroupMember } from '#shared/bom/coverage'
 import type { BomLine, BomPurchase, BomSnapshot } from '#shared/bom/types'
 import { slotsPerPackage } from '#shared/catalog/matching'
 import { sees, type Role } from '#shared/roles'
-import { topologyById, type DesignInput } from '#shared/engine'
+import { topologyById, type DesignInput, type DesignResult } from '#shared/engine'
 import type { BomSettings } from '#shared/schemas/design'
 import { formatSi } from '#shared/utils/si'
 import { count, formatMoney } from '#shared/utils/format'
@@ -41,7 +42,7 @@ function describePart(p: PositionMatch) {
 }
 
 /** The BOM input from the assignments: semiconductors per position (modules once), capacitor banks, hand-added lines. */
-export function bomInputFrom(positions: PositionMatch[], settings: BomSettings, design: DesignInput): { input: BomBuildInput, missing: string[], stale: string[] } {
+export function bomInputFrom(positions: PositionMatch[], settings: BomSettings, design: DesignInput, result?: DesignResult): { input: BomBuildInput, missing: string[], stale: string[] } {
   const missing: string[] = []
   const stale: string[] = []
   const fills: PositionFill[] = []
@@ -95,6 +96,7 @@ export function bomInputFrom(positions: PositionMatch[], settings: BomSettings, 
       capacitors: banks,
       covered,
       manualLines: settings.manualLines.map(l => ({ ...l, partNumber: l.partNumber || null, manufacturer: l.manufacturer || null })),
+      specified: specifiedLines(result),
       buildQuantity: settings.buildQuantity,
       sparesPercent: settings.sparesPercent,
       currency: 'EUR',
@@ -140,9 +142,9 @@ function applyAcknowledgements(lines: BomLine[], acks: Awaited<ReturnType<typeof
 
 /** The live BOM of a design (not saved), with what still blocks its release. */
 export async function draftBom(designId: number, releasedBy = '') {
-  const { design, positions } = await matchDesign(designId)
+  const { design, positions, result } = await matchDesign(designId)
   const settings = design.bomSettings as BomSettings
-  const { input, missing, stale } = bomInputFrom(positions, settings, design.input as DesignInput)
+  const { input, missing, stale } = bomInputFrom(positions, settings, design.input as DesignInput, result)
   const [last] = await useDb().select({ revision: boms.revision }).from(boms).where(eq(boms.designId, designId)).orderBy(desc(boms.revision)).limit(1)
   const snapshot = buildBomSnapshot({
     company: demo.company,

@@ -101,10 +101,24 @@ export interface ManualLineInput {
   currency?: string | null
 }
 
+/** A position the design needs but the catalogue has no kind for (the matrix converter's filter inductors): listed to be specified by hand. */
+export interface SpecifiedLineInput {
+  /** position name, e.g. "Lf" */
+  position: string
+  side: string
+  /** what to buy, in words (rating figures), ending with the note that it is specified by hand */
+  description: string
+  category: string
+  /** pieces per converter set */
+  quantityPerUnit: number
+}
+
 export interface BomBuildInput {
   positions: PositionFill[]
   capacitors?: CapacitorFill[]
   manualLines?: ManualLineInput[]
+  /** design positions with no catalogue kind (no part, no price): one line each, key `specify-<side>-<position>` */
+  specified?: SpecifiedLineInput[]
   covered?: CoveredPosition[]
   /** converter sets to build */
   buildQuantity: number
@@ -363,6 +377,25 @@ export function buildBomLines(input: BomBuildInput): BomBuildResult {
       manual: true,
     }, manual.quantityPerUnit, input, breaks, currency))
   })
+
+  for (const spec of input.specified ?? []) {
+    lines.push(finishLine({
+      key: `specify-${spec.side}-${spec.position}`,
+      partNumber: '',
+      manufacturer: '',
+      description: spec.description,
+      category: spec.category,
+      references: [`${spec.side} ${spec.position}`],
+      currency,
+      moq: null,
+      leadTimeDays: null,
+      stock: null,
+      lifecycle: null,
+      supplier: null,
+      partVersionId: null,
+      manual: true,
+    }, spec.quantityPerUnit, input, [], currency))
+  }
 
   return { lines, totals: bomTotals(lines, currency), positions }
 }

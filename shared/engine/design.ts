@@ -4,7 +4,7 @@ import { EngineInputError } from './errors'
 import { INPUT_LIMITS, tooLarge, tooSmall } from './limits'
 import { evaluateStress } from './stress'
 import type {
-  CapacitorEnvelope, ConverterInput, ConverterResult, DeratingPolicy, DesignInput, DesignResult, DeviceEnvelope, OperatingPoint, StressInput, StressResult,
+  CapacitorEnvelope, ConverterInput, ConverterResult, DeratingPolicy, DesignInput, DesignResult, DeviceEnvelope, InductorEnvelope, OperatingPoint, StressInput, StressResult,
 } from './types'
 import { resolveStressInput } from './validate'
 
@@ -160,7 +160,46 @@ function envelopeOf(points: PointResult[], derating: DeratingPolicy, clampDiodeU
 function converterResult(side: 'machine' | 'grid', conv: ConverterInput, path: string, derating: DeratingPolicy, rippleTarget: number | undefined): ConverterResult {
   const points = evaluatePoints(conv, path, rippleTarget, derating)
   const warnings = Array.from(new Set(points.flatMap(p => p.warnings.map(w => `${p.pointName}: ${w}`))))
-  return { side, points, envelope: envelopeOf(points, derating, conv.clampDiodeUnitVoltage), warnings }
+  const envelope: ConverterResult['envelope'] = envelopeOf(points, derating, conv.clampDiodeUnitVoltage)
+  const inductors = filterInductors(points, envelope.capacitors)
+  if (inductors.length) envelope.inductors = inductors
+  return { side, points, envelope, warnings }
+}
+
+/**
+ * The matrix converter's input filter inductors, one per phase: sized for the resonance target with the
+ * envelope's capacitance (so the bank bought and the inductor agree), current at each point with that
+ * capacitance: |I_in,1∠−φ_in + j·ω_in·C·V_ph|, the worst point's.
+ */
+function filterInductors(points: PointResult[], capacitors: CapacitorEnvelope[]): InductorEnvelope[] {
+  const cap = capacitors.find(c => c.kind === 'input-filter')
+  const sides = points.map(p => p.inputSide)
+  if (!cap || sides.some(s => !s)) return []
+  const C = cap.capacitanceRequired ?? 0
+  const f0 = sides[0]!.filter
+  const wr = 2 * Math.PI * f0.resonanceHz
+  let worst = 0
+  let worstPoint = points[0]!.pointName
+  points.forEach((p, k) => {
+    const s = sides[k]!
+    const i1 = s.phaseCurrent.fundamentalRms
+    const ic = 2 * Math.PI * s.inputFrequencyHz * C * s.filter.capacitorVoltageRms
+    const current = Math.hypot(i1 * Math.cos(s.displacement.angle), -i1 * Math.sin(s.displacement.angle) + ic)
+    if (current > worst) { worst = current; worstPoint = p.pointName }
+  })
+  return [{
+    name: 'Lf',
+    count: 3,
+    inductance: C > 0 ? 1 / (wr * wr * C) : 0,
+    resonanceHz: f0.resonanceHz,
+    currentRms: worst,
+    currentPeak: Math.SQRT2 * worst,
+    worstPoint,
+    provenance: {
+      method: `L = 1/((2π·f_res)²·C) with the envelope's capacitance ${fmt(C * 1e6)} µF per phase (worst point ${cap.worstPoint?.capacitanceRequired ?? worstPoint}); current = the converter's input fundamental plus the capacitor's input-frequency current, worst over ${points.length} point(s); peak √2 × RMS (the switching ripple stays in the capacitors).`,
+      source: 'f_res = 1/(2π√(LC)); resonance placement between 10·f_in and f_sw/5: common practice',
+    },
+  }]
 }
 
 /** The grid side shares the DC link: same topology and DC link, levels taken from the machine side when absent. */

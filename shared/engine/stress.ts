@@ -4,6 +4,7 @@ import { deriveCommutations, integrateSwitching } from './commutations'
 import { clampStack, defaultDerating } from './derating'
 import { EngineInputError } from './errors'
 import { DEFAULT_INTEGRATION_POINTS, integrateLeg } from './integrate'
+import { evaluateMatrixInput, synthesiseMatrix } from './matrix-input'
 import { linearLimit, makeReference, rememberOnGrid, SIX_STEP_INDEX } from './modulation'
 import { harmonicAmplitudes, synthesise, totalHarmonicDistortion } from './synth'
 import type { CompiledLeg } from './model'
@@ -57,10 +58,11 @@ function scalesFor(p: ResolvedInput): Scales {
       return { halfLink: cells * p.dcVoltage, unitMax: p.dcVoltageMax, unitNominal: p.dcVoltage, stepVoltage: p.dcVoltage, indexPerAmplitude: 1, effectiveRatio: 2 * cells * mf }
     }
     case 'ac-input': {
-      // Indirect model: virtual DC link 1.5·V̂_in,phase (the largest ripple-free value), so the output phase peak is at most 0.75·V̂_in,phase × amplitude.
+      // Indirect modulation: the virtual rectifier's local link is at least 1.5·V̂_in,phase·cos φ_in, so the output phase peak is at most 0.75·V̂_in,phase·cos φ_in × amplitude.
       const peakPhase = (Math.SQRT2 * p.inputLineVoltageRms) / Math.sqrt(3)
       const unit = Math.SQRT2 * p.inputLineVoltageRms
-      return { halfLink: 0.75 * peakPhase, unitMax: unit, unitNominal: unit, stepVoltage: 1.5 * peakPhase, indexPerAmplitude: 0.75, effectiveRatio: mf }
+      const cosIn = p.matrixInput?.displacementFactor ?? 1
+      return { halfLink: 0.75 * peakPhase * cosIn, unitMax: unit, unitNominal: unit, stepVoltage: 1.5 * peakPhase * cosIn, indexPerAmplitude: 0.75 * cosIn, effectiveRatio: mf }
     }
   }
 }
@@ -104,7 +106,7 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
     if (amplitude > limit * (1 + 1e-9)) {
       const actual = `the output fundamental is ${fmt(lineVoltageFundamentalRms)} V line-to-line RMS instead of the requested ${fmt(p.lineVoltageRms)} V`
       warnings.push(topology.supply === 'ac-input'
-        ? `Over-modulation: voltage transfer ratio ${fmt(modulationIndex)} exceeds the matrix converter's linear limit ${fmt(limit * scales.indexPerAmplitude)} with ${p.modulation} modulation (at most √3/2 ≈ 0.866, Wheeler et al., IEEE TIE 2002); the reference is clamped and ${actual}.`
+        ? `Over-modulation: voltage transfer ratio ${fmt(modulationIndex)} exceeds the matrix converter's linear limit ${fmt(limit * scales.indexPerAmplitude)} with ${p.modulation} modulation (at most (√3/2)·cos φ_in ≈ ${fmt(0.866 * (p.matrixInput?.displacementFactor ?? 1))} at input displacement factor ${fmt(p.matrixInput?.displacementFactor ?? 1)}, Wheeler et al., IEEE TIE 2002); the reference is clamped and ${actual}.`
         : `Over-modulation: modulation index ${fmt(modulationIndex)} exceeds the linear limit ${fmt(limit)} of ${p.modulation} modulation; the reference is clamped and ${actual}.`)
     }
   }
@@ -126,6 +128,11 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
     points,
   })
   warnings.push(...caps.warnings)
+  const matrixInput = p.matrixInput ? evaluateMatrixInput(p, reference, linearLimit[p.modulation as keyof typeof linearLimit], lineVoltageFundamentalRms) : undefined
+  if (matrixInput) {
+    caps.capacitors.push(matrixInput.capacitor)
+    warnings.push(...matrixInput.warnings)
+  }
 
   // Switched waveforms at the actual carrier ratio → spectrum and THD.
   const maxOrderWanted = Math.max(THD_MIN_ORDER, Math.ceil(2.5 * scales.effectiveRatio))
@@ -136,7 +143,10 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
   samples = Math.min(MAX_SAMPLES, Math.max(MIN_SAMPLES, samples))
   const thdMaxOrder = Math.min(maxOrderWanted, samples / 4)
   const synthesisInput = { leg, reference, sixStep, frequencyRatio: mf, stepVoltage: scales.stepVoltage, samples }
-  const synthesis = synthesise(synthesisInput, { pole: options.includeWaveform })
+  // Matrix converter: the output is synthesised from segments of the input voltages (matrix-input.ts).
+  const synthesis = p.matrixInput
+    ? synthesiseMatrix({ reference, inputPhasePeak: (Math.SQRT2 * p.inputLineVoltageRms) / Math.sqrt(3), phiIn: p.matrixInput.angle, inputHz: p.matrixInput.frequencyHz, fundamentalHz: p.fundamentalHz, switchingHz: p.switchingHz, samples })
+    : synthesise(synthesisInput, { pole: options.includeWaveform })
   const amplitudes = harmonicAmplitudes(synthesis.line, thdMaxOrder)
   let lineVoltageThdToOrder = totalHarmonicDistortion(amplitudes)
   // Full band: the switched waveform's own RMS, so no switching harmonic beyond the summed orders is lost.
@@ -151,7 +161,7 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
   notes.push(`Line-voltage THD full band from the time-domain RMS of the switched waveform, √(V_rms² − V_1²) / V_1; beside it the sum over harmonic orders 2…${thdMaxOrder} from ${samples} samples per period (f_sw/f = ${fmt(mf, 4)}${sixStep ? ', six-step' : ''}).`)
   if (!sixStep && thdMaxOrder < 1.2 * scales.effectiveRatio) notes.push(`The first switching harmonics (order ≈ ${Math.round(scales.effectiveRatio)}) lie beyond order ${thdMaxOrder}; the order-limited THD covers the low-order distortion only, the full-band figure includes them.`)
   if (topology.patternNote) notes.push(topology.patternNote)
-  if (topology.supply === 'ac-input') notes.push('No DC link: input filter capacitors are not sized by the engine; the spectrum ignores input-frequency components.')
+  if (topology.supply === 'ac-input') notes.push(`No DC link: the output is synthesised from segments of the input voltages at f_in = ${fmt(p.matrixInput!.frequencyHz)} Hz over one output period (input voltage phase 0 at its start); when f_in / f is not whole, input-frequency sidebands of the switching harmonics leak into neighbouring orders.`)
 
   const result: StressResult = {
     topology: topology.id,
@@ -167,6 +177,7 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
     warnings,
     notes,
     counts: countsOf(devices, caps.capacitors),
+    ...(matrixInput ? { inputSide: matrixInput.inputSide } : {}),
   }
   if (options.includeSpectrum) {
     const lines: SpectrumLine[] = []

@@ -13,7 +13,7 @@ export type TopologyId
 export type Modulation = 'sine' | 'third-harmonic' | 'space-vector' | 'six-step'
 
 export type DeviceKind = 'switch' | 'diode' | 'clamp-diode'
-export type CapacitorKind = 'dc-link' | 'flying'
+export type CapacitorKind = 'dc-link' | 'flying' | 'input-filter'
 
 /** Where a number comes from, so an engineer can see why it is what it is. */
 export interface Provenance {
@@ -52,6 +52,14 @@ export interface StressInput extends OperatingPoint {
   dcVoltageMax?: number
   /** V, matrix converter input line-to-line RMS. */
   inputLineVoltageRms?: number
+  /** Matrix converter: input displacement factor cos φ_i (0.2…1, default 1); the input may run at another power factor than the load. */
+  inputDisplacementFactor?: number
+  /** Matrix converter: whether the input current lags (default) or leads the input voltage. */
+  inputDisplacementSense?: PowerFactorSense
+  /** Hz, matrix converter input (grid) frequency, default 50. */
+  inputFrequencyHz?: number
+  /** Hz, matrix converter input filter L–C resonance target, default √(2·f_in·f_sw), the middle of 10·f_in … f_sw/5 (common practice). */
+  inputFilterResonanceHz?: number
   /** Hz, switching frequency (equals the fundamental for six-step). */
   switchingHz: number
   modulation: Modulation
@@ -115,6 +123,44 @@ export interface CapacitorStress {
   provenance: Provenance
 }
 
+/** The matrix converter's input side at one operating point (shared/engine/matrix-input.ts). */
+export interface MatrixInputSide {
+  /** output phase peak / input phase peak */
+  transferRatio: number
+  /** largest linear transfer ratio: (√3/2)·cos φ_i with third-harmonic / space-vector, 0.75·cos φ_i with sine */
+  transferLimit: number
+  /** input displacement factor as designed: cos φ_i, sense, φ_i (rad, current behind the input voltage) */
+  displacement: { value: number, sense: PowerFactorSense, angle: number }
+  inputFrequencyHz: number
+  /** A, converter-side input current per phase: fundamental RMS, switched RMS, rectified mean, peak */
+  phaseCurrent: { fundamentalRms: number, rms: number, average: number, peak: number }
+  /** A, one bidirectional switch path (input X ↔ output Y), both directions: rectified mean, RMS, peak */
+  switchPath: { average: number, rms: number, peak: number }
+  filter: {
+    /** F per phase, star-connected, for the ripple target */
+    capacitance: number
+    /** V peak-to-peak the capacitance is sized for */
+    rippleTarget: number
+    /** V, capacitor voltage RMS (input phase voltage) and peak (with half the ripple) */
+    capacitorVoltageRms: number
+    capacitorVoltagePeak: number
+    /** A RMS: total, switching part, input-frequency part ω_i·C·V_ph */
+    capacitorCurrentRms: number
+    capacitorSwitchingCurrentRms: number
+    capacitorFundamentalCurrentRms: number
+    /** var, three capacitors at the input frequency */
+    reactivePower: number
+    /** H per phase for the resonance target with this capacitance */
+    inductance: number
+    resonanceHz: number
+    /** A RMS, inductor (grid) current: converter input fundamental plus the capacitor current */
+    inductorCurrentRms: number
+    /** the grid's displacement factor seen through the filter capacitors */
+    gridDisplacement: { value: number, sense: PowerFactorSense }
+  }
+  provenance: Provenance
+}
+
 export interface SpectrumLine {
   /** harmonic order (1 = fundamental) */
   order: number
@@ -155,6 +201,8 @@ export interface StressResult {
   /** Highest harmonic order included in lineVoltageThdToOrder. */
   thdMaxOrder?: number
   counts: { switchesPerPhase: number, diodesPerPhase: number, clampDiodesPerPhase: number, capacitors: number, switchesTotal: number, diodesTotal: number, clampDiodesTotal: number }
+  /** Matrix converter only: input currents, input power factor and input filter. */
+  inputSide?: MatrixInputSide
   /** Only when requested (includeWaveform): one fundamental period. */
   waveform?: Waveform
   spectrum?: SpectrumLine[]
@@ -185,6 +233,10 @@ export interface ConverterInput {
   dcVoltage?: number
   dcVoltageMax?: number
   inputLineVoltageRms?: number
+  inputDisplacementFactor?: number
+  inputDisplacementSense?: PowerFactorSense
+  inputFrequencyHz?: number
+  inputFilterResonanceHz?: number
   switchingHz: number
   modulation: Modulation
   overshootVoltage?: number
@@ -225,10 +277,25 @@ export interface CapacitorEnvelope extends CapacitorStress {
   worstPoint?: { voltage: string, rippleCurrentRms: string, capacitanceRequired: string }
 }
 
+/** An inductor position (matrix converter input filter): no catalogue kind, specified by hand in the BOM. */
+export interface InductorEnvelope {
+  name: string
+  /** per converter */
+  count: number
+  /** H per phase for the resonance target with the envelope's capacitance */
+  inductance: number
+  resonanceHz: number
+  /** A RMS and peak, worst operating point */
+  currentRms: number
+  currentPeak: number
+  worstPoint: string
+  provenance: Provenance
+}
+
 export interface ConverterResult {
   side: 'machine' | 'grid'
   points: (StressResult & { pointName: string })[]
-  envelope: { devices: DeviceEnvelope[], capacitors: CapacitorEnvelope[] }
+  envelope: { devices: DeviceEnvelope[], capacitors: CapacitorEnvelope[], inductors?: InductorEnvelope[] }
   warnings: string[]
 }
 

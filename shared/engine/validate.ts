@@ -21,6 +21,15 @@ export interface ResolvedInput {
   dcVoltageMax: number
   /** V, matrix input line-to-line RMS (0 otherwise) */
   inputLineVoltageRms: number
+  /** matrix only: the input side (undefined otherwise) */
+  matrixInput?: {
+    displacementFactor: number
+    sense: PowerFactorSense
+    /** rad, input current behind the input voltage (negative = leading) */
+    angle: number
+    frequencyHz: number
+    resonanceHz: number
+  }
   /** V, requested output line-to-line fundamental RMS (0 for six-step, where it follows from the DC link) */
   lineVoltageRms: number
   phaseCurrentRms: number
@@ -154,6 +163,24 @@ export function resolveStressInput(raw: StressInput): ResolvedInput {
     if (switchingHz / fundamentalHz < 10) warnings.push(`Switching frequency only ${(switchingHz / fundamentalHz).toFixed(1)} × the fundamental: switching-period-averaged currents are approximate below about 10 ×.`)
   }
 
+  let matrixInput: ResolvedInput['matrixInput']
+  if (ac) {
+    const displacementFactor = limited(input, 'inputDisplacementFactor', { positive: true }) ?? 1
+    const inSense = input.inputDisplacementSense ?? 'lagging'
+    if (inSense !== 'lagging' && inSense !== 'leading') throw new EngineInputError('inputDisplacementSense', 'inputDisplacementSense must be lagging (inductive) or leading (capacitive)')
+    const frequencyHz = limited(input, 'inputFrequencyHz', { positive: true }) ?? 50
+    const resonanceGiven = limited(input, 'inputFilterResonanceHz', { positive: true })
+    // The filter must pass the input frequency and stop the switching frequency (common practice).
+    if (resonanceGiven !== undefined && resonanceGiven <= 2 * frequencyHz) throw new EngineInputError('inputFilterResonanceHz', `inputFilterResonanceHz must be above twice the input frequency (${2 * frequencyHz} Hz): the filter would resonate with the grid`)
+    if (resonanceGiven !== undefined && resonanceGiven >= switchingHz / 2) throw new EngineInputError('inputFilterResonanceHz', `inputFilterResonanceHz must be below half the switching frequency (${switchingHz / 2} Hz): the filter would not stop the switching ripple`)
+    // Default: the geometric middle of 10·f_in … f_sw/5 (common practice), √(2·f_in·f_sw); where that band is
+    // empty (f_sw < 50·f_in) the middle of 2·f_in … f_sw/2, and below f_sw/4 whatever the input frequency
+    // (no filter then passes f_in and stops f_sw: the input-side figures warn).
+    const wide = Math.sqrt(2 * frequencyHz * switchingHz)
+    const resonanceHz = resonanceGiven ?? (wide > 2 * frequencyHz && wide < switchingHz / 2 ? wide : Math.min(Math.sqrt(frequencyHz * switchingHz), switchingHz / 4))
+    matrixInput = { displacementFactor, sense: inSense, angle: inSense === 'leading' ? -Math.acos(displacementFactor) : Math.acos(displacementFactor), frequencyHz, resonanceHz }
+  }
+
   const overshootGiven = limited(input, 'overshootVoltage', {})
   const stray = limited(input, 'strayInductance', {})
   const slope = limited(input, 'currentSlope', {})
@@ -178,6 +205,7 @@ export function resolveStressInput(raw: StressInput): ResolvedInput {
     dcVoltage,
     dcVoltageMax,
     inputLineVoltageRms,
+    ...(matrixInput ? { matrixInput } : {}),
     lineVoltageRms,
     phaseCurrentRms,
     powerFactor,

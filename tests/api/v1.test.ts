@@ -26,7 +26,8 @@ describe('POST /api/v1/stress', () => {
         expect(['switch', 'diode', 'clamp-diode']).toContain(d.kind)
         expect(d.blockingVoltageWithOvershoot).toBeGreaterThanOrEqual(d.blockingVoltage)
       }
-      for (const cap of r.body.capacitors) expect(['dc-link', 'flying']).toContain(cap.kind)
+      for (const cap of r.body.capacitors) expect(['dc-link', 'flying', 'input-filter']).toContain(cap.kind)
+      if (c.topology === 'matrix') expect(r.body.inputSide.filter.capacitance).toBeGreaterThan(0)
       expect(typeof r.body.lineVoltageFundamentalRms).toBe('number')
       expect(typeof r.body.lineVoltageThd).toBe('number')
       expect(Array.isArray(r.body.warnings)).toBe(true)
@@ -60,6 +61,11 @@ describe('POST /api/v1/stress', () => {
     { field: 'phaseCurrentRms', body: { topology: 'cascaded-h-bridge', levels: 15, dcVoltage: 12_000, lineVoltageRms: 60_000, phaseCurrentRms: 10_000 }, words: /1 GVA/ },
     { field: 'switchingHz', body: { topology: 'two-level', dcVoltage: 650, switchingHz: 140 }, words: /at least 3 × “Fundamental frequency”/ },
     { field: 'powerFactorSense', body: { topology: 'two-level', dcVoltage: 650, powerFactorSense: 'ahead' }, words: /lagging .* or leading/ },
+    { field: 'inputDisplacementFactor', body: { topology: 'matrix', inputLineVoltageRms: 480, inputDisplacementFactor: 1.01 }, words: /at most 1 \(unity\)/ },
+    { field: 'inputDisplacementFactor', body: { topology: 'matrix', inputLineVoltageRms: 480, inputDisplacementFactor: 0.19 }, words: /at least 0\.2/ },
+    { field: 'inputFrequencyHz', body: { topology: 'matrix', inputLineVoltageRms: 480, inputFrequencyHz: 2001 }, words: /at most 2 kHz/ },
+    { field: 'inputFilterResonanceHz', body: { topology: 'matrix', inputLineVoltageRms: 480, inputFilterResonanceHz: 250_001 }, words: /at most 250 kHz/ },
+    { field: 'inputFilterResonanceHz', body: { topology: 'matrix', inputLineVoltageRms: 480, inputFilterResonanceHz: 2500 }, words: /below half the switching frequency/ },
   ]
   for (const b of bounds) {
     it(`refuses ${b.field} past its bound with 422 naming it (${b.words.source})`, async () => {

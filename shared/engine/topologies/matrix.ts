@@ -38,6 +38,6 @@ export const matrix: TopologyDefinition = {
   supply: 'ac-input',
   structureSource: 'P. W. Wheeler et al., IEEE TIE 2002',
   currentSource: 'P. W. Wheeler et al., IEEE TIE 2002 (structure); equal input-phase shares of an indirect space-vector modulation (assumption)',
-  patternNote: 'Modelled as a virtual rectifier and a two-level virtual inverter on a ripple-free virtual DC link of 1.5·V̂_in,phase: linear up to a transfer ratio of 0.75 with a sinusoidal inverter reference, √3/2 with third-harmonic or space-vector modulation.',
+  patternNote: 'Indirect space-vector modulation realised on the nine switches: in each carrier period the input phase with the largest input-current reference stays on one rail, the other rail is split between the two other input phases, and each output is connected to the input phase of its rail (the output is made of segments of the input voltages). Linear up to a transfer ratio of 0.75·cos φ_in with a sinusoidal reference, (√3/2)·cos φ_in with third-harmonic or space-vector references.',
   leg,
 }

@@ -15,7 +15,8 @@ describe('legLayout', () => {
     const r = evaluateStress(input)
     const devices = layout.items.filter(i => i.kind !== 'capacitor')
     expect(devices.map(d => d.name)).toEqual(r.devices.map(d => d.name))
-    expect(layout.items.filter(i => i.kind === 'capacitor').map(c => c.name)).toEqual(r.capacitors.map(c => c.name))
+    // The matrix converter's input filter capacitors sit on the input lines, not in a leg.
+    expect(layout.items.filter(i => i.kind === 'capacitor').map(c => c.name)).toEqual(r.capacitors.filter(c => c.kind !== 'input-filter').map(c => c.name))
     for (const item of layout.items) {
       expect(item.row).toBeGreaterThanOrEqual(0)
       expect(item.row).toBeLessThan(layout.rows)

@@ -27,6 +27,8 @@ function schemaMessage(input: StressInput, field: LimitedField): string | undefi
 /** A base input for each field, so that only that field is out of range. */
 function baseFor(field: LimitedField): StressInput {
   if (field === 'inputLineVoltageRms') return { ...inputAt('two-level', 0.5, 0.9), topology: 'matrix', inputLineVoltageRms: 400, lineVoltageRms: 200 }
+  // The matrix converter's input-side fields (ignored by the other topologies).
+  if (field === 'inputDisplacementFactor' || field === 'inputFrequencyHz' || field === 'inputFilterResonanceHz') return { ...inputAt('two-level', 0.5, 0.9), topology: 'matrix', inputLineVoltageRms: 400, lineVoltageRms: 100, switchingHz: 10_000, inputFilterResonanceHz: 1000 }
   if (field === 'clampDiodeUnitVoltage') return inputAt('diode-clamped', 0.8, 0.9, { levels: 5 })
   if (field === 'strayInductance') return inputAt('two-level', 0.8, 0.9, { currentSlope: 1e6 })
   if (field === 'currentSlope') return inputAt('two-level', 0.8, 0.9, { strayInductance: 1e-9 })

@@ -16,7 +16,8 @@ describe('matrix converter', () => {
       for (const d of r.devices) expect(d.blockingVoltage).toBeCloseTo(Math.SQRT2 * Vin, 9)
       expect(r.counts.switchesTotal).toBe(18)
       expect(r.counts.diodesTotal).toBe(18)
-      expect(r.capacitors).toEqual([])
+      // No DC link: the only capacitors are the three star-connected input filter capacitors.
+      expect(r.capacitors.map(c => [c.name, c.kind, c.count])).toEqual([['Cf', 'input-filter', 3]])
     }
   })
 

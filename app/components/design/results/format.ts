@@ -72,6 +72,7 @@ export function deviceKindLabel(kind: string): string {
     case 'clamp-diode': return 'Clamp diode'
     case 'dc-link': return 'DC link'
     case 'flying': return 'Flying'
+    case 'input-filter': return 'Input filter'
     default: return kind
   }
 }

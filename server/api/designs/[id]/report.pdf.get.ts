@@ -23,6 +23,10 @@ export default defineEventHandler(async (event) => {
     if (c.levels) inputs.push([`${p}levels`, c.levels, ''])
     if (c.dcVoltage) inputs.push([`${p}DC voltage nominal`, c.dcVoltage, 'V'], [`${p}DC voltage worst case`, c.dcVoltageMax ?? c.dcVoltage, 'V'])
     if (c.inputLineVoltageRms) inputs.push([`${p}input line voltage`, c.inputLineVoltageRms, 'V'])
+    if (c.topology === 'matrix') {
+      inputs.push([`${p}input displacement factor`, `${c.inputDisplacementFactor ?? 1} ${c.inputDisplacementSense ?? 'lagging'}`, ''], [`${p}input frequency`, c.inputFrequencyHz ?? 50, 'Hz'])
+      if (c.inputFilterResonanceHz) inputs.push([`${p}input filter resonance`, c.inputFilterResonanceHz, 'Hz'])
+    }
     inputs.push([`${p}modulation`, c.modulation, ''], [`${p}switching frequency`, c.switchingHz, 'Hz'])
     if (c.overshootVoltage !== undefined) inputs.push([`${p}overshoot`, c.overshootVoltage, 'V'])
   }
