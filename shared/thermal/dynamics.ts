@@ -5,7 +5,8 @@
 //      heatsink temperature, R_th = Σ R_i (Foster) + R_th,ch;
 //   2. instantaneous losses per angle bin from the profile with the figures at that mean T_j (the losses'
 //      own change over the swing is neglected: assumption, stated);
-//   3. T_j(t) = T_ambient + ΔT_ha(t) + R_th,ch·p(t) + ΔT_jc(t) in periodic steady state (network.ts).
+//   3. T_j(t) = T_ambient + ΔT_ha(t) + R_th,ch·p̄ + ΔT_jc(t) in periodic steady state (network.ts); the
+//      case-heatsink layer carries the mean loss p̄ (the baseplate's capacity, seconds, filters the ripple).
 // The mean of the stepped T_j equals the settled mean exactly (the recurrence keeps the mean: R·mean(p)).
 import type { PositionProfile } from '../engine/profile'
 import { fosterNetwork, periodicRise, SINGLE_RTH_NOTE, steadyResistance, type FosterPair } from './network'
@@ -94,7 +95,9 @@ export function junctionDynamics(part: DynamicsPart, kind: 'switch' | 'diode' | 
   const p = binLosses(atMean, kind, duty, switchingHz, series, parallel)
   if (!p) return null
   const rise = periodicRise(network.pairs, p, dt)
-  for (let b = 0; b < B; b++) rise[b]! += rch * p[b]!
+  // The baseplate and heatsink capacities filter the fundamental ripple: R_th,ch carries the mean loss (assumption).
+  const meanLoss = p.reduce((a, x) => a + x, 0) / B
+  for (let b = 0; b < B; b++) rise[b]! += rch * meanLoss
   if (hsPairs.length && heatsinkPower) periodicRise(hsPairs, heatsinkPower, dt, rise)
   else if (cooling.heatsinkRth > 0) for (let b = 0; b < B; b++) rise[b]! += cooling.heatsinkRth * hsMeanPower
   let peak = -Infinity
@@ -109,7 +112,7 @@ export function junctionDynamics(part: DynamicsPart, kind: 'switch' | 'diode' | 
   const mean = sum / B
   let above = 0
   for (let b = 0; b < B; b++) if (cooling.ambientTemperatureC + rise[b]! > mean) above++
-  notes.push('instantaneous losses with the figures at the mean T_j (their change over the swing neglected)')
+  notes.push('instantaneous losses with the figures at the mean T_j (their change over the swing neglected); R_th,ch carries the mean loss')
   return { ...base, meanC: mean, peakC: peak, minC: min, swingK: peak - min, heatingTimeS: above * dt, note: notes.join('; ') }
 }
 

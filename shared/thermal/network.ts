@@ -3,10 +3,10 @@
 //   junction-case    Foster network Z_jc(t) = Σ R_i·(1 − e^(−t/τ_i)), up to four pairs per device from the
 //                    catalogue (the datasheet's Z_th table); without them the single R_th,jc with no thermal
 //                    capacity (the junction follows the instantaneous losses: an upper bound for the peak).
-//   case-heatsink    R_th,ch of the part, no capacity (interface material).
+//   case-heatsink    R_th,ch of the part (interface material) under the baseplate: it carries the mean loss.
 //   heatsink-ambient R_th,ha with one time constant τ_ha, set per design, driven by the summed losses of the
 //                    converter (every position, three phases 120° apart).
-//   T_j(t) = T_ambient + ΔT_ha(t) + R_th,ch·p(t) + ΔT_jc(t): the rises of networks in series added, each
+//   T_j(t) = T_ambient + ΔT_ha(t) + R_th,ch·p̄ + ΔT_jc(t): the rises of networks in series added, each
 //   driven by the power through it (common practice for Foster data, which has no physical inner nodes).
 //
 // Time stepping: the losses are piecewise constant over B bins of the fundamental period (shared/engine/
