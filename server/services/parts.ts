@@ -9,6 +9,7 @@ import { moduleCoverage, type LegPosition } from '#shared/bom/coverage'
 import type { CatalogPart } from '#shared/catalog/types'
 import type { BomSettings } from '#shared/schemas/design'
 import { efficiencyAt, headlinePoint, pointDutiesOf, totalsPerPoint } from '#shared/thermal/losses'
+import { designThermal, type ChoiceThermal, type DesignThermal, type ThermalPosition } from '#shared/thermal/design'
 import { currentCatalogue, partVersionsById } from './catalog'
 import { loadDesign } from './designs'
 
@@ -110,7 +111,7 @@ export interface PositionMatch {
   position: string
   label: string
   duty: PositionDuty
-  candidates: (Candidate & { partVersionId: number, approved: boolean, covers: string[] })[]
+  candidates: (Candidate & { partVersionId: number, approved: boolean, covers: string[], thermal?: ChoiceThermal | null })[]
   /** candidates left out of the default view (not approved, NRND or obsolete); `?show=all` lists them */
   hiddenCandidates: number
   nothingFits: string | null
@@ -124,6 +125,8 @@ export interface PositionMatch {
     parallelCount: number
     /** the assigned part rated at the stored counts against today's duty (null when it cannot serve it) */
     evaluation: Candidate | null
+    /** T_j mean / peak / swing per operating point over the fundamental period (null without the figures) */
+    thermal?: ChoiceThermal | null
     review: AssignmentReview
     coveredBy: string | null
     part: CatalogPart
@@ -188,7 +191,45 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
     const nothingFits = options.summaryOnly || m.fitting + m.leftOut + (hostCandidate ? 1 : 0) > 0 ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.')
     return { side, position: duty.positionName, label, duty, candidates, hiddenCandidates, nothingFits, coveredBy, assigned }
   })
-  return { design, input, result, policy, positions, summary: lossSummary(input, positions, result) }
+  const thermal = attachThermal(input, result, positions, policy)
+  return { design, input, result, policy, positions, thermal, summary: lossSummary(input, positions, result) }
+}
+
+/** Candidates per position whose T_j is followed over the period (the first ones shown; the assigned part always). */
+export const THERMAL_CANDIDATES = 10
+
+/**
+ * T_j over the fundamental period (mean, peak, swing per point) for the assigned part and the first candidates of
+ * every position, and the mission-profile life (shared/thermal/design.ts). A peak past T_j,max − margin is a warning
+ * and makes the part thermally not fine.
+ */
+export function attachThermal(input: DesignInput, result: DesignResult, positions: PositionMatch[], policy: MatchPolicy): Omit<DesignThermal, 'results'> {
+  const list: ThermalPosition[] = positions.map((p) => {
+    const assigned = p.assigned?.evaluation ? [{ part: p.assigned.part, seriesCount: p.assigned.seriesCount, parallelCount: p.assigned.parallelCount }] : []
+    const shown = p.candidates.slice(0, THERMAL_CANDIDATES).map(c => ({ part: c.part, seriesCount: c.seriesCount, parallelCount: c.parallelCount }))
+    const choices = [...assigned, ...shown]
+    return { side: p.side, duty: p.duty, choices, reference: choices.length ? 0 : -1, referenceAssigned: assigned.length > 0 }
+  })
+  const out = withEngine(() => designThermal(input, result.converters, list, policy.junctionMarginC, policy.heatsinkTemperatureC))
+  const mark = (c: Candidate, t: ChoiceThermal | null | undefined) => {
+    if (!t || t.peakOk) return
+    c.thermalOk = false
+    c.warnings.push(`peak T_j ${Math.round(t.peakC * 10) / 10} °C at ${t.worstPointName} passes ${t.limitC} °C (T_j,max − margin): below a few hertz the peak decides`)
+  }
+  positions.forEach((p, i) => {
+    const row = out.results[i]!
+    let k = 0
+    if (p.assigned?.evaluation) {
+      p.assigned.thermal = row[k++] ?? null
+      mark(p.assigned.evaluation, p.assigned.thermal)
+    }
+    p.candidates.slice(0, THERMAL_CANDIDATES).forEach((c) => {
+      c.thermal = row[k++] ?? null
+      mark(c, c.thermal)
+    })
+  })
+  const { results: _r, ...rest } = out
+  return rest
 }
 
 /**

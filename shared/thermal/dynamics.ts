@@ -46,25 +46,33 @@ export interface PointDynamics {
 
 export type DynamicsPart = TemperaturePart & Partial<CatalogPart>
 
-/** W per device in each angle bin, from the profile and the part's figures (already at the wanted T_j). */
+/**
+ * W per device in each angle bin, from the profile and the part's figures (already at the wanted T_j). The
+ * loss is linear in the duty (losses.ts): its coefficients come from deviceLossAtPoint at unit duties, so the
+ * formula exists once and each bin costs five multiplications.
+ */
 export function binLosses(part: DynamicsPart, kind: 'switch' | 'diode' | 'clamp-diode', duty: ProfiledDuty, switchingHz: number, series: number, parallel: number): Float64Array | null {
   const profile = duty.profile
   if (!profile) return null
+  const withSwitching = !!(profile.turnOn && profile.turnOff && profile.recovery)
+  const at = (avg: number, sq: number, on: number, off: number, rr: number) => deviceLossAtPoint(part, kind, {
+    pointName: duty.pointName, currentAvg: avg, currentRms: Math.sqrt(sq), currentPeak: duty.currentPeak, commutatedVoltage: duty.commutatedVoltage,
+    ...(withSwitching ? { switchingDuty: { turnOn: on, turnOff: off, recovery: rr } } : {}),
+  }, switchingHz, series, parallel)
+  const zero = at(0, 0, 0, 0, 0)
+  if (!zero) return null
+  // Without a commutation model the fallback switching loss is constant over the period (in `zero`).
+  const c0 = zero.total
+  const cAvg = at(1, 0, 0, 0, 0)!.total - c0
+  const cSq = at(0, 1, 0, 0, 0)!.total - c0
+  const cOn = withSwitching ? at(0, 0, 1, 0, 0)!.total - c0 : 0
+  const cOff = withSwitching ? at(0, 0, 0, 1, 0)!.total - c0 : 0
+  const cRr = withSwitching ? at(0, 0, 0, 0, 1)!.total - c0 : 0
   const B = profile.currentAbs.length
   const out = new Float64Array(B)
   for (let b = 0; b < B; b++) {
-    // The per-bin duty in the shape deviceLossAtPoint takes: the loss formula exists once (losses.ts).
-    const bin: PointDuty = {
-      pointName: duty.pointName,
-      currentAvg: profile.currentAbs[b]!,
-      currentRms: Math.sqrt(Math.max(0, profile.currentSquare[b]!)),
-      currentPeak: duty.currentPeak,
-      commutatedVoltage: duty.commutatedVoltage,
-      ...(profile.turnOn && profile.turnOff && profile.recovery ? { switchingDuty: { turnOn: profile.turnOn[b]!, turnOff: profile.turnOff[b]!, recovery: profile.recovery[b]! } } : {}),
-    }
-    const loss = deviceLossAtPoint(part, kind, bin, switchingHz, series, parallel)
-    if (!loss) return null
-    out[b] = loss.total
+    out[b] = c0 + cAvg * profile.currentAbs[b]! + cSq * profile.currentSquare[b]!
+      + (withSwitching ? cOn * profile.turnOn![b]! + cOff * profile.turnOff![b]! + cRr * profile.recovery![b]! : 0)
   }
   return out
 }
