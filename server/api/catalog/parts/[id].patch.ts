@@ -23,8 +23,8 @@ export default defineEventHandler(async (event) => {
     if (approved !== undefined) await tx.update(tables.parts).set({ approved }).where(eq(tables.parts.id, id))
     const changes = Object.fromEntries(Object.entries(edits).filter(([, v]) => v !== undefined))
     if (Object.keys(changes).length) {
-      const part = { ...(row.data as CatalogPart), ...changes } as CatalogPart & Record<string, unknown>
-      for (const [k, v] of Object.entries(changes)) if (v === null) delete part[k]
+      // null clears a field: it is left out of the new version's data
+      const part = Object.fromEntries(Object.entries({ ...(row.data as CatalogPart), ...changes }).filter(([, v]) => v !== null)) as unknown as CatalogPart
       const refused = fosterProblems(part).filter(p => p.severity === 'error')
       if (refused.length) throw createError({ statusCode: 422, message: refused[0]!.message, data: { issues: refused.map(p => ({ path: [p.field], message: p.message })) } })
       await commitParts(tx, [part], { userId: user.id, note: `Edited ${part.partNumber} (${Object.keys(changes).join(', ')})`, approve: row.part.approved })
