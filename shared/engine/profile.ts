@@ -77,7 +77,7 @@ export function lossProfile(input: StressInput, bins = PROFILE_BINS): LossProfil
     }
     if (switching) {
       const roles = [new Float64Array(bins), new Float64Array(bins), new Float64Array(bins)] as const
-      for (let b = 0; b < bins; b++) for (let r = 0; r < 3; r++) roles[r][b] = (binned.sums[(b * P + k) * 3 + r]! / SAMPLES_PER_BIN) * scales.unitNominal
+      for (let b = 0; b < bins; b++) for (let r = 0; r < 3; r++) roles[r]![b] = (binned.sums[(b * P + k) * 3 + r]! / SAMPLES_PER_BIN) * scales.unitNominal
       ;[out.turnOn, out.turnOff, out.recovery] = roles
     }
     return out

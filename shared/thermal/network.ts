@@ -61,7 +61,7 @@ export function stepResponse(pairs: readonly FosterPair[], t: number): number {
  * K, temperature rise of the network at the end of each step in periodic steady state, driven by `power` (W,
  * one value per step of `dt` s, repeating). Adds into `out` when given (series networks share one sum).
  */
-export function periodicRise(pairs: readonly FosterPair[], power: ArrayLike<number>, dt: number, out = new Float64Array(power.length)): Float64Array {
+export function periodicRise(pairs: readonly FosterPair[], power: ArrayLike<number>, dt: number, out: Float64Array = new Float64Array(power.length)): Float64Array {
   const n = power.length
   for (const { r, tau } of pairs) {
     if (!(tau > 0)) {

@@ -26,7 +26,7 @@ export default defineEventHandler(async (event) => {
       // null clears a field: it is left out of the new version's data
       const part = Object.fromEntries(Object.entries({ ...(row.data as CatalogPart), ...changes }).filter(([, v]) => v !== null)) as unknown as CatalogPart
       const refused = fosterProblems(part).filter(p => p.severity === 'error')
-      if (refused.length) throw createError({ statusCode: 422, message: refused[0]!.message, data: { issues: refused.map(p => ({ path: [p.field], message: p.message })) } })
+      if (refused.length) throw createError({ statusCode: 422, message: refused[0]!.message, data: { issues: refused.map(p => ({ path: p.field, message: p.message })) } })
       await commitParts(tx, [part], { userId: user.id, note: `Edited ${part.partNumber} (${Object.keys(changes).join(', ')})`, approve: row.part.approved })
     }
     return row
