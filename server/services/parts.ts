@@ -10,6 +10,8 @@ import type { CatalogPart } from '#shared/catalog/types'
 import type { BomSettings } from '#shared/schemas/design'
 import { efficiencyAt, headlinePoint, pointDutiesOf, totalsPerPoint } from '#shared/thermal/losses'
 import { designThermal, type ChoiceThermal, type DesignThermal, type ThermalPosition } from '#shared/thermal/design'
+import type { ReportEvaluation } from '../exports/design-pdf'
+import { formatNumber } from '../exports/format'
 import { currentCatalogue, partVersionsById } from './catalog'
 import { loadDesign } from './designs'
 
@@ -272,4 +274,66 @@ export function lossSummary(input: DesignInput, positions: PositionMatch[], resu
       maxJunctionC: Math.max(...assigned.map(p => p.assigned!.evaluation!.junctionTemperatureC ?? -Infinity)),
     }
   })
+}
+
+const round1 = (v: number) => Math.round(v * 10) / 10
+
+/**
+ * What the design report prints of the parts: assigned parts with T_j mean / peak, losses, efficiency and T_j per
+ * operating point, the lifetime per position, the derating and the assumptions (item 6 of issue 12).
+ */
+export function reportEvaluation(match: Awaited<ReturnType<typeof matchDesign>>, locale?: string): ReportEvaluation {
+  const { positions, summary, thermal, result } = match
+  const d = result.derating
+  const num = (v: number, digits: number) => formatNumber(v, digits, locale)
+  const pct = (v: number) => `${num(v * 100, 1)} %`
+  const derating: [string, string][] = [
+    ['Semiconductor voltage utilisation', pct(d.semiconductorVoltageUtilisation)],
+    ['Transient margin (V + ΔV) / rating', pct(d.semiconductorTransientMargin)],
+    ['Semiconductor current utilisation', pct(d.semiconductorCurrentUtilisation)],
+    ['Capacitor voltage utilisation', pct(d.capacitorVoltageUtilisation)],
+    ['Capacitor ripple utilisation', pct(d.capacitorRippleUtilisation)],
+    ['Junction margin below T_j,max', `${d.junctionMarginC} °C`],
+    ['Heatsink temperature (steady check)', `${d.heatsinkTemperatureC} °C`],
+  ]
+  const assigned = positions.filter(p => p.assigned)
+  const parts = assigned.map(p => ({
+    side: p.side,
+    position: p.position,
+    part: `${p.assigned!.part.manufacturer} ${p.assigned!.part.partNumber}`,
+    arrangement: `${p.assigned!.seriesCount} × ${p.assigned!.parallelCount}`,
+    meanC: p.assigned!.thermal ? round1(p.assigned!.thermal.meanC) : (p.assigned!.evaluation?.junctionTemperatureC ?? null),
+    peakC: p.assigned!.thermal ? round1(p.assigned!.thermal.peakC) : null,
+    limitC: p.assigned!.thermal?.limitC ?? p.assigned!.evaluation?.junctionLimitC ?? null,
+    peakPoint: p.assigned!.thermal?.worstPointName ?? null,
+  }))
+  const points = summary.flatMap(s => s.perPoint.map((pt) => {
+    let hottest: string | null = null
+    let meanC: number | null = null
+    let peakC: number | null = null
+    for (const p of assigned.filter(x => (x.side === s.side || (s.side === 'machine' && x.side === 'dc-link')) && x.assigned!.thermal)) {
+      const at = p.assigned!.thermal!.perPoint.find(q => q.pointName === pt.pointName)
+      if (!at) continue
+      meanC = Math.max(meanC ?? -Infinity, round1(at.meanC))
+      if (peakC === null || at.peakC > peakC) { peakC = round1(at.peakC); hottest = p.position }
+    }
+    return { side: s.side, pointName: pt.pointName, lossW: pt.lossW, efficiency: pt.efficiency, meanC, peakC, hottest }
+  }))
+  const life = thermal.life
+    ? {
+        limiting: thermal.life.limiting ? `${thermal.life.limiting.position} (${thermal.life.limiting.side} side), ${num(Math.round(thermal.life.limiting.lifeHours), 0)} h of operation` : null,
+        positions: thermal.life.positions.map(p => ({ side: p.side, position: p.position, part: p.partNumber, lifeHours: p.lifeHours, method: p.method, source: p.source })),
+      }
+    : null
+  const hottest = parts.filter(p => p.peakC !== null).reduce<typeof parts[number] | null>((a, b) => (!a || b.peakC! > a.peakC! ? b : a), null)
+  const headline: [string, string][] = summary.flatMap(s => [
+    [`${s.side === 'grid' ? 'Grid' : 'Machine'} side: semiconductor losses`, s.pointName ? `${num(s.semiconductorLossW, 0)} W at ${s.pointName}` : '—'],
+    [`${s.side === 'grid' ? 'Grid' : 'Machine'} side: efficiency`, s.efficiency === null ? '—' : `${num(s.efficiency * 100, 2)} % at ${s.pointName}`],
+  ] as [string, string][])
+  headline.push(['Highest peak T_j', hottest ? `${num(hottest.peakC!, 1)} °C at ${hottest.position}, ${hottest.peakPoint} (limit ${num(hottest.limitC!, 0)} °C)` : '—'])
+  headline.push(['Positions with a part', `${assigned.length} of ${positions.length}`])
+  if (life) headline.push(['Lifetime', life.limiting ?? 'no cycling damage'])
+  const gaps = positions.filter(p => !p.assigned).map(p => `${p.position} (${p.side}): no part assigned, not in the figures`)
+  if (thermal.life) gaps.push(...thermal.life.skipped.map(s => `Lifetime not estimated for ${s}`))
+  return { derating, assumptions: [thermal.method, ...thermal.assumptions], parts, points, headline, life, gaps }
 }
