@@ -12,7 +12,7 @@ import { resolveStressInput } from './validate'
 
 /** Angle bins per fundamental period: a multiple of 3, so the other phases are the same profile shifted by B/3. */
 export const PROFILE_BINS = 96
-const SAMPLES_PER_BIN = 24
+const SAMPLES_PER_BIN = 12
 
 export interface PositionProfile {
   name: string

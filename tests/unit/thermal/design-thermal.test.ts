@@ -55,7 +55,7 @@ describe('design thermal evaluation', () => {
       const total = list.reduce((s, p) => s + 3 * p.duty.positionsPerPhase * deviceLossAtPoint(part, p.duty.kind as 'switch' | 'diode', p.duty.points![k]!, 2500)!.total, 0)
       const t = out.results[0]![0]!.perPoint[k]!
       expect(t.pointName).toBe(name)
-      // The profile samples the period at 2304 points, the point's losses at 2048: within 10⁻⁴ K.
+      // The profile samples the period at 1152 points, the point's losses at 2048: within 10⁻⁴ K.
       expect(Math.abs(t.heatsinkC - (40 + 0.02 * total))).toBeLessThan(1e-4)
     }
   })
