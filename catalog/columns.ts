@@ -68,9 +68,20 @@ export type ColumnKey
     | 'rthJunctionCaseSwitch' | 'rthJunctionCaseDiode' | 'rthCaseHeatsink' | 'junctionTemperatureMax'
     | 'lossDataTemperature' | 'switchThresholdVoltage25' | 'switchSlopeResistance25' | 'diodeThresholdVoltage25' | 'diodeSlopeResistance25'
     | 'turnOnEnergy25' | 'turnOffEnergy25' | 'recoveryEnergy25'
+    | FosterColumnKey
+    | 'capacitorRatedLife' | 'capacitorRatedTemperature' | 'capacitorRthHotSpot'
     | 'capacitance' | 'rippleCurrentRating' | 'esr'
     | 'priceBreaks' | 'currency' | 'minimumOrderQuantity' | 'stock' | 'leadTimeDays' | 'lifecycle'
     | 'supplier' | 'datasheetUrl' | 'description'
+
+/** Foster network junction-case, up to four R/τ pairs per device (shared/thermal/network.ts). */
+export const FOSTER_PAIRS = 4
+export type FosterDevice = 'Switch' | 'Diode'
+export type FosterColumnKey = `zth${FosterDevice}${'R' | 'Tau'}${1 | 2 | 3 | 4}`
+/** The Foster columns of one device, pair by pair: [R_i key, τ_i key]. */
+export function fosterKeys(device: FosterDevice): [FosterColumnKey, FosterColumnKey][] {
+  return Array.from({ length: FOSTER_PAIRS }, (_, i) => [`zth${device}R${i + 1}` as FosterColumnKey, `zth${device}Tau${i + 1}` as FosterColumnKey])
+}
 
 export type ExampleValue = string | number
 
@@ -291,6 +302,22 @@ export const CATALOG_COLUMNS: readonly CatalogColumn[] = [
     examples: { 'switch-diode': '15 mJ' },
     aliases: ['err 25', 'erec 25', 'err 25c'],
   },
+  // Optional transient thermal impedance junction-case as a Foster network Z(t) = Σ R_i·(1 − e^(−t/τ_i)),
+  // up to four pairs per device (the datasheet's Z_th table). Without it the single R_th above is used.
+  ...(['Switch', 'Diode'] as const).flatMap(device => fosterKeys(device).flatMap(([rKey, tauKey], i): CatalogColumn[] => [
+    {
+      key: rKey, header: `Zth ${device.toLowerCase()} R${i + 1}`, unit: 'K/W', type: 'number', requiredFor: [], min: 0, max: 50,
+      description: `Foster network junction-case of one ${device.toLowerCase()}: R of pair ${i + 1} (optional; the R_i sum to R_th,jc).`,
+      examples: device === 'Switch' ? { 'switch-diode': [0.006, 0.02, 0.03, 0.009][i]! } : { 'switch-diode': [0.01, 0.035, 0.05, 0.015][i]! },
+      aliases: [`zth ${device.toLowerCase()} r${i + 1}`, `r${i + 1} ${device.toLowerCase()}`, `${device === 'Switch' ? 'igbt' : 'fwd'} r${i + 1}`],
+    },
+    {
+      key: tauKey, header: `Zth ${device.toLowerCase()} τ${i + 1}`, unit: 's', type: 'number', requiredFor: [], min: 1e-7, max: 10000,
+      description: `Foster network junction-case of one ${device.toLowerCase()}: time constant of pair ${i + 1} (give it with R${i + 1}).`,
+      examples: device === 'Switch' ? { 'switch-diode': ['0.8 ms', '12 ms', '60 ms', '0.4 s'][i]! } : { 'switch-diode': ['0.6 ms', '10 ms', '50 ms', '0.3 s'][i]! },
+      aliases: [`zth ${device.toLowerCase()} tau${i + 1}`, `zth ${device.toLowerCase()} t${i + 1}`, `tau${i + 1} ${device.toLowerCase()}`, `${device === 'Switch' ? 'igbt' : 'fwd'} tau${i + 1}`],
+    },
+  ])),
   {
     key: 'capacitance', header: 'Capacitance', unit: 'F', type: 'number', requiredFor: ['capacitor'], min: 1e-12, max: 100,
     description: 'Rated capacitance (e.g. "500 µF").',
@@ -308,6 +335,26 @@ export const CATALOG_COLUMNS: readonly CatalogColumn[] = [
     description: 'Optional: equivalent series resistance at the switching frequency, for capacitor losses.',
     examples: { capacitor: '1.2 mΩ' },
     aliases: ['esr', 'rs', 'equivalent series resistance', 'r esr'],
+  },
+  // Optional electrolytic life data: rated life at the rated (hot-spot) temperature; life doubles per 10 K
+  // below it (common practice, shared/thermal/lifetime.ts).
+  {
+    key: 'capacitorRatedLife', header: 'Rated life', unit: 'h', type: 'number', requiredFor: [], min: 1, max: 1_000_000,
+    description: 'Optional, electrolytic capacitors: rated (load) life in hours at the rated temperature.',
+    examples: { capacitor: 10000 },
+    aliases: ['rated life', 'load life', 'useful life', 'lifetime', 'life hours', 'endurance'],
+  },
+  {
+    key: 'capacitorRatedTemperature', header: 'Rated life temperature', unit: '°C', type: 'number', requiredFor: [], min: 40, max: 200,
+    description: 'Optional: the temperature the rated life holds at (the category temperature, e.g. 105 °C).',
+    examples: { capacitor: 105 },
+    aliases: ['rated temperature', 'category temperature', 'life temperature', 'max operating temperature'],
+  },
+  {
+    key: 'capacitorRthHotSpot', header: 'Rth hot spot-ambient', unit: 'K/W', type: 'number', requiredFor: [], min: 0, max: 500,
+    description: 'Optional: thermal resistance from the capacitor\'s hot spot to the ambient or cooling, for its hot-spot temperature.',
+    examples: { capacitor: 3.5 },
+    aliases: ['rth hot spot', 'rth hotspot', 'rth capacitor', 'rth cap', 'thermal resistance hot spot'],
   },
   {
     key: 'priceBreaks', header: 'Unit price breaks', unit: 'per piece', type: 'priceBreaks', requiredFor: [],

@@ -237,6 +237,10 @@ function semiconductorPart(spec: SemiSpec, random: () => number): CatalogPart {
     part.rthJunctionCaseDiode = roundTo(((si.rthSwitchK * (spec.kind === 'diode' ? 1.2 : 1.7)) / I) * rthScale * jitter(), 3)
   }
   part.energyReferenceCurrent = I
+  // Foster networks junction-case: R_th,jc split over four pairs in a typical module shape (invented; no random
+  // draw, so the rest of the demo catalogue stays as it was).
+  if (part.rthJunctionCaseSwitch !== undefined) fosterFor(part, 'Switch', part.rthJunctionCaseSwitch)
+  if (part.rthJunctionCaseDiode !== undefined) fosterFor(part, 'Diode', part.rthJunctionCaseDiode)
   const rthJc = part.rthJunctionCaseSwitch ?? part.rthJunctionCaseDiode!
   part.rthCaseHeatsink = roundTo(rthJc * (isModule ? 0.45 : 0.8), 3)
   part.junctionTemperatureMax = sic || spec.maker === 'osprey' ? 175 : si.tjMax
@@ -263,6 +267,17 @@ function semiconductorPart(spec: SemiSpec, random: () => number): CatalogPart {
   return part
 }
 
+const FOSTER_SHARES = [0.1, 0.3, 0.45, 0.15] as const
+const FOSTER_TAUS = [0.0008, 0.01, 0.06, 0.4] as const
+
+function fosterFor(part: CatalogPart, device: 'Switch' | 'Diode', rth: number): void {
+  const out = part as unknown as Record<string, number>
+  FOSTER_SHARES.forEach((share, i) => {
+    out[`zth${device}R${i + 1}`] = roundTo(rth * share, 3)
+    out[`zth${device}Tau${i + 1}`] = FOSTER_TAUS[i]!
+  })
+}
+
 function capacitorPart(maker: 'morrow' | 'pellworth', row: [number, number, number, number, number], random: () => number): CatalogPart {
   const [voltage, microfarad, ripple, esrMilliohm, price] = row
   const m = DEMO_MANUFACTURERS[maker]
@@ -279,6 +294,8 @@ function capacitorPart(maker: 'morrow' | 'pellworth', row: [number, number, numb
     capacitance: roundTo(microfarad * 1e-6, 4),
     rippleCurrentRating: ripple,
     esr: roundTo(esrMilliohm * 1e-3, 3),
+    // Electrolytic life data (invented, typical of a 105 °C screw-terminal type).
+    ...(film ? {} : { capacitorRatedLife: 10000, capacitorRatedTemperature: 105, capacitorRthHotSpot: roundTo(2.2 * Math.sqrt(1000 / microfarad), 2) }),
     priceBreaks: priceBreaksFor(unitPrice, false, unitPrice < 60),
     currency: 'EUR',
     minimumOrderQuantity: film ? 1 : 10,

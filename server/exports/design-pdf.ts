@@ -98,7 +98,28 @@ export interface DesignReport {
   spectrum?: { order: number, frequency?: number, amplitude: number }[]
   /** fraction (0.31 = 31 %) */
   lineVoltageThd?: number
+  /** the parts, losses, T_j and lifetime (the design's current revision with assigned parts) */
+  evaluation?: ReportEvaluation
   safetyNote: string
+}
+
+/** Assigned parts and what they give per operating point: losses, efficiency, T_j mean and peak, lifetime. */
+export interface ReportEvaluation {
+  /** [label, value]: the derating policy as applied */
+  derating: [string, string][]
+  /** one sentence each */
+  assumptions: string[]
+  parts: { side: string, position: string, part: string, arrangement: string, meanC: number | null, peakC: number | null, limitC: number | null, peakPoint: string | null }[]
+  /** per converter side and operating point */
+  points: { side: string, pointName: string, lossW: number, efficiency: number | null, meanC: number | null, peakC: number | null, hottest: string | null }[]
+  /** headline figures [label, value] for the summary page */
+  headline: [string, string][]
+  life: null | {
+    limiting: string | null
+    positions: { side: string, position: string, part: string, lifeHours: number, method: string, source: string }[]
+  }
+  /** why figures are missing (e.g. positions without a part) */
+  gaps: string[]
 }
 
 /** Report input the PDF cannot be made from; `field` names it. */
@@ -258,10 +279,48 @@ function spectrumSection(report: DesignReport): Content[] {
   return out
 }
 
+const hoursText = (h: number, locale?: string) => (Number.isFinite(h) ? `${formatNumber(Math.round(h), 0, locale)} h` : 'no cycling')
+
+/** Page 1: the figures a review signs off, the assumptions, and the signature block. */
+function reviewSummary(report: DesignReport, e: ReportEvaluation): Content[] {
+  const n = cellIn(report.locale)
+  const out: Content[] = [
+    { text: `Design review summary: ${report.designName}`, style: 'h1' },
+    { text: [`Revision ${report.revision}`, ` · ${report.author}`, ` · ${formatDateTime(report.date, report.locale)}`].join(''), margin: [0, 0, 0, 2] },
+  ]
+  if (report.topologySummary) out.push({ text: report.topologySummary, margin: [0, 0, 0, 4] })
+  out.push(heading('Key figures'), table([200, '*'], [h('Figure', 'left'), h('Value', 'left')], e.headline.map(([k, v]) => [{ text: k }, { text: v }])))
+  if (e.life?.limiting) out.push({ text: `Lifetime limited by ${e.life.limiting}.`, bold: true, margin: [0, 4, 0, 0] })
+  out.push(heading('Assigned parts'), table([40, 44, '*', 40, 44, 44, 44], [h('Side', 'left'), h('Position', 'left'), h('Part', 'left'), h('S × P'), h('T_j mean [°C]'), h('T_j peak [°C]'), h('Limit [°C]')],
+    e.parts.map(p => [{ text: p.side }, { text: p.position }, { text: p.part }, { text: p.arrangement, alignment: 'right' }, n(p.meanC, 1), { ...n(p.peakC, 1) as object, ...(p.peakC !== null && p.limitC !== null && p.peakC > p.limitC ? { bold: true, color: '#b91c1c' } : {}) } as TableCell, n(p.limitC, 0)])))
+  out.push(heading('Derating policy'), table([200, 100], [h('Rule', 'left'), h('Value')], e.derating.map(([k, v]) => [{ text: k }, { text: v, alignment: 'right' }])))
+  out.push(heading('Assumptions'), { ul: [...e.assumptions, ...e.gaps].map(a => ({ text: a, style: 'small' })) })
+  out.push(heading('Sign-off'), table([90, '*', 80, 110], [h('Role', 'left'), h('Name', 'left'), h('Date', 'left'), h('Signature', 'left')],
+    ['Prepared by', 'Reviewed by', 'Approved by'].map(role => [{ text: role, margin: [0, 8, 0, 8] }, { text: '' }, { text: '' }, { text: '' }])))
+  return out
+}
+
+/** Losses, efficiency and T_j per operating point, and the lifetime per position. */
+function evaluationSection(report: DesignReport, e: ReportEvaluation): Content[] {
+  const n = cellIn(report.locale)
+  const out: Content[] = [heading('Losses and junction temperature per operating point (assigned parts)')]
+  out.push(table([40, '*', 60, 50, 50, 50, 70], [h('Side', 'left'), h('Operating point', 'left'), h('Losses [W]'), h('Efficiency [%]'), h('T_j mean [°C]'), h('T_j peak [°C]'), h('Hottest', 'left')],
+    e.points.map(p => [{ text: p.side }, { text: p.pointName }, n(p.lossW, 0), n(p.efficiency === null ? null : p.efficiency * 100, 2), n(p.meanC, 1), n(p.peakC, 1), { text: p.hottest ?? '—' }])))
+  out.push({ text: 'T_j mean and peak: the highest over the positions at that point, the peak from time-stepping the instantaneous losses over the fundamental period.', style: 'small', margin: [0, 2, 0, 0] })
+  if (e.life) {
+    out.push(heading('Lifetime from the mission profile'))
+    if (e.life.limiting) out.push({ text: `Limited by ${e.life.limiting}.`, margin: [0, 0, 0, 3] })
+    out.push(table([40, 44, 80, 60, '*'], [h('Side', 'left'), h('Position', 'left'), h('Part', 'left'), h('Life'), h('Method and source', 'left')],
+      e.life.positions.map(p => [{ text: p.side }, { text: p.position }, { text: p.part }, { text: hoursText(p.lifeHours, report.locale), alignment: 'right' }, { text: `${p.method}. ${p.source}`, style: 'small' }])))
+  }
+  return out
+}
+
 function documentFor(report: DesignReport, schematic: 'draw' | { failed: string }): TDocumentDefinitions {
   const title = `Design report: ${report.designName}`
   const content: Content[] = [
-    { text: title, style: 'h1' },
+    ...(report.evaluation ? reviewSummary(report, report.evaluation) : []),
+    { text: title, style: 'h1', ...(report.evaluation ? { pageBreak: 'before' as const } : {}) },
     { text: [`Revision ${report.revision}`, ` · ${report.author}`, ` · ${formatDateTime(report.date, report.locale)}`].join(''), margin: [0, 0, 0, 2] },
   ]
   if (report.topologySummary) content.push({ text: report.topologySummary, margin: [0, 0, 0, 6] })
@@ -284,6 +343,7 @@ function documentFor(report: DesignReport, schematic: 'draw' | { failed: string 
   if (report.operatingPoints.length > 0) content.push(heading('Operating points'), operatingPointsTable(report))
   if (report.devices.length > 0) content.push(heading('Device positions (worst case over the operating points)'), devicesTable(report))
   if (report.capacitors.length > 0) content.push(heading('Capacitors'), capacitorsTable(report))
+  if (report.evaluation) content.push(...evaluationSection(report, report.evaluation))
   content.push(...waveformSection(report), ...spectrumSection(report))
   content.push(heading('Warnings'))
   content.push(report.warnings.length > 0 ? { ul: report.warnings.map(w => ({ text: w })) } : { text: 'None.' })

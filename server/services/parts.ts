@@ -9,6 +9,9 @@ import { moduleCoverage, type LegPosition } from '#shared/bom/coverage'
 import type { CatalogPart } from '#shared/catalog/types'
 import type { BomSettings } from '#shared/schemas/design'
 import { efficiencyAt, headlinePoint, pointDutiesOf, totalsPerPoint } from '#shared/thermal/losses'
+import { designThermal, type ChoiceThermal, type DesignThermal, type ThermalPosition } from '#shared/thermal/design'
+import type { ReportEvaluation } from '../exports/design-pdf'
+import { formatNumber } from '../exports/format'
 import { currentCatalogue, partVersionsById } from './catalog'
 import { loadDesign } from './designs'
 
@@ -110,7 +113,7 @@ export interface PositionMatch {
   position: string
   label: string
   duty: PositionDuty
-  candidates: (Candidate & { partVersionId: number, approved: boolean, covers: string[] })[]
+  candidates: (Candidate & { partVersionId: number, approved: boolean, covers: string[], thermal?: ChoiceThermal | null })[]
   /** candidates left out of the default view (not approved, NRND or obsolete); `?show=all` lists them */
   hiddenCandidates: number
   nothingFits: string | null
@@ -124,6 +127,8 @@ export interface PositionMatch {
     parallelCount: number
     /** the assigned part rated at the stored counts against today's duty (null when it cannot serve it) */
     evaluation: Candidate | null
+    /** T_j mean / peak / swing per operating point over the fundamental period (null without the figures) */
+    thermal?: ChoiceThermal | null
     review: AssignmentReview
     coveredBy: string | null
     part: CatalogPart
@@ -188,7 +193,45 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
     const nothingFits = options.summaryOnly || m.fitting + m.leftOut + (hostCandidate ? 1 : 0) > 0 ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.')
     return { side, position: duty.positionName, label, duty, candidates, hiddenCandidates, nothingFits, coveredBy, assigned }
   })
-  return { design, input, result, policy, positions, summary: lossSummary(input, positions, result) }
+  const thermal = attachThermal(input, result, positions, policy)
+  return { design, input, result, policy, positions, thermal, summary: lossSummary(input, positions, result) }
+}
+
+/** Candidates per position whose T_j is followed over the period (the first ones shown; the assigned part always). */
+export const THERMAL_CANDIDATES = 10
+
+/**
+ * T_j over the fundamental period (mean, peak, swing per point) for the assigned part and the first candidates of
+ * every position, and the mission-profile life (shared/thermal/design.ts). A peak past T_j,max − margin is a warning
+ * and makes the part thermally not fine.
+ */
+export function attachThermal(input: DesignInput, result: DesignResult, positions: PositionMatch[], policy: MatchPolicy): Omit<DesignThermal, 'results'> {
+  const list: ThermalPosition[] = positions.map((p) => {
+    const assigned = p.assigned?.evaluation ? [{ part: p.assigned.part, seriesCount: p.assigned.seriesCount, parallelCount: p.assigned.parallelCount }] : []
+    const shown = p.candidates.slice(0, THERMAL_CANDIDATES).map(c => ({ part: c.part, seriesCount: c.seriesCount, parallelCount: c.parallelCount }))
+    const choices = [...assigned, ...shown]
+    return { side: p.side, duty: p.duty, choices, reference: choices.length ? 0 : -1, referenceAssigned: assigned.length > 0 }
+  })
+  const out = withEngine(() => designThermal(input, result.converters, list, policy.junctionMarginC, policy.heatsinkTemperatureC))
+  const mark = (c: Candidate, t: ChoiceThermal | null | undefined) => {
+    if (!t || t.peakOk) return
+    c.thermalOk = false
+    c.warnings.push(`peak T_j ${Math.round(t.peakC * 10) / 10} °C at ${t.worstPointName} passes ${t.limitC} °C (T_j,max − margin): below a few hertz the peak decides`)
+  }
+  positions.forEach((p, i) => {
+    const row = out.results[i]!
+    let k = 0
+    if (p.assigned?.evaluation) {
+      p.assigned.thermal = row[k++] ?? null
+      mark(p.assigned.evaluation, p.assigned.thermal)
+    }
+    p.candidates.slice(0, THERMAL_CANDIDATES).forEach((c) => {
+      c.thermal = row[k++] ?? null
+      mark(c, c.thermal)
+    })
+  })
+  const { results: _r, ...rest } = out
+  return rest
 }
 
 /**
@@ -231,4 +274,66 @@ export function lossSummary(input: DesignInput, positions: PositionMatch[], resu
       maxJunctionC: Math.max(...assigned.map(p => p.assigned!.evaluation!.junctionTemperatureC ?? -Infinity)),
     }
   })
+}
+
+const round1 = (v: number) => Math.round(v * 10) / 10
+
+/**
+ * What the design report prints of the parts: assigned parts with T_j mean / peak, losses, efficiency and T_j per
+ * operating point, the lifetime per position, the derating and the assumptions (item 6 of issue 12).
+ */
+export function reportEvaluation(match: Awaited<ReturnType<typeof matchDesign>>, locale?: string): ReportEvaluation {
+  const { positions, summary, thermal, result } = match
+  const d = result.derating
+  const num = (v: number, digits: number) => formatNumber(v, digits, locale)
+  const pct = (v: number) => `${num(v * 100, 1)} %`
+  const derating: [string, string][] = [
+    ['Semiconductor voltage utilisation', pct(d.semiconductorVoltageUtilisation)],
+    ['Transient margin (V + ΔV) / rating', pct(d.semiconductorTransientMargin)],
+    ['Semiconductor current utilisation', pct(d.semiconductorCurrentUtilisation)],
+    ['Capacitor voltage utilisation', pct(d.capacitorVoltageUtilisation)],
+    ['Capacitor ripple utilisation', pct(d.capacitorRippleUtilisation)],
+    ['Junction margin below T_j,max', `${d.junctionMarginC} °C`],
+    ['Heatsink temperature (steady check)', `${d.heatsinkTemperatureC} °C`],
+  ]
+  const assigned = positions.filter(p => p.assigned)
+  const parts = assigned.map(p => ({
+    side: p.side,
+    position: p.position,
+    part: `${p.assigned!.part.manufacturer} ${p.assigned!.part.partNumber}`,
+    arrangement: `${p.assigned!.seriesCount} × ${p.assigned!.parallelCount}`,
+    meanC: p.assigned!.thermal ? round1(p.assigned!.thermal.meanC) : (p.assigned!.evaluation?.junctionTemperatureC ?? null),
+    peakC: p.assigned!.thermal ? round1(p.assigned!.thermal.peakC) : null,
+    limitC: p.assigned!.thermal?.limitC ?? p.assigned!.evaluation?.junctionLimitC ?? null,
+    peakPoint: p.assigned!.thermal?.worstPointName ?? null,
+  }))
+  const points = summary.flatMap(s => s.perPoint.map((pt) => {
+    let hottest: string | null = null
+    let meanC: number | null = null
+    let peakC: number | null = null
+    for (const p of assigned.filter(x => (x.side === s.side || (s.side === 'machine' && x.side === 'dc-link')) && x.assigned!.thermal)) {
+      const at = p.assigned!.thermal!.perPoint.find(q => q.pointName === pt.pointName)
+      if (!at) continue
+      meanC = Math.max(meanC ?? -Infinity, round1(at.meanC))
+      if (peakC === null || at.peakC > peakC) { peakC = round1(at.peakC); hottest = p.position }
+    }
+    return { side: s.side, pointName: pt.pointName, lossW: pt.lossW, efficiency: pt.efficiency, meanC, peakC, hottest }
+  }))
+  const life = thermal.life
+    ? {
+        limiting: thermal.life.limiting ? `${thermal.life.limiting.position} (${thermal.life.limiting.side} side), ${num(Math.round(thermal.life.limiting.lifeHours), 0)} h of operation` : null,
+        positions: thermal.life.positions.map(p => ({ side: p.side, position: p.position, part: p.partNumber, lifeHours: p.lifeHours, method: p.method, source: p.source })),
+      }
+    : null
+  const hottest = parts.filter(p => p.peakC !== null).reduce<typeof parts[number] | null>((a, b) => (!a || b.peakC! > a.peakC! ? b : a), null)
+  const headline: [string, string][] = summary.flatMap(s => [
+    [`${s.side === 'grid' ? 'Grid' : 'Machine'} side: semiconductor losses`, s.pointName ? `${num(s.semiconductorLossW, 0)} W at ${s.pointName}` : '—'],
+    [`${s.side === 'grid' ? 'Grid' : 'Machine'} side: efficiency`, s.efficiency === null ? '—' : `${num(s.efficiency * 100, 2)} % at ${s.pointName}`],
+  ] as [string, string][])
+  headline.push(['Highest peak T_j', hottest ? `${num(hottest.peakC!, 1)} °C at ${hottest.position}, ${hottest.peakPoint} (limit ${num(hottest.limitC!, 0)} °C)` : '—'])
+  headline.push(['Positions with a part', `${assigned.length} of ${positions.length}`])
+  if (life) headline.push(['Lifetime', life.limiting ?? 'no cycling damage'])
+  const gaps = positions.filter(p => !p.assigned).map(p => `${p.position} (${p.side}): no part assigned, not in the figures`)
+  if (thermal.life) gaps.push(...thermal.life.skipped.map(s => `Lifetime not estimated for ${s}`))
+  return { derating, assumptions: [thermal.method, ...thermal.assumptions], parts, points, headline, life, gaps }
 }

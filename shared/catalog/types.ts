@@ -60,8 +60,29 @@ export interface CatalogPart {
   turnOnEnergy25?: number
   turnOffEnergy25?: number
   recoveryEnergy25?: number
+  /** K/W and s: Foster network junction-case per device, pairs 1…4 (optional; the single R_th above otherwise) */
+  zthSwitchR1?: number
+  zthSwitchR2?: number
+  zthSwitchR3?: number
+  zthSwitchR4?: number
+  zthSwitchTau1?: number
+  zthSwitchTau2?: number
+  zthSwitchTau3?: number
+  zthSwitchTau4?: number
+  zthDiodeR1?: number
+  zthDiodeR2?: number
+  zthDiodeR3?: number
+  zthDiodeR4?: number
+  zthDiodeTau1?: number
+  zthDiodeTau2?: number
+  zthDiodeTau3?: number
+  zthDiodeTau4?: number
   /** F */
   capacitance?: number
+  /** h at capacitorRatedTemperature (°C); K/W hot spot to ambient (optional, electrolytic life) */
+  capacitorRatedLife?: number
+  capacitorRatedTemperature?: number
+  capacitorRthHotSpot?: number
   /** A RMS */
   rippleCurrentRating?: number
   /** Ω */

@@ -46,6 +46,8 @@ export const UNIT_SPECS: Readonly<Record<string, UnitSpec>> = {
   'K/W': { noun: 'a thermal resistance', examples: ['0.12 K/W', '120 mK/W'], spellings: [withPrefixes('K/W', true), withPrefixes('°C/W', true), withPrefixes('C/W'), withPrefixes('℃/W'), withPrefixes('K/kW', true)].map(s => s.text === 'K/kW' ? { ...s, factor: 1e-3 } : s) },
   '°C': { noun: 'a temperature', examples: ['175 °C', '150 C'], spellings: [{ text: '°C' }, { text: '℃' }, { text: 'C', anyCase: true }, word('degC', 1, false), word('deg C', 1, false), word('celsius', 1, false)] },
   'd': { noun: 'a duration', examples: ['84 d', '12 weeks'], spellings: [{ text: 'd' }, word('day', 1, false), word('days', 1, false), word('wk', 7, false), word('wks', 7, false), word('week', 7, false), word('weeks', 7, false), word('w', 7, false)] },
+  's': { noun: 'a time constant', examples: ['12 ms', '0.012 s'], spellings: [withPrefixes('s'), word('sec', 1, false), word('second', 1, false), word('seconds', 1, false)] },
+  'h': { noun: 'a number of hours', examples: ['5000 h', '5000'], spellings: [{ text: 'h' }, word('hours', 1, false), word('hour', 1, false), word('hrs', 1, false)] },
   'W': { noun: 'a power', examples: ['250 W', '1.5 kW'], spellings: [withPrefixes('W', true), word('watt'), word('watts')] },
   // Design-form quantities (not catalogue columns): stray inductance and current slope.
   'H': { noun: 'an inductance', examples: ['60 nH', '0.06 µH'], spellings: [withPrefixes('H'), word('henry')] },

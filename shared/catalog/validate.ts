@@ -5,6 +5,7 @@ import {
   CATALOG_COLUMNS, COLUMN_BY_KEY, PACKAGE_CONFIGURATIONS, PART_KINDS, TEMPLATE_EXAMPLE_PART_NUMBERS,
   type CatalogColumn, type PackageConfiguration, type PartKind,
 } from '../../catalog/columns'
+import { fosterProblems } from '../thermal/network'
 import { checkMapping, columnLetter } from './mapping'
 import { parsePriceBreaks } from './prices'
 import type { CatalogPart, CellValue, ColumnKey, ColumnMapping, Currency, PriceBreak, RawTable, ValidationIssue } from './types'
@@ -298,6 +299,13 @@ export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerR
     const testVoltage = values.energyReferenceVoltage as number | undefined
     if (rating !== undefined && testVoltage !== undefined && testVoltage > rating) {
       error('energyReferenceVoltage', `${COLUMN_BY_KEY.energyReferenceVoltage.header} ${formatNumber(testVoltage)} V is above the voltage rating ${formatNumber(rating)} V`)
+    }
+
+    // Foster pairs: both halves of a pair, and the R_i near R_th,jc (shared/thermal/network.ts, the same rule as the part edit).
+    for (const problem of fosterProblems(values as Partial<CatalogPart>)) {
+      const field = problem.field as ColumnKey
+      if (problem.severity === 'error') error(field, problem.message)
+      else rowIssues.push({ row: row.rowNumber, column: letterOf[field] ?? '', field, message: problem.message, severity: 'warning' })
     }
 
     // Same manufacturer and part number twice: an exact repeat is skipped and reported; differing

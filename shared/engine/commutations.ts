@@ -192,6 +192,12 @@ function sparseWeights(table: CommutationTable): { index: Int32Array, weight: Fl
 
 const sparseRows = new WeakMap<CommutationTable, { index: Int32Array, weight: Float64Array }[][][]>()
 
+/** Per-angle sums of integrateSwitching: `sums[(bin·positions + position)·3 + role]`, the same units as its sum before the mean. */
+export interface SwitchingBins {
+  bins: number
+  sums: Float64Array
+}
+
 /**
  * Integrates the commutations over one fundamental period: at each angle the PD level shares give
  * the two levels the carrier steps between; every carrier period has `stepsPerCarrier` up- and
@@ -207,7 +213,7 @@ export function integrateSwitching(
   currentPeak: number,
   phi: number,
   unitVoltage: number,
-  options: { points: number, sixStep?: boolean },
+  options: { points: number, sixStep?: boolean, binned?: SwitchingBins },
 ): SwitchingDuty[] | null {
   if (!table.available) return null
   const P = leg.positions.length
@@ -218,6 +224,9 @@ export function integrateSwitching(
   const points = options.points
   const dTheta = (2 * Math.PI) / points
   let previousLevel = -1
+  // Optional per-angle record (instantaneous losses for the thermal time-stepping): the same sums by angle bin.
+  const binned = options.binned
+  const binOf = (theta: number) => Math.min(binned!.bins - 1, Math.max(0, Math.floor((((theta % (2 * Math.PI)) + 2 * Math.PI) % (2 * Math.PI)) / (2 * Math.PI) * binned!.bins)))
   const levelAt = (m: number) => {
     const r = ((1 + m) * (L - 1)) / 2
     const lo = Math.max(0, Math.min(Math.floor(r), L - 2))
@@ -230,7 +239,11 @@ export function integrateSwitching(
     const lower = Math.min(from, to)
     for (const route of table.steps[half]![lower]!.routes) {
       const t = to > from ? route.up : route.down
-      for (const e of t.events[sign]) sum[e.position * R + ROLES.indexOf(e.role)]! += route.share * e.units * Math.abs(i) * points
+      for (const e of t.events[sign]) {
+        const q = e.position * R + ROLES.indexOf(e.role)
+        sum[q]! += route.share * e.units * Math.abs(i) * points
+        if (binned) binned.sums[binOf(theta) * P * R + q]! += route.share * e.units * Math.abs(i) * points
+      }
     }
   }
   for (let k = 0; k < points; k++) {
@@ -249,6 +262,10 @@ export function integrateSwitching(
     const ai = Math.abs(i)
     const row = sparse[half]![lo]![i >= 0 ? 0 : 1]!
     for (let q = 0; q < row.index.length; q++) sum[row.index[q]!]! += row.weight[q]! * ai
+    if (binned) {
+      const base = binOf(theta) * P * R
+      for (let q = 0; q < row.index.length; q++) binned.sums[base + row.index[q]!]! += row.weight[q]! * ai
+    }
   }
   if (options.sixStep && previousLevel >= 0) {
     // close the period: the step from the last sample back to the first

@@ -89,6 +89,11 @@ function atPoint<T>(p: PointInput, path: string, f: () => T): T {
   }
 }
 
+/** The single-point inputs of a converter's operating points, by name (for per-point profiles, engine/profile.ts). */
+export function converterPointInputs(conv: ConverterInput): { pointName: string, input: StressInput }[] {
+  return pointInputs(conv, 'converter', undefined).map(p => ({ pointName: p.pointName, input: p.input }))
+}
+
 function evaluatePoints(conv: ConverterInput, path: string, rippleTarget: number | undefined, derating: DeratingPolicy): PointResult[] {
   return pointInputs(conv, path, rippleTarget).map(p => ({ ...atPoint(p, path, () => evaluateStress(p.input, { derating })), pointName: p.pointName }))
 }

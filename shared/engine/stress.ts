@@ -31,7 +31,7 @@ export const THD_MIN_ORDER = 250
 const SPECTRUM_FLOOR = 1e-4
 
 /** Voltages that scale the per-unit tables of a topology. */
-interface Scales {
+export interface Scales {
   /** V, base of the modulation index (half DC link; cells × V_cell; matrix: virtual half link 0.75·V̂_in,phase) */
   halfLink: number
   /** V, unit voltage of the state table at the worst-case and the nominal supply */
@@ -45,7 +45,7 @@ interface Scales {
   effectiveRatio: number
 }
 
-function scalesFor(p: ResolvedInput): Scales {
+export function scalesFor(p: ResolvedInput): Scales {
   const L = p.leg.def.modelLevels
   const mf = p.switchingHz / p.fundamentalHz
   switch (p.topology.supply) {

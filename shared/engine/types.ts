@@ -39,6 +39,9 @@ export interface OperatingPoint {
   powerFactorSense?: PowerFactorSense
   /** Hz, output fundamental. */
   fundamentalHz: number
+  /** Mission profile, not read by the engine: share of the operating hours (0…1) and start / stop cycles per hour. */
+  hoursShare?: number
+  startsPerHour?: number
 }
 
 /** One evaluation as POST /api/v1/stress takes it. */
@@ -253,6 +256,18 @@ export interface DesignInput {
   derating?: Partial<DeratingPolicy>
   /** V ripple target on the split / cell capacitors (peak-to-peak) for capacitance sizing. */
   capacitorRippleTarget?: number
+  /** Cooling and lifetime-model settings, not read by the engine (shared/thermal/dynamics.ts, lifetime.ts). */
+  thermal?: DesignThermalSettings
+}
+
+export interface DesignThermalSettings {
+  /** °C, air or coolant temperature */
+  ambientTemperatureC: number
+  /** K/W, heatsink to ambient for the converter's whole semiconductor loss */
+  heatsinkRth: number
+  /** s */
+  heatsinkTimeConstantS: number
+  lifetime?: Partial<{ K: number, beta1: number, beta2: number, beta3: number, beta4: number, beta5: number, beta6: number, currentPerBondWireA: number, bondWireDiameterUm: number }>
 }
 
 export interface DeviceEnvelope extends DeviceStress {

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { dbInt } from './bounds'
-import { CATALOG_COLUMNS, LIFECYCLES, PART_KINDS } from '../../catalog/columns'
+import { CATALOG_COLUMNS, fosterKeys, LIFECYCLES, PART_KINDS } from '../../catalog/columns'
 
 const columnKeys = CATALOG_COLUMNS.map(c => c.key) as [string, ...string[]]
 
@@ -55,9 +55,21 @@ export const partsQuerySchema = z.object({
   pageSize: z.coerce.number().int().min(1).max(200).default(50),
 })
 
+/** A Foster column in the part edit: a number within the column's range, or null to clear it. */
+function fosterField(key: string) {
+  const column = CATALOG_COLUMNS.find(c => c.key === key)!
+  return z.number({ error: `${column.header} must be a number (${column.unit})` })
+    .min(column.min ?? 0, { error: `${column.header} must be at least ${column.min ?? 0} ${column.unit}` })
+    .max(column.max ?? Number.MAX_VALUE, { error: `${column.header} must be at most ${column.max} ${column.unit}` })
+    .nullable().optional()
+}
+
+export const FOSTER_EDIT_KEYS = [...fosterKeys('Switch').flat(), ...fosterKeys('Diode').flat()]
+
 export const partPatchSchema = z.object({
   approved: z.boolean().optional(),
   lifecycle: z.enum(LIFECYCLES).optional(),
   stock: dbInt().min(0).max(columnMax('stock')).optional(),
   leadTimeDays: dbInt().min(0).max(columnMax('leadTimeDays')).optional(),
+  ...Object.fromEntries(FOSTER_EDIT_KEYS.map(k => [k, fosterField(k)])) as Record<(typeof FOSTER_EDIT_KEYS)[number], ReturnType<typeof fosterField>>,
 }).refine(v => Object.values(v).some(x => x !== undefined), { message: 'Give at least one field to change' })

@@ -94,6 +94,9 @@ export const operatingPointSchema = z.object({
   name: z.string({ error: 'name must be text' }).trim().min(1, { error: 'Name the operating point' }).max(60, { error: 'name: at most 60 characters' }),
   lineVoltageRms: bounded('lineVoltageRms', 'nonNegative'),
   ...pointFields,
+  // Mission profile (shared/thermal/lifetime.ts): share of the operating hours, start / stop cycles per hour.
+  hoursShare: quantity('hoursShare', 'fraction of the operating hours').min(0, { error: 'hoursShare must be at least 0 %' }).max(1, { error: 'hoursShare must be at most 100 %' }).optional(),
+  startsPerHour: quantity('startsPerHour', 'per operating hour').min(0, { error: 'startsPerHour must be at least 0' }).max(3600, { error: 'startsPerHour must be at most 3600 (one a second)' }).optional(),
 })
 
 export const converterInputSchema = z.object({
@@ -102,6 +105,8 @@ export const converterInputSchema = z.object({
     .min(1, { error: 'Give at least one operating point' })
     .max(50, { error: 'At most 50 operating points' })
     .superRefine((points, ctx) => {
+      const shares = points.reduce((sum, p) => sum + (p.hoursShare ?? 0), 0)
+      if (shares > 1 + 1e-6) ctx.addIssue({ code: 'custom', path: [points.findLastIndex(p => (p.hoursShare ?? 0) > 0), 'hoursShare'], message: `The shares of the operating hours add up to ${Math.round(shares * 1000) / 10} %: at most 100 %` })
       const seen = new Map<string, number>()
       points.forEach((p, i) => {
         if (seen.has(p.name)) ctx.addIssue({ code: 'custom', path: [i, 'name'], message: `Operating point name "${p.name}" is already used by point ${seen.get(p.name)! + 1}` })
@@ -122,11 +127,33 @@ export const deratingSchema = z.object({
   heatsinkTemperatureC: quantity('heatsinkTemperatureC', '°C').min(-40, { error: 'heatsinkTemperatureC must be at least −40 °C' }).max(150, { error: 'heatsinkTemperatureC must be at most 150 °C' }),
 }).partial()
 
+const lifetimeParameter = (field: string, min: number, max: number) => quantity(`thermal.lifetime.${field}`, 'model parameter').min(min, { error: `${field} must be at least ${min}` }).max(max, { error: `${field} must be at most ${max}` })
+
+/** The design's cooling and lifetime-model settings (shared/thermal/dynamics.ts, lifetime.ts); kept in the design's input. */
+export const thermalSettingsSchema = z.object({
+  ambientTemperatureC: quantity('ambientTemperatureC', '°C').min(-40, { error: 'ambientTemperatureC must be at least −40 °C' }).max(120, { error: 'ambientTemperatureC must be at most 120 °C' }),
+  heatsinkRth: quantity('heatsinkRth', 'K/W').min(0, { error: 'heatsinkRth must be at least 0 K/W' }).max(10, { error: 'heatsinkRth must be at most 10 K/W' }),
+  heatsinkTimeConstantS: quantity('heatsinkTimeConstantS', 's').positive({ error: 'heatsinkTimeConstantS must be greater than 0 s' }).max(100000, { error: 'heatsinkTimeConstantS must be at most 100 000 s' }),
+  /** Bayerer model parameters over the defaults (BAYERER_DEFAULTS) */
+  lifetime: z.object({
+    K: lifetimeParameter('K', 1, 1e30),
+    beta1: lifetimeParameter('beta1', -20, 0),
+    beta2: lifetimeParameter('beta2', 0, 10000),
+    beta3: lifetimeParameter('beta3', -5, 5),
+    beta4: lifetimeParameter('beta4', -5, 5),
+    beta5: lifetimeParameter('beta5', -5, 5),
+    beta6: lifetimeParameter('beta6', -5, 5),
+    currentPerBondWireA: lifetimeParameter('currentPerBondWireA', 0.1, 100),
+    bondWireDiameterUm: lifetimeParameter('bondWireDiameterUm', 10, 1000),
+  }).partial().optional(),
+})
+
 /** POST /api/v1/evaluate body and the design form: machine side, optional grid side, derating. */
 export const designInputSchema = z.object({
   machineSide: converterInputSchema,
   gridSide: converterInputSchema.optional(),
   derating: deratingSchema.optional(),
+  thermal: thermalSettingsSchema.optional(),
   capacitorRippleTarget: bounded('capacitorRippleTarget', 'positive').optional(),
 }).superRefine((v, ctx) => engineIssue(ctx, () => checkDesignInput(v)), onlyWhenClean)
 

@@ -24,7 +24,7 @@ export interface QuantityField {
 export type FieldQuantity = { ok: true, value: number | undefined } | { ok: false, message: string }
 
 // Units a bare prefix may stand in front of without the unit ("4k" in a frequency field); not °C, %, plain numbers.
-const PREFIXABLE = new Set(['V', 'A', 'Hz', 'H', 'A/s', 'W', 'Ω', 'F', 'J'])
+const PREFIXABLE = new Set(['V', 'A', 'Hz', 'H', 'A/s', 'W', 'Ω', 'F', 'J', 's'])
 
 /** The decimal mark of a locale, from Intl: ',' for de-DE and sv-SE, '.' for en-GB and en-US. */
 export function decimalMarkOf(locale: string): DecimalSeparator {

@@ -216,6 +216,35 @@ describe('catalogue import: untidy spreadsheet to catalogue version', () => {
     expect((await purchasing.json('GET', `/api/catalog/parts/${igbtPartId}`)).status).toBe(200)
     expect((await purchasing.json('PATCH', `/api/catalog/parts/${igbtPartId}`, { stock: 1 })).status).toBe(403)
   })
+
+  it('edits the Foster network: a half pair is refused naming the field and writes nothing, null clears, two edits at once both land', async () => {
+    const url = `/api/catalog/parts/${igbtPartId}`
+    const versions = async () => (await engineer.json('GET', url)).body.versions
+    const before = (await versions()).length
+    const half = await engineer.json('PATCH', url, { zthSwitchR1: 0.01 })
+    expect(half.status).toBe(422)
+    expect(half.body.data.issues.map((i: any) => i.path)).toEqual(['zthSwitchTau1'])
+    const range = await engineer.json('PATCH', url, { zthSwitchTau1: -1, zthSwitchR1: 0.01 })
+    expect(range.status).toBe(422)
+    expect(range.body.data.issues.map((i: any) => i.path)).toContain('zthSwitchTau1')
+    expect(await versions()).toHaveLength(before)
+
+    expect((await engineer.json('PATCH', url, { zthSwitchR1: 0.02, zthSwitchTau1: 0.01 })).status).toBe(200)
+    expect((await versions())[0].data).toMatchObject({ zthSwitchR1: 0.02, zthSwitchTau1: 0.01 })
+    // Two at once: both applied, the second on top of the first (catalogue lock).
+    const [a, b] = await Promise.all([
+      engineer.json('PATCH', url, { zthSwitchR2: 0.03, zthSwitchTau2: 0.05 }),
+      engineer.json('PATCH', url, { zthDiodeR1: 0.04, zthDiodeTau1: 0.02 }),
+    ])
+    expect([a.status, b.status]).toEqual([200, 200])
+    expect((await versions())[0].data).toMatchObject({ zthSwitchR1: 0.02, zthSwitchR2: 0.03, zthDiodeR1: 0.04 })
+    expect((await engineer.json('PATCH', url, { zthSwitchR1: null, zthSwitchTau1: null })).status).toBe(200)
+    const cleared = (await versions())[0].data
+    expect(cleared.zthSwitchR1).toBeUndefined()
+    expect(cleared.zthSwitchR2).toBe(0.03)
+    const purchasing = await signInAs('purchasing')
+    expect((await purchasing.json('PATCH', url, { zthSwitchR1: 0.02, zthSwitchTau1: 0.01 })).status).toBe(403)
+  })
 })
 
 describe('catalogue import: files that cannot be imported', () => {

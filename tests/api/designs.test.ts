@@ -1,3 +1,7 @@
+import { execFileSync } from 'node:child_process'
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
 import { describe, expect, it } from 'vitest'
 import { signInAs, unique } from '../support/api'
 
@@ -104,6 +108,49 @@ describe('designs', () => {
     const bad = await a.json('PUT', `/api/designs/${design.id}/parts`, { side: 'machine', position: 'S99', partVersionId: c.partVersionId })
     expect(bad.status).toBe(422)
     expect(bad.body.data.issues[0].path).toBe('position')
+  })
+
+  it('a 2 Hz start point: the parts page gives T_j peak above mean per point and the lifetime; the report PDF carries them', async () => {
+    const a = await signInAs('design-engineer')
+    const startInput = {
+      machineSide: {
+        ...input.machineSide,
+        operatingPoints: [
+          { name: 'Start 2 Hz', lineVoltageRms: 30, phaseCurrentRms: 300, powerFactor: 0.8, fundamentalHz: 2, hoursShare: 0.05, startsPerHour: 6 },
+          { name: 'Rated', lineVoltageRms: 690, phaseCurrentRms: 250, powerFactor: 0.85, fundamentalHz: 50, hoursShare: 0.95 },
+        ],
+      },
+      thermal: { ambientTemperatureC: 40, heatsinkRth: 0.005, heatsinkTimeConstantS: 300 },
+    }
+    const refused = await a.json('POST', '/api/designs', { name: unique('thermal bad'), input: { ...startInput, thermal: { ...startInput.thermal, heatsinkRth: -1 } } })
+    expect(refused.status).toBe(422)
+    expect(refused.body.data.issues.map((i: any) => i.path)).toContain('input.thermal.heatsinkRth')
+    const { body: design } = await a.json('POST', '/api/designs', { name: unique('thermal start'), input: startInput })
+    const r = await a.json('GET', `/api/designs/${design.id}/parts`)
+    expect(r.status).toBe(200)
+    const s1 = r.body.positions.find((p: { position: string }) => p.position === 'S1')
+    const c = s1.candidates.find((x: any) => x.thermal)
+    expect(c.thermal.perPoint.map((p: any) => p.pointName)).toEqual(['Start 2 Hz', 'Rated'])
+    await a.json('PUT', `/api/designs/${design.id}/parts`, { side: 'machine', position: 'S1', partVersionId: c.partVersionId, seriesCount: c.seriesCount, parallelCount: c.parallelCount })
+    const after = (await a.json('GET', `/api/designs/${design.id}/parts`)).body
+    const t = after.positions.find((p: { position: string }) => p.position === 'S1').assigned.thermal
+    const [start] = t.perPoint
+    expect(start.peakC).toBeGreaterThan(start.meanC + 1)
+    expect(after.thermal.life.limiting.lifeHours).toBeGreaterThan(0)
+    expect(after.thermal.life.positions.find((p: any) => p.position === 'S1').source).toMatch(/Bayerer/)
+    const pdf = await a.request('GET', `/api/designs/${design.id}/report.pdf`)
+    expect(pdf.status).toBe(200)
+    if (existsSync('/usr/bin/pdftotext')) {
+      const dir = mkdtempSync(join(tmpdir(), 'report-'))
+      try {
+        writeFileSync(join(dir, 'r.pdf'), Buffer.from(await pdf.arrayBuffer()))
+        const text = execFileSync('/usr/bin/pdftotext', ['-enc', 'UTF-8', join(dir, 'r.pdf'), '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ')
+        for (const expected of ['Design review summary', 'Sign-off', 'Start 2 Hz', 'T_j peak', 'Lifetime from the mission profile', c.part.partNumber]) expect(text, expected).toContain(expected)
+      }
+      finally {
+        rmSync(dir, { recursive: true, force: true })
+      }
+    }
   })
 
   it('makes a design report PDF', async () => {

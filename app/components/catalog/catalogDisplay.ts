@@ -1,7 +1,7 @@
 // How catalogue values read on screen: labels and units from catalog/columns.ts (the one column
 // definition), field groups for the part page, a field diff between part versions, import shapes.
 import {
-  CATALOG_COLUMNS, COLUMN_BY_KEY, LIFECYCLES, PACKAGE_CONFIGURATIONS, PART_KINDS, SEMICONDUCTOR_KINDS,
+  CATALOG_COLUMNS, COLUMN_BY_KEY, fosterKeys, LIFECYCLES, PACKAGE_CONFIGURATIONS, PART_KINDS, SEMICONDUCTOR_KINDS,
   type CatalogColumn, type ColumnKey, type Lifecycle, type PartKind,
 } from '~~/catalog/columns'
 import type { MappingSuggestion, MatchReason } from '#shared/catalog/mapping'
@@ -107,7 +107,7 @@ export function formatPriceBreaksText(breaks: readonly PriceBreak[], currency?: 
 }
 
 /** Units shown with an SI prefix ("2.1 mΩ", "45 mJ", "500 µF"); volts and amperes only from 1 k up ("0.9 V", "1.2 kV"). */
-const PREFIXED_UNITS = new Set(['Ω', 'J', 'F'])
+const PREFIXED_UNITS = new Set(['Ω', 'J', 'F', 's'])
 const KILO_UNITS = new Set(['V', 'A'])
 
 function plainNumber(value: number): string {
@@ -144,7 +144,8 @@ export const FIELD_GROUPS: { id: string, title: string, keys: ColumnKey[] }[] = 
   { id: 'switching', title: 'Switching energies per event', keys: ['turnOnEnergy', 'turnOffEnergy', 'recoveryEnergy', 'energyReferenceVoltage', 'energyReferenceCurrent'] },
   { id: 'temperature', title: 'Loss figures at 25 °C (optional: linear in T_j up to the data temperature)', keys: ['lossDataTemperature', 'switchThresholdVoltage25', 'switchSlopeResistance25', 'diodeThresholdVoltage25', 'diodeSlopeResistance25', 'turnOnEnergy25', 'turnOffEnergy25', 'recoveryEnergy25'] },
   { id: 'thermal', title: 'Thermal', keys: ['rthJunctionCaseSwitch', 'rthJunctionCaseDiode', 'rthCaseHeatsink'] },
-  { id: 'capacitor', title: 'Capacitor', keys: ['capacitance', 'rippleCurrentRating', 'esr'] },
+  { id: 'foster', title: 'Transient thermal impedance junction-case (Foster R_i, τ_i)', keys: [...fosterKeys('Switch').flat(), ...fosterKeys('Diode').flat()] },
+  { id: 'capacitor', title: 'Capacitor', keys: ['capacitance', 'rippleCurrentRating', 'esr', 'capacitorRatedLife', 'capacitorRatedTemperature', 'capacitorRthHotSpot'] },
   { id: 'commercial', title: 'Commercial', keys: ['priceBreaks', 'currency', 'minimumOrderQuantity', 'stock', 'leadTimeDays', 'lifecycle', 'supplier'] },
 ]
 

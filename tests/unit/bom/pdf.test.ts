@@ -203,6 +203,27 @@ describe('designReportPdf', () => {
     expect(text).toContain('Rated motoring')
   })
 
+  it.skipIf(!hasPdfToText)('starts with a review summary to sign off and carries losses, T_j mean / peak and lifetime per operating point [skipped when /usr/bin/pdftotext is missing]', async () => {
+    const evaluation = {
+      derating: [['Junction margin below T_j,max', '15 °C']] as [string, string][],
+      assumptions: ['Ambient 40 °C; heatsink 0.02 K/W.'],
+      parts: [{ side: 'machine', position: 'S1', part: 'Test Devices T-HB12-450F', arrangement: '1 × 1', meanC: 96.4, peakC: 141.7, limitC: 160, peakPoint: 'Start 2 Hz' }],
+      points: [
+        { side: 'machine', pointName: 'Start 2 Hz', lossW: 2310, efficiency: 0.712, meanC: 96.4, peakC: 141.7, hottest: 'S1' },
+        { side: 'machine', pointName: 'Rated motoring', lossW: 5480, efficiency: 0.9863, meanC: 118.2, peakC: 121.9, hottest: 'S1' },
+      ],
+      headline: [['Highest peak T_j', '141.7 °C at S1, Start 2 Hz (limit 160 °C)']] as [string, string][],
+      life: { limiting: 'S1 (machine side), 48,210 h of operation', positions: [{ side: 'machine', position: 'S1', part: 'T-HB12-450F', lifeHours: 48210, method: 'Power cycling, Miner', source: 'Bayerer et al., CIPS 2008' }] },
+      gaps: ['Cdc (machine): no part assigned, not in the figures'],
+    }
+    const pdf = await designReportPdf(report({ evaluation }), fonts)
+    const first = flat(pdfText(pdf, 1))
+    for (const expected of ['Design review summary', 'Key figures', '141.7', 'Lifetime limited by S1', 'Derating policy', 'Sign-off', 'Reviewed by', 'Approved by', 'no part assigned']) expect(first, expected).toContain(expected)
+    expect(first).not.toContain('Line-voltage spectrum')
+    const text = flat(pdfText(pdf))
+    for (const expected of ['Losses and junction temperature per operating point', 'Start 2 Hz', '2,310', '71.20', '121.9', 'Lifetime from the mission profile', '48,210 h', 'Bayerer']) expect(text, expected).toContain(expected)
+  })
+
   it('names the field of bad report input', async () => {
     await expect(designReportPdf(report({ designName: '' }), fonts)).rejects.toThrow(DesignReportError)
     await expect(designReportPdf(report({ waveform: { time: [0, 1], lineVoltage: [1] } }), fonts)).rejects.toThrow(/waveform\.lineVoltage/)

@@ -3,8 +3,10 @@ import { eq } from 'drizzle-orm'
 import { idParam } from '#shared/schemas/auth'
 import { partPatchSchema } from '#shared/schemas/catalog'
 import type { CatalogPart } from '#shared/catalog/types'
+import { fosterProblems } from '#shared/thermal/network'
 
-// Approve a part, or change its lifecycle / stock / lead time (a new part version in a new catalogue version).
+// Approve a part, or change its lifecycle / stock / lead time / Foster network (a new part version in a new
+// catalogue version). A Foster field sent as null is cleared; the result must give both halves of each pair.
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'catalog:write')
   const { id } = paramsValid(event, idParam)
@@ -21,7 +23,10 @@ export default defineEventHandler(async (event) => {
     if (approved !== undefined) await tx.update(tables.parts).set({ approved }).where(eq(tables.parts.id, id))
     const changes = Object.fromEntries(Object.entries(edits).filter(([, v]) => v !== undefined))
     if (Object.keys(changes).length) {
-      const part = { ...(row.data as CatalogPart), ...changes }
+      // null clears a field: it is left out of the new version's data
+      const part = Object.fromEntries(Object.entries({ ...(row.data as CatalogPart), ...changes }).filter(([, v]) => v !== null)) as unknown as CatalogPart
+      const refused = fosterProblems(part).filter(p => p.severity === 'error')
+      if (refused.length) throw createError({ statusCode: 422, message: refused[0]!.message, data: { issues: refused.map(p => ({ path: p.field, message: p.message })) } })
       await commitParts(tx, [part], { userId: user.id, note: `Edited ${part.partNumber} (${Object.keys(changes).join(', ')})`, approve: row.part.approved })
     }
     return row

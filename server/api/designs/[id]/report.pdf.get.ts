@@ -3,9 +3,11 @@ import { legSchematicSvg } from '#shared/drawing/leg-svg'
 import type { DesignPreview } from '#shared/types/design'
 import { SAFETY_NOTE, topologySummary } from '~~/server/services/bom'
 import { loadDesign, loadRevision, revisionQuery } from '~~/server/services/designs'
+import { matchDesign, reportEvaluation } from '~~/server/services/parts'
 import { renderDesignReport, runInPool } from '~~/server/workers/pool'
 
-// The printable design report: inputs, results, warnings, waveform and spectrum, safety note.
+// The printable design report: a one-page review summary (current revision), inputs, results, the assigned parts'
+// losses, T_j and lifetime per operating point, warnings, waveform and spectrum, safety note.
 export default defineEventHandler(async (event) => {
   await requireRole(event, 'designs:read')
   const { id } = paramsValid(event, idParam)
@@ -31,6 +33,8 @@ export default defineEventHandler(async (event) => {
     if (c.overshootVoltage !== undefined) inputs.push([`${p}overshoot`, c.overshootVoltage, 'V'])
   }
   const machine = preview.result.converters[0]!
+  // Parts, losses, T_j and lifetime belong to the current revision (the assignments are rated against it).
+  const evaluation = rev === design.revision ? reportEvaluation(await matchDesign(id, 0, { summaryOnly: true }), requestLocale(event)) : undefined
   const extras = preview.extras.machine
   const pdf = await renderDesignReport({
     designName: row.name,
@@ -54,6 +58,7 @@ export default defineEventHandler(async (event) => {
     waveform: extras?.waveform ? { title: extras.pointName, time: extras.waveform.time, lineVoltage: extras.waveform.lineVoltage, phaseCurrent: extras.waveform.phaseCurrent } : undefined,
     spectrum: extras?.spectrum,
     lineVoltageThd: extras?.thd ?? machine.points[0]?.lineVoltageThd,
+    ...(evaluation ? { evaluation } : {}),
     safetyNote: SAFETY_NOTE,
   })
   setResponseHeaders(event, {

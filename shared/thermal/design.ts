@@ -1,0 +1,220 @@
+// Junction temperature over the period and lifetime for a whole design: per position and operating point
+// the mean, peak and swing of T_j for the assigned part and the candidates (dynamics.ts), the heatsink
+// driven by the converter's summed losses, and the mission-profile life per position (lifetime.ts) with the
+// position that limits it.
+import { converterPointInputs } from '../engine/design'
+import { lossProfile, type LossProfile } from '../engine/profile'
+import type { ConverterResult, DesignInput } from '../engine/types'
+import type { PositionDuty } from '../catalog/matching'
+import type { CatalogPart } from '../catalog/types'
+import { addThreePhases, binLosses, junctionDynamics, type CoolingSettings, type PointDynamics, type ProfiledDuty } from './dynamics'
+import { BAYERER_DEFAULTS, CAPACITOR_LIFE_SOURCE, capacitorLife, POWER_CYCLING_SOURCE, powerCyclingLife, type BayererParameters, type PointDamage } from './lifetime'
+import { FOSTER_METHOD } from './network'
+
+export type ThermalSide = 'machine' | 'grid' | 'dc-link'
+
+export interface ThermalChoice { part: CatalogPart, seriesCount: number, parallelCount: number }
+
+export interface ThermalPosition {
+  side: ThermalSide
+  duty: PositionDuty
+  /** parts whose T_j is wanted (assigned part and candidates) */
+  choices: ThermalChoice[]
+  /** index into choices of the part that loads the heatsink and counts for the lifetime (assigned, else the best candidate); −1 none */
+  reference: number
+  referenceAssigned: boolean
+}
+
+export interface ChoiceThermal {
+  perPoint: PointDynamics[]
+  /** the point with the highest peak */
+  worstPointName: string
+  /** °C, highest mean and highest peak over the points; K, largest swing */
+  meanC: number
+  peakC: number
+  swingK: number
+  /** °C, T_j,max − margin */
+  limitC: number
+  peakOk: boolean
+  fromFoster: boolean
+  notes: string[]
+}
+
+export interface PositionLife {
+  side: ThermalSide
+  position: string
+  partNumber: string
+  /** false: no part assigned, the best candidate stands in */
+  assigned: boolean
+  /** operating hours (Infinity: nothing cycles) */
+  lifeHours: number
+  perPoint: (PointDamage | { pointName: string, hotSpotC: number, lifeHours: number, damagePerHour: number })[]
+  method: string
+  source: string
+  notes: string[]
+}
+
+export interface DesignLife {
+  /** Σ hoursShare over the machine side's points (the mission covers that part of the hours) */
+  hoursShareTotal: number
+  positions: PositionLife[]
+  /** the position with the shortest life */
+  limiting: { side: ThermalSide, position: string, lifeHours: number } | null
+  /** positions left out, with the reason */
+  skipped: string[]
+}
+
+export interface DesignThermal {
+  cooling: CoolingSettings
+  /** said on the result */
+  assumptions: string[]
+  method: string
+  /** per position, per choice (same order as given) */
+  results: (ChoiceThermal | null)[][]
+  life: DesignLife | null
+}
+
+export function coolingOf(input: DesignInput, fallbackHeatsinkC: number): CoolingSettings {
+  return input.thermal
+    ? { ambientTemperatureC: input.thermal.ambientTemperatureC, heatsinkRth: input.thermal.heatsinkRth, heatsinkTimeConstantS: input.thermal.heatsinkTimeConstantS }
+    : { ambientTemperatureC: fallbackHeatsinkC, heatsinkRth: 0, heatsinkTimeConstantS: 1 }
+}
+
+/** Per side, the per-angle duty of every operating point (engine/profile.ts). */
+export function designProfiles(input: DesignInput): Map<'machine' | 'grid', LossProfile[]> {
+  const out = new Map<'machine' | 'grid', LossProfile[]>()
+  out.set('machine', converterPointInputs(input.machineSide).map(p => lossProfile(p.input)))
+  if (input.gridSide) out.set('grid', converterPointInputs(input.gridSide).map(p => lossProfile(p.input)))
+  return out
+}
+
+function profiledPoints(duty: PositionDuty, profiles: LossProfile[] | undefined): ProfiledDuty[] {
+  return (duty.points ?? []).map((pt, k) => {
+    const prof = profiles?.[k]
+    const position = prof?.positions.find(p => p.name === duty.positionName)
+    return position ? { ...pt, profile: position, fundamentalHz: prof!.fundamentalHz } : pt
+  })
+}
+
+type SemiKind = 'switch' | 'diode' | 'clamp-diode'
+
+/**
+ * T_j dynamics for every choice of every device position and the lifetime of the reference parts.
+ * `converters` gives the capacitors' per-point ripple (lifetime of electrolytic capacitors).
+ */
+export function designThermal(input: DesignInput, converters: readonly ConverterResult[], positions: readonly ThermalPosition[], junctionMarginC: number, fallbackHeatsinkC: number, profiles = designProfiles(input)): DesignThermal {
+  const cooling = coolingOf(input, fallbackHeatsinkC)
+  const assumptions = [
+    input.thermal ? `Ambient or coolant ${cooling.ambientTemperatureC} °C; heatsink ${cooling.heatsinkRth} K/W, τ ${cooling.heatsinkTimeConstantS} s, loaded by the converter's summed losses of the assigned parts (the best candidate where none is assigned), at their data temperature; each converter on its own heatsink.` : `No cooling set for the design: the heatsink is held at the derating's ${fallbackHeatsinkC} °C.`,
+    'Every switch and diode on its own R_th,ch (the catalogue gives it per device); the case-heatsink layer carries the mean loss.',
+  ]
+  // Heatsink power per side and point: Σ positions, three phases 120° apart, reference parts at their data temperature.
+  const heatsink = new Map<string, Float64Array[]>()
+  for (const side of ['machine', 'grid'] as const) {
+    const sideProfiles = profiles.get(side)
+    if (!sideProfiles) continue
+    const perPoint = sideProfiles.map(p => new Float64Array(p.bins))
+    for (const pos of positions) {
+      if (pos.side !== side || pos.duty.kind === 'capacitor' || pos.reference < 0) continue
+      const choice = pos.choices[pos.reference]!
+      profiledPoints(pos.duty, sideProfiles).forEach((pt, k) => {
+        const p = binLosses(choice.part, pos.duty.kind as SemiKind, pt, pos.duty.switchingHz, choice.seriesCount, choice.parallelCount)
+        if (p) addThreePhases(perPoint[k]!, p, pos.duty.positionsPerPhase * choice.seriesCount * choice.parallelCount, pos.duty.phases)
+      })
+    }
+    heatsink.set(side, perPoint)
+  }
+
+  const results = positions.map((pos) => {
+    if (pos.duty.kind === 'capacitor' || pos.side === 'dc-link') return pos.choices.map(() => null)
+    const points = profiledPoints(pos.duty, profiles.get(pos.side))
+    const hs = heatsink.get(pos.side)
+    return pos.choices.map(choice => choiceThermal(choice, pos.duty, points, cooling, hs, junctionMarginC))
+  })
+
+  return { cooling, assumptions, method: FOSTER_METHOD, results, life: designLife(input, converters, positions, results, cooling) }
+}
+
+function choiceThermal(choice: ThermalChoice, duty: PositionDuty, points: ProfiledDuty[], cooling: CoolingSettings, heatsink: Float64Array[] | undefined, marginC: number): ChoiceThermal | null {
+  const { part } = choice
+  if (part.junctionTemperatureMax === undefined) return null
+  const perPoint: PointDynamics[] = []
+  let fromFoster = true
+  const notes = new Set<string>()
+  for (let k = 0; k < points.length; k++) {
+    const d = junctionDynamics(part, duty.kind as SemiKind, points[k]!, duty.switchingHz, choice.seriesCount, choice.parallelCount, cooling, heatsink?.[k] ?? null)
+    if (!d) return null
+    fromFoster &&= d.fromFoster
+    for (const n of d.note.split('; ')) if (n) notes.add(n)
+    const { note: _n, fromFoster: _f, ...fig } = d
+    perPoint.push(fig)
+  }
+  if (!perPoint.length) return null
+  const worst = perPoint.reduce((a, b) => (b.peakC > a.peakC ? b : a))
+  const limitC = part.junctionTemperatureMax - marginC
+  return {
+    perPoint,
+    worstPointName: worst.pointName,
+    meanC: Math.max(...perPoint.map(p => p.meanC)),
+    peakC: worst.peakC,
+    swingK: Math.max(...perPoint.map(p => p.swingK)),
+    limitC,
+    peakOk: perPoint.every(p => p.status === 'settled' && p.peakC <= limitC + 1e-9),
+    fromFoster,
+    notes: [...notes],
+  }
+}
+
+function designLife(input: DesignInput, converters: readonly ConverterResult[], positions: readonly ThermalPosition[], results: (ChoiceThermal | null)[][], cooling: CoolingSettings): DesignLife | null {
+  const sideInput = (side: ThermalSide) => (side === 'grid' ? input.gridSide : input.machineSide)
+  const hoursShareTotal = input.machineSide.operatingPoints.reduce((s, p) => s + (p.hoursShare ?? 0), 0)
+  const anyShare = hoursShareTotal > 0 || (input.gridSide?.operatingPoints.some(p => (p.hoursShare ?? 0) > 0) ?? false)
+  if (!anyShare) return null
+  const params: BayererParameters = { ...BAYERER_DEFAULTS, ...(input.thermal?.lifetime ?? {}) }
+  const edited = Object.keys(input.thermal?.lifetime ?? {})
+  const out: PositionLife[] = []
+  const skipped: string[] = []
+  positions.forEach((pos, i) => {
+    if (pos.reference < 0) { skipped.push(`${pos.duty.positionName}: no part`); return }
+    const choice = pos.choices[pos.reference]!
+    const conv = sideInput(pos.side === 'dc-link' ? 'machine' : pos.side)!
+    const ops = conv.operatingPoints
+    const base = { side: pos.side, position: pos.duty.positionName, partNumber: choice.part.partNumber, assigned: pos.referenceAssigned }
+    if (pos.duty.kind === 'capacitor') {
+      const { part } = choice
+      if (part.technology !== 'electrolytic') return
+      if (part.capacitorRatedLife === undefined || part.capacitorRatedTemperature === undefined || part.capacitorRthHotSpot === undefined || part.esr === undefined) {
+        skipped.push(`${pos.duty.positionName} (${part.partNumber}): the catalogue lacks rated life, its temperature, R_th hot spot or ESR`)
+        return
+      }
+      const result = converters.find(c => c.side === (pos.side === 'grid' ? 'grid' : 'machine'))
+      const pts = ops.map((op, k) => {
+        const cap = result?.points[k]?.capacitors.find(c => c.name === pos.duty.positionName)
+        const iRms = (cap?.rippleCurrentRms ?? pos.duty.currentRms) / choice.parallelCount
+        return { pointName: op.name ?? `Point ${k + 1}`, hoursShare: op.hoursShare ?? 0, lossW: part.esr! * iRms * iRms }
+      })
+      const life = capacitorLife(pts, part.capacitorRatedLife, part.capacitorRatedTemperature, part.capacitorRthHotSpot, cooling.ambientTemperatureC)
+      out.push({ ...base, lifeHours: life.lifeHours, perPoint: life.perPoint, method: 'L = L_rated·2^((T_rated − T_hot-spot)/10 K), Miner over the points', source: CAPACITOR_LIFE_SOURCE, notes: [] })
+      return
+    }
+    const thermal = results[i]?.[pos.reference]
+    if (!thermal) { skipped.push(`${pos.duty.positionName} (${choice.part.partNumber}): no junction temperature (loss or thermal figures missing)`); return }
+    const mission = thermal.perPoint.map((d, k) => ({
+      pointName: d.pointName,
+      hoursShare: ops[k]?.hoursShare ?? 0,
+      ...(ops[k]?.startsPerHour ? { startsPerHour: ops[k]!.startsPerHour } : {}),
+      fundamentalHz: ops[k]?.fundamentalHz ?? 0,
+      swingK: d.swingK,
+      minC: d.minC,
+      meanC: d.meanC,
+      heatingTimeS: d.heatingTimeS,
+    }))
+    const life = powerCyclingLife(mission, choice.part.voltageRating, cooling.ambientTemperatureC, params)
+    const notes = [...life.notes]
+    if (!thermal.fromFoster) notes.push('single R_th: the swing is an upper bound, the life a lower bound')
+    notes.push(edited.length ? `model parameters edited: ${edited.join(', ')}` : 'model parameters: the defaults (values from memory, editable)')
+    out.push({ ...base, lifeHours: life.lifeHours, perPoint: life.perPoint, method: 'Power cycling N_f = K·ΔT_j^β1·e^(β2/(T_j,min + 273))·t_on^β3·I^β4·V^β5·D^β6 per fundamental cycle and per start, Miner\'s rule over the points', source: POWER_CYCLING_SOURCE, notes })
+  })
+  const limiting = out.reduce<PositionLife | null>((a, b) => (!a || b.lifeHours < a.lifeHours ? b : a), null)
+  return { hoursShareTotal, positions: out, limiting: limiting && Number.isFinite(limiting.lifeHours) ? { side: limiting.side, position: limiting.position, lifeHours: limiting.lifeHours } : null, skipped }
+}

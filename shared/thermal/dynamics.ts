@@ -1,0 +1,136 @@
+// Mean, peak and swing of the junction temperature of one device over the fundamental period, per
+// operating point (network.ts for the thermal path, engine/profile.ts for the instantaneous duty).
+//
+//   1. mean T_j: settled with the temperature-dependent losses (temperature.ts) at the point's mean
+//      heatsink temperature, R_th = Σ R_i (Foster) + R_th,ch;
+//   2. instantaneous losses per angle bin from the profile with the figures at that mean T_j (the losses'
+//      own change over the swing is neglected: assumption, stated);
+//   3. T_j(t) = T_ambient + ΔT_ha(t) + R_th,ch·p̄ + ΔT_jc(t) in periodic steady state (network.ts); the
+//      case-heatsink layer carries the mean loss p̄ (the baseplate's capacity, seconds, filters the ripple).
+// The mean of the stepped T_j equals the settled mean exactly (the recurrence keeps the mean: R·mean(p)).
+import type { PositionProfile } from '../engine/profile'
+import { fosterNetwork, periodicRise, SINGLE_RTH_NOTE, steadyResistance, type FosterPair } from './network'
+import { deviceLossAtPoint, type PointDuty } from './losses'
+import { partAtTemperature, settleJunction, type JunctionStatus, type TemperaturePart } from './temperature'
+import type { CatalogPart } from '../catalog/types'
+
+/** The design's cooling: ambient or coolant temperature and the heatsink to it. */
+export interface CoolingSettings {
+  /** °C, air or coolant temperature at the heatsink's inlet */
+  ambientTemperatureC: number
+  /** K/W, heatsink to ambient for the converter's whole semiconductor loss (0 = heatsink held at ambient) */
+  heatsinkRth: number
+  /** s, the heatsink's time constant */
+  heatsinkTimeConstantS: number
+}
+
+/** A point's duty with its per-angle profile (absent: the point has no profile, dynamics not computed). */
+export type ProfiledDuty = PointDuty & { profile?: PositionProfile, fundamentalHz?: number }
+
+export interface PointDynamics {
+  pointName: string
+  status: JunctionStatus
+  /** °C */
+  meanC: number
+  peakC: number
+  minC: number
+  /** K, peak − min over the period */
+  swingK: number
+  /** °C, heatsink mean at the point */
+  heatsinkC: number
+  /** s, time per period the junction is above its mean (the heating time of one cycle) */
+  heatingTimeS: number
+  /** W per device, mean over the period */
+  lossW: number
+}
+
+export type DynamicsPart = TemperaturePart & Partial<CatalogPart>
+
+/**
+ * W per device in each angle bin, from the profile and the part's figures (already at the wanted T_j). The
+ * loss is linear in the duty (losses.ts): its coefficients come from deviceLossAtPoint at unit duties, so the
+ * formula exists once and each bin costs five multiplications.
+ */
+export function binLosses(part: DynamicsPart, kind: 'switch' | 'diode' | 'clamp-diode', duty: ProfiledDuty, switchingHz: number, series: number, parallel: number): Float64Array | null {
+  const profile = duty.profile
+  if (!profile) return null
+  const withSwitching = !!(profile.turnOn && profile.turnOff && profile.recovery)
+  const at = (avg: number, sq: number, on: number, off: number, rr: number) => deviceLossAtPoint(part, kind, {
+    pointName: duty.pointName, currentAvg: avg, currentRms: Math.sqrt(sq), currentPeak: duty.currentPeak, commutatedVoltage: duty.commutatedVoltage,
+    ...(withSwitching ? { switchingDuty: { turnOn: on, turnOff: off, recovery: rr } } : {}),
+  }, switchingHz, series, parallel)
+  const zero = at(0, 0, 0, 0, 0)
+  if (!zero) return null
+  // Without a commutation model the fallback switching loss is constant over the period (in `zero`).
+  const c0 = zero.total
+  const cAvg = at(1, 0, 0, 0, 0)!.total - c0
+  const cSq = at(0, 1, 0, 0, 0)!.total - c0
+  const cOn = withSwitching ? at(0, 0, 1, 0, 0)!.total - c0 : 0
+  const cOff = withSwitching ? at(0, 0, 0, 1, 0)!.total - c0 : 0
+  const cRr = withSwitching ? at(0, 0, 0, 0, 1)!.total - c0 : 0
+  const B = profile.currentAbs.length
+  const out = new Float64Array(B)
+  for (let b = 0; b < B; b++) {
+    out[b] = c0 + cAvg * profile.currentAbs[b]! + cSq * profile.currentSquare[b]!
+      + (withSwitching ? cOn * profile.turnOn![b]! + cOff * profile.turnOff![b]! + cRr * profile.recovery![b]! : 0)
+  }
+  return out
+}
+
+/**
+ * T_j over one period at one point. `heatsinkPower` (W per bin, the converter's summed loss) drives the
+ * heatsink; its mean sets the mean heatsink temperature. Null when the part lacks losses or thermal data.
+ */
+export function junctionDynamics(part: DynamicsPart, kind: 'switch' | 'diode' | 'clamp-diode', duty: ProfiledDuty, switchingHz: number, series: number, parallel: number, cooling: CoolingSettings, heatsinkPower: ArrayLike<number> | null): (PointDynamics & { note: string, fromFoster: boolean }) | null {
+  const network = fosterNetwork(part, kind)
+  if (!network || !duty.profile || !duty.fundamentalHz) return null
+  const B = duty.profile.currentAbs.length
+  const dt = 1 / (duty.fundamentalHz * B)
+  const rch = part.rthCaseHeatsink ?? 0
+  const hsPairs: FosterPair[] = cooling.heatsinkRth > 0 ? [{ r: cooling.heatsinkRth, tau: cooling.heatsinkTimeConstantS }] : []
+  let hsMeanPower = 0
+  if (heatsinkPower) for (let b = 0; b < B; b++) hsMeanPower += heatsinkPower[b]! / B
+  const heatsinkC = cooling.ambientTemperatureC + cooling.heatsinkRth * hsMeanPower
+  const settled = settleJunction(part, kind, duty, switchingHz, series, parallel, heatsinkC, steadyResistance(network.pairs) + rch)
+  if (!settled.loss) return null
+  const notes = [settled.note, network.fromFoster ? '' : SINGLE_RTH_NOTE].filter(Boolean)
+  const base = { pointName: duty.pointName, status: settled.status, heatsinkC, lossW: settled.loss.total, fromFoster: network.fromFoster }
+  if (settled.status !== 'settled') {
+    const t = settled.junctionTemperatureC
+    return { ...base, meanC: t, peakC: t, minC: t, swingK: 0, heatingTimeS: 0, note: notes.join('; ') }
+  }
+  const atMean = partAtTemperature(part, settled.junctionTemperatureC) as DynamicsPart
+  const p = binLosses(atMean, kind, duty, switchingHz, series, parallel)
+  if (!p) return null
+  const rise = periodicRise(network.pairs, p, dt)
+  // The baseplate and heatsink capacities filter the fundamental ripple: R_th,ch carries the mean loss (assumption).
+  const meanLoss = p.reduce((a, x) => a + x, 0) / B
+  for (let b = 0; b < B; b++) rise[b]! += rch * meanLoss
+  if (hsPairs.length && heatsinkPower) periodicRise(hsPairs, heatsinkPower, dt, rise)
+  else if (cooling.heatsinkRth > 0) for (let b = 0; b < B; b++) rise[b]! += cooling.heatsinkRth * hsMeanPower
+  let peak = -Infinity
+  let min = Infinity
+  let sum = 0
+  for (let b = 0; b < B; b++) {
+    const t = cooling.ambientTemperatureC + rise[b]!
+    if (t > peak) peak = t
+    if (t < min) min = t
+    sum += t
+  }
+  const mean = sum / B
+  let above = 0
+  for (let b = 0; b < B; b++) if (cooling.ambientTemperatureC + rise[b]! > mean) above++
+  notes.push('instantaneous losses with the figures at the mean T_j (their change over the swing neglected); R_th,ch carries the mean loss')
+  return { ...base, meanC: mean, peakC: peak, minC: min, swingK: peak - min, heatingTimeS: above * dt, note: notes.join('; ') }
+}
+
+/** W per bin of a whole converter: one position's per-device bin losses × devices per phase, the three phases 120° apart. */
+export function addThreePhases(into: Float64Array, perDevice: ArrayLike<number>, devicesPerPhase: number, phases = 3): void {
+  const B = into.length
+  const shift = B / 3
+  for (let b = 0; b < B; b++) {
+    let s = 0
+    for (let ph = 0; ph < phases; ph++) s += perDevice[(b + Math.round(ph * shift)) % B]!
+    into[b]! += s * devicesPerPhase
+  }
+}
