@@ -124,6 +124,7 @@ export const designInputSchema = z.object({
   gridSide: converterInputSchema.optional(),
   derating: deratingSchema.optional(),
   capacitorRippleTarget: bounded('capacitorRippleTarget', 'positive').optional(),
+  linkCarriers: z.enum(['independent', 'synchronised'], { error: 'linkCarriers must be \'independent\' (each converter its own carrier) or \'synchronised\' (one common carrier)' }).optional(),
 }).superRefine((v, ctx) => engineIssue(ctx, () => checkDesignInput(v)), onlyWhenClean)
 
 export type StressInputBody = z.input<typeof stressInputSchema>

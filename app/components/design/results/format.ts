@@ -72,6 +72,7 @@ export function deviceKindLabel(kind: string): string {
     case 'clamp-diode': return 'Clamp diode'
     case 'dc-link': return 'DC link'
     case 'flying': return 'Flying'
+    case 'cell': return 'Cell'
     default: return kind
   }
 }
