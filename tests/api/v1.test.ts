@@ -26,7 +26,7 @@ describe('POST /api/v1/stress', () => {
         expect(['switch', 'diode', 'clamp-diode']).toContain(d.kind)
         expect(d.blockingVoltageWithOvershoot).toBeGreaterThanOrEqual(d.blockingVoltage)
       }
-      for (const cap of r.body.capacitors) expect(['dc-link', 'flying']).toContain(cap.kind)
+      for (const cap of r.body.capacitors) expect(['dc-link', 'split', 'flying', 'cell']).toContain(cap.role)
       expect(typeof r.body.lineVoltageFundamentalRms).toBe('number')
       expect(typeof r.body.lineVoltageThd).toBe('number')
       expect(Array.isArray(r.body.warnings)).toBe(true)
