@@ -2,7 +2,7 @@
 // it, and the parts the engineer assigned (each pinned to the part version it was matched with and to
 // the design revision its counts were rated against).
 import { eq, inArray } from 'drizzle-orm'
-import { evaluateDesign, legLayout } from '#shared/engine'
+import { balanceWithLosses, evaluateDesign, legLayout } from '#shared/engine'
 import type { CapacitorEnvelope, DesignInput, DesignResult } from '#shared/engine/types'
 import { approvalRank, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, rateAssignment, whyNothingFits, type Candidate, type MatchPolicy, type PositionDuty } from '#shared/catalog/matching'
 import { moduleCoverage, type LegPosition } from '#shared/bom/coverage'
@@ -160,7 +160,28 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
     const nothingFits = options.summaryOnly || m.fitting + m.leftOut + (hostCandidate ? 1 : 0) > 0 ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.')
     return { side, position: duty.positionName, label, duty, candidates, hiddenCandidates, nothingFits, coveredBy, assigned }
   })
-  return { design, input, result, policy, positions, summary: lossSummary(input, positions, result) }
+  const summary = lossSummary(input, positions, result)
+  return { design, input, result, policy, positions, summary, linkBalance: linkBalance(result, summary) }
+}
+
+/**
+ * Back-to-back, per operating-point pair: the real power through the shared link against both converters' losses
+ * at their points (null losses until every position of both sides is assigned).
+ */
+export function linkBalance(result: DesignResult, summary: ReturnType<typeof lossSummary>) {
+  if (!result.sharedLink) return null
+  const side = (s: 'machine' | 'grid') => summary.find(x => x.side === s)
+  const lossAt = (s: 'machine' | 'grid', point: string) => {
+    const x = side(s)
+    if (!x || x.assignedPositions < x.positions) return null
+    return x.perPoint.find(p => p.pointName === point)?.lossW ?? null
+  }
+  return result.sharedLink.pairs.map((p) => {
+    const lm = lossAt('machine', p.machinePoint)
+    const lg = lossAt('grid', p.gridPoint)
+    const withLosses = lm !== null && lg !== null ? balanceWithLosses(p, lm, lg) : null
+    return { machinePoint: p.machinePoint, gridPoint: p.gridPoint, machinePowerW: p.machinePowerW, gridPowerW: p.gridPowerW, ...(withLosses ?? { lossesW: null, residualW: null, balanced: p.balanced }) }
+  })
 }
 
 /**

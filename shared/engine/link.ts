@@ -341,3 +341,15 @@ export function sharedLink(machine: ConverterInput, grid: ConverterInput, result
   ]
   return { carriers, capacitors, pairs: pairOut, notes }
 }
+
+/**
+ * The balance of a pair once both converters' losses are known (parts assigned): the grid side takes in the
+ * machine side's real power plus both losses, P_grid = P_machine + L_machine + L_grid, in motoring and in
+ * regeneration alike. `residualW` is what is left; within 2 % of the larger power it balances.
+ */
+export function balanceWithLosses(pair: Pick<LinkPointPair, 'machinePowerW' | 'gridPowerW'>, machineLossW: number, gridLossW: number): { lossesW: number, residualW: number, balanced: boolean } {
+  const lossesW = machineLossW + gridLossW
+  const residualW = pair.gridPowerW - pair.machinePowerW - lossesW
+  const scale = Math.max(Math.abs(pair.gridPowerW), Math.abs(pair.machinePowerW), 1e-9)
+  return { lossesW, residualW, balanced: Math.abs(residualW) <= 0.02 * scale }
+}

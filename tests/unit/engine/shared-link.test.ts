@@ -14,7 +14,7 @@
 // distributed relative phase. Carriers: one common carrier at 4900 Hz (a multiple of 49 and 50), or the
 // grid side's own carrier at 5000 Hz (independent).
 import { describe, expect, it } from 'vitest'
-import { compatibleGridSides, evaluateDesign, EngineInputError, type ConverterInput, type DesignInput, type TopologyId } from '../../../shared/engine'
+import { balanceWithLosses, compatibleGridSides, evaluateDesign, EngineInputError, type ConverterInput, type DesignInput, type TopologyId } from '../../../shared/engine'
 import { expectClose, lineVoltageFor } from './helpers'
 
 const TWO_PI = 2 * Math.PI
@@ -264,6 +264,26 @@ describe('power balance through the link at each operating-point pair (ENGINEERI
     gc.operatingPoints = [{ ...gc.operatingPoints[0]!, name: 'Feeding back', powerFactor: -g.pf }, { ...gc.operatingPoints[0]!, name: 'Rectifying' }]
     const pairs = evaluateDesign({ machineSide: mc, gridSide: gc }).sharedLink!.pairs.map(p => [p.machinePoint, p.gridPoint, p.pairedBy])
     expect(pairs).toEqual([['Motoring', 'Rectifying', 'nearest power'], ['Braking', 'Feeding back', 'nearest power'], ['Idle', 'Rectifying', 'nearest power']])
+  })
+})
+
+describe('power balance with both converters\' losses (parts assigned): P_grid = P_machine + L_machine + L_grid', () => {
+  it.each([
+    { what: 'motoring', pf: 0.85, gridPf: -0.99 },
+    { what: 'regenerating', pf: -0.85, gridPf: 0.99 },
+  ])('$what: a grid point carrying the machine power plus 3 % losses balances; without the losses it is 3 % off', ({ pf, gridPf }) => {
+    const m = { ...machineTwo, pf }
+    const g = balancing(m, { topology: 'two-level', levels: 2, links: 2, M: 0.95, pf: gridPf, hz: 50, fsw: 4900, modulation: 'sine' })
+    const lossW = 0.015 * Math.abs(evaluateDesign({ machineSide: converter(m), gridSide: converter(g) }).sharedLink!.pairs[0]!.machinePowerW)
+    // The grid current that also covers both losses (1.5 % each): motoring it takes in more, regenerating it feeds back less.
+    const scaled = { ...g, currentRms: g.currentRms * (1 + (pf > 0 ? 1 : -1) * 0.03) }
+    const pair = evaluateDesign({ machineSide: converter(m), gridSide: converter(scaled) }).sharedLink!.pairs[0]!
+    const b = balanceWithLosses(pair, lossW, lossW)
+    expect(b.lossesW).toBe(2 * lossW)
+    expect(Math.abs(b.residualW)).toBeLessThan(0.002 * Math.abs(pair.machinePowerW))
+    expect(b.balanced).toBe(true)
+    expect(balanceWithLosses(pair, 0, 0).balanced).toBe(false)
+    expect(balanceWithLosses(pair, 0, 0).residualW).toBeCloseTo(2 * lossW, -1)
   })
 })
 
