@@ -2,7 +2,7 @@
 // it, and the parts the engineer assigned (each pinned to the part version it was matched with and to
 // the design revision its counts were rated against).
 import { eq, inArray } from 'drizzle-orm'
-import { balanceWithLosses, evaluateDesign, legLayout } from '#shared/engine'
+import { balanceWithLosses, evaluateDesign, gridInput, legLayout } from '#shared/engine'
 import type { CapacitorEnvelope, DesignInput, DesignResult } from '#shared/engine/types'
 import { approvalRank, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, rateAssignment, whyNothingFits, type Candidate, type MatchPolicy, type PositionDuty } from '#shared/catalog/matching'
 import { moduleCoverage, type LegPosition } from '#shared/bom/coverage'
@@ -35,7 +35,7 @@ export function designPositions(input: DesignInput, result: DesignResult = withE
   const out: DesignPosition[] = []
   for (const converter of result.converters) {
     const side = converter.side as 'machine' | 'grid'
-    const c = side === 'grid' ? input.gridSide! : input.machineSide
+    const c = side === 'grid' ? gridInput(input.machineSide, input.gridSide!) : input.machineSide
     const ctx = { switchingHz: c.switchingHz, topology: c.topology, levels: c.levels }
     // Ratings from the envelope; losses from each operating point's own currents and commutations.
     for (const d of converter.envelope.devices) out.push({ side, duty: { ...positionDutyFromDevice(d, ctx), points: pointDutiesOf(converter, d.name) }, label: `${d.kind} ${d.name}` })
@@ -60,7 +60,7 @@ type Part = CatalogPart & { partVersionId: number, approved?: boolean }
 
 /** Devices of one leg of a side, for module coverage. */
 export function legPositions(input: DesignInput, side: Side): LegPosition[] {
-  const c = side === 'grid' ? input.gridSide : side === 'machine' ? input.machineSide : null
+  const c = side === 'grid' ? (input.gridSide && gridInput(input.machineSide, input.gridSide)) : side === 'machine' ? input.machineSide : null
   if (!c) return []
   return legLayout(c.topology, c.levels).items.filter(i => i.kind !== 'capacitor').map(i => ({ name: i.name, kind: i.kind as LegPosition['kind'], countPerPhase: i.countPerPhase, nodes: i.nodes, ...(i.antiParallelTo ? { antiParallelTo: i.antiParallelTo } : {}) }))
 }
