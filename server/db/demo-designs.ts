@@ -32,8 +32,8 @@ export const demoDesigns: { name: string, description: string, owner: string, in
       gridSide: {
         topology: 'two-level', levels: 2, dcVoltage: 650, dcVoltageMax: 750, switchingHz: 6000, modulation: 'space-vector', overshootVoltage: 80,
         operatingPoints: [
-          { name: 'Grid, rectifying', lineVoltageRms: 400, phaseCurrentRms: 170, powerFactor: 1, fundamentalHz: 50 },
-          { name: 'Grid, feeding back', lineVoltageRms: 400, phaseCurrentRms: 170, powerFactor: -1, fundamentalHz: 50 },
+          { name: 'Grid, rectifying', lineVoltageRms: 400, phaseCurrentRms: 170, powerFactor: -1, fundamentalHz: 50 },
+          { name: 'Grid, feeding back', lineVoltageRms: 400, phaseCurrentRms: 170, powerFactor: 1, fundamentalHz: 50 },
         ],
       },
     },

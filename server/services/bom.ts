@@ -122,7 +122,9 @@ function designSummary(input: DesignInput): BomSnapshot['designSummary'] {
 export function topologySummary(input: DesignInput) {
   const m = input.machineSide
   const one = `${topologyById[m.topology].label}${m.levels && m.topology !== 'two-level' ? ` (N = ${m.levels})` : ''}`
-  return input.gridSide ? `${one}, back-to-back` : one
+  const g = input.gridSide
+  if (!g) return one
+  return g.topology === m.topology ? `${one}, back-to-back` : `${one}, back-to-back with a ${topologyById[g.topology].label}${g.levels && g.topology !== 'two-level' ? ` (N = ${g.levels})` : ''} grid side`
 }
 
 /** Recorded acknowledgements of gated lines, by line key. */

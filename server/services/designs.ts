@@ -2,7 +2,7 @@
 import { and, desc, eq } from 'drizzle-orm'
 import { z } from 'zod'
 import { PG_INT_MAX } from '#shared/schemas/bounds'
-import { evaluateDesign, evaluateStress, legLayout } from '#shared/engine'
+import { evaluateDesign, evaluateStress, gridInput, legLayout } from '#shared/engine'
 import type { DesignInput } from '#shared/engine/types'
 import type { DesignPreview } from '#shared/types/design'
 
@@ -72,7 +72,8 @@ export async function saveRevision(id: number, fromRevision: number, fields: { n
 /** Evaluation, leg drawings and the first operating point's waveform of each side, for the design page. */
 export function previewDesign(input: DesignInput): DesignPreview {
   const result = withEngine(() => evaluateDesign(input))
-  const sides = [['machine', input.machineSide], ['grid', input.gridSide]] as const
+  // The grid side as the engine reads it: DC link and levels taken from the machine side where absent.
+  const sides = [['machine', input.machineSide], ['grid', input.gridSide && gridInput(input.machineSide, input.gridSide)]] as const
   const layouts: DesignPreview['layouts'] = {}
   const extras: DesignPreview['extras'] = {}
   for (const [side, converter] of sides) {

@@ -2,7 +2,7 @@
 // it, and the parts the engineer assigned (each pinned to the part version it was matched with and to
 // the design revision its counts were rated against).
 import { eq, inArray } from 'drizzle-orm'
-import { evaluateDesign, legLayout } from '#shared/engine'
+import { balanceWithLosses, evaluateDesign, gridInput, legLayout } from '#shared/engine'
 import type { CapacitorEnvelope, DesignInput, DesignResult } from '#shared/engine/types'
 import { approvalRank, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, rateAssignment, whyNothingFits, type Candidate, type MatchPolicy, type PositionDuty } from '#shared/catalog/matching'
 import { moduleCoverage, type LegPosition } from '#shared/bom/coverage'
@@ -26,57 +26,29 @@ export interface DesignPosition {
 }
 
 /**
- * Where a capacitor bank sits: the engine's explicit `side` / `role` when it gives them; otherwise
- * derived here, the one place: in a back-to-back design both converters' DC-link capacitors are the
- * same physical link, so they form one shared bank on side 'dc-link' (bought once).
+ * Where a capacitor bank sits, from the engine's explicit `side` (never from its name or label): a back-to-back
+ * pair's shared DC link is side 'dc-link', one bank bought once; every other capacitor stays with its converter.
  */
-export function capacitorSide(converterSide: 'machine' | 'grid', cap: CapacitorEnvelope, backToBack: boolean): Side {
-  const explicit = (cap as CapacitorEnvelope & { side?: Side }).side
-  if (explicit) return explicit
-  const role = (cap as CapacitorEnvelope & { role?: string }).role ?? cap.kind
-  return backToBack && role === 'dc-link' ? 'dc-link' : converterSide
-}
-
-/**
- * Shared-link duty from both converters' duties of the same capacitor position: the higher voltage and
- * capacitance, and the sum of the ripple currents (an upper bound: both ripples in phase; the engine's
- * own shared-link model replaces this when it gives the bank with side 'dc-link').
- */
-function mergeSharedDuty(a: PositionDuty, b: PositionDuty): PositionDuty {
-  const ripple = (a.requiredRippleRating ?? a.currentRms) + (b.requiredRippleRating ?? b.currentRms)
-  return {
-    ...a,
-    requiredVoltageRating: Math.max(a.requiredVoltageRating, b.requiredVoltageRating),
-    requiredRippleRating: ripple,
-    currentRms: a.currentRms + b.currentRms,
-    currentPeak: a.currentPeak + b.currentPeak,
-    blockingVoltage: Math.max(a.blockingVoltage, b.blockingVoltage),
-    positionsPerPhase: Math.max(a.positionsPerPhase, b.positionsPerPhase),
-    ...((a.capacitanceRequired ?? b.capacitanceRequired) !== undefined ? { capacitanceRequired: Math.max(a.capacitanceRequired ?? 0, b.capacitanceRequired ?? 0) } : {}),
-  }
+export function capacitorSide(converterSide: 'machine' | 'grid', cap: Pick<CapacitorEnvelope, 'side'>): Side {
+  return cap.side === 'shared' ? 'dc-link' : converterSide
 }
 
 /** All positions of a design (devices and capacitors of each converter, a shared DC link once) as matching duties. */
 export function designPositions(input: DesignInput, result: DesignResult = withEngine(() => evaluateDesign(input))): DesignPosition[] {
   const out: DesignPosition[] = []
-  const backToBack = !!input.gridSide
-  const shared = new Map<string, DesignPosition>()
   for (const converter of result.converters) {
     const side = converter.side as 'machine' | 'grid'
-    const c = side === 'grid' ? input.gridSide! : input.machineSide
+    const c = side === 'grid' ? gridInput(input.machineSide, input.gridSide!) : input.machineSide
     const ctx = { switchingHz: c.switchingHz, topology: c.topology, levels: c.levels }
     // Ratings from the envelope; losses from each operating point's own currents and commutations.
     for (const d of converter.envelope.devices) out.push({ side, duty: { ...positionDutyFromDevice(d, ctx), points: pointDutiesOf(converter, d.name) }, label: `${d.kind} ${d.name}` })
     for (const cap of converter.envelope.capacitors) {
-      const capSide = capacitorSide(side, cap, backToBack)
-      const duty = positionDutyFromCapacitor(cap, { topology: c.topology, levels: c.levels })
-      if (capSide !== 'dc-link') { out.push({ side: capSide, duty, label: `${cap.kind} capacitor ${cap.name}` }); continue }
-      const seen = shared.get(cap.name)
-      if (seen) seen.duty = mergeSharedDuty(seen.duty, duty)
-      else {
-        const position: DesignPosition = { side: 'dc-link', duty, label: `shared ${cap.kind} capacitor ${cap.name}` }
-        shared.set(cap.name, position)
-        out.push(position)
+      out.push({ side: capacitorSide(side, cap), duty: positionDutyFromCapacitor(cap, { topology: c.topology, levels: c.levels }), label: `${cap.kind} capacitor ${cap.name}` })
+    }
+    // The engine's one bank for both converters' link (back-to-back), listed once, after the machine side.
+    if (side === 'machine' && result.sharedLink) {
+      for (const cap of result.sharedLink.capacitors) {
+        out.push({ side: capacitorSide(side, cap), duty: positionDutyFromCapacitor(cap, { topology: c.topology, levels: c.levels }), label: `shared DC-link capacitor ${cap.name}` })
       }
     }
   }
@@ -91,7 +63,7 @@ type Part = CatalogPart & { partVersionId: number, approved?: boolean }
 
 /** Devices of one leg of a side, for module coverage. */
 export function legPositions(input: DesignInput, side: Side): LegPosition[] {
-  const c = side === 'grid' ? input.gridSide : side === 'machine' ? input.machineSide : null
+  const c = side === 'grid' ? (input.gridSide && gridInput(input.machineSide, input.gridSide)) : side === 'machine' ? input.machineSide : null
   if (!c) return []
   return legLayout(c.topology, c.levels).items.filter(i => i.kind !== 'capacitor').map(i => ({ name: i.name, kind: i.kind as LegPosition['kind'], countPerPhase: i.countPerPhase, nodes: i.nodes, ...(i.antiParallelTo ? { antiParallelTo: i.antiParallelTo } : {}) }))
 }
@@ -194,7 +166,8 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
     return { side, position: duty.positionName, label, duty, candidates, hiddenCandidates, nothingFits, coveredBy, assigned }
   })
   const thermal = attachThermal(input, result, positions, policy)
-  return { design, input, result, policy, positions, thermal, summary: lossSummary(input, positions, result) }
+  const summary = lossSummary(input, positions, result)
+  return { design, input, result, policy, positions, thermal, summary, linkBalance: linkBalance(result, summary) }
 }
 
 /** Candidates per position whose T_j is followed over the period (the first ones shown; the assigned part always). */
@@ -232,6 +205,26 @@ export function attachThermal(input: DesignInput, result: DesignResult, position
   })
   const { results: _r, ...rest } = out
   return rest
+}
+
+/**
+ * Back-to-back, per operating-point pair: the real power through the shared link against both converters' losses
+ * at their points (null losses until every position of both sides is assigned).
+ */
+export function linkBalance(result: DesignResult, summary: ReturnType<typeof lossSummary>) {
+  if (!result.sharedLink) return null
+  const side = (s: 'machine' | 'grid') => summary.find(x => x.side === s)
+  const lossAt = (s: 'machine' | 'grid', point: string) => {
+    const x = side(s)
+    if (!x || x.assignedPositions < x.positions) return null
+    return x.perPoint.find(p => p.pointName === point)?.lossW ?? null
+  }
+  return result.sharedLink.pairs.map((p) => {
+    const lm = lossAt('machine', p.machinePoint)
+    const lg = lossAt('grid', p.gridPoint)
+    const withLosses = lm !== null && lg !== null ? balanceWithLosses(p, lm, lg) : null
+    return { machinePoint: p.machinePoint, gridPoint: p.gridPoint, machinePowerW: p.machinePowerW, gridPowerW: p.gridPowerW, ...(withLosses ?? { lossesW: null, residualW: null, balanced: p.balanced }) }
+  })
 }
 
 /**

@@ -77,8 +77,8 @@ export interface CoveredPosition {
 
 /** A capacitor bank position: `count` pieces per converter set, counted directly. */
 export interface CapacitorFill extends BomPartData {
-  /** default 'dc-link' */
-  side?: BomSide
+  /** the converter it belongs to, or 'dc-link': a back-to-back pair's shared link, one bank bought once (from the engine's explicit side, never a label) */
+  side: BomSide
   /** position name, e.g. "C1" */
   position: string
   /** pieces per converter set (positions × seriesCount × parallelCount) */
@@ -205,6 +205,7 @@ function checkInput(input: BomBuildInput): void {
   ;(input.capacitors ?? []).forEach((fill, i) => {
     const at = `capacitors.${i}`
     checkPartData(fill, at, issues)
+    if (!['machine', 'grid', 'dc-link'].includes(fill.side)) issues.push({ field: `${at}.side`, message: `must be 'machine', 'grid' or 'dc-link', got ${String(fill.side)}` })
     if (typeof fill.position !== 'string' || fill.position.trim() === '') issues.push({ field: `${at}.position`, message: 'a position name is required' })
     if (!validWholeNumber(fill.count, 1)) issues.push({ field: `${at}.count`, message: `must be a whole number of pieces ≥ 1, got ${String(fill.count)}` })
     for (const field of ['seriesCount', 'parallelCount'] as const) {
@@ -325,7 +326,7 @@ export function buildBomLines(input: BomBuildInput): BomBuildResult {
     positions.push({ side: c.side, position: c.position.trim(), partNumber: c.partNumber.trim(), manufacturer: c.manufacturer.trim(), perConverter: 0, seriesCount: 1, parallelCount: 1, coveredBy: c.coveredBy })
   }
   for (const fill of input.capacitors ?? []) {
-    const side = fill.side ?? 'dc-link'
+    const side = fill.side
     const group = groupOf(fill, 'capacitor', 1)
     group.directPieces += fill.count
     const series = fill.seriesCount ?? 1

@@ -17,7 +17,7 @@
 //   junction    T_j = T_heatsink + P·(R_th,jc + R_th,ch)            per device (no coupling between chips)
 
 import { COLUMN_BY_KEY, PACKAGE_CONFIGURATIONS, type ColumnKey, type PartKind } from '../../catalog/columns'
-import type { CapacitorEnvelope, DeviceEnvelope, TopologyId } from '../engine/types'
+import type { CapacitorEnvelope, CapacitorRole, DeviceEnvelope, TopologyId } from '../engine/types'
 import { FALLBACK_METHOD, lossesOverPoints, type PointDuty } from '../thermal/losses'
 import { hasTwoTemperatures, junctionOverPoints } from '../thermal/temperature'
 import { priceAtQuantity } from './prices'
@@ -39,6 +39,8 @@ export interface PositionDuty {
   requiredRippleRating?: number
   /** F, capacitors: capacitance the position needs. */
   capacitanceRequired?: number
+  /** capacitors: what the capacitor is (the engine's explicit role: dc-link, split, flying, cell, filter) */
+  capacitorRole?: CapacitorRole
   /** A, average current of the position (semiconductors). */
   currentAvg: number
   /** A, RMS current (capacitors: ripple current). */
@@ -768,6 +770,7 @@ export function positionDutyFromCapacitor(capacitor: CapacitorEnvelope, ctx: Omi
     requiredVoltageRating: capacitor.requiredVoltageRating,
     requiredRippleRating: capacitor.requiredRippleRating,
     ...(capacitor.capacitanceRequired !== undefined ? { capacitanceRequired: capacitor.capacitanceRequired } : {}),
+    capacitorRole: capacitor.role,
     currentAvg: 0,
     currentRms: capacitor.rippleCurrentRms,
     currentPeak: capacitor.rippleCurrentRms * Math.SQRT2,

@@ -25,7 +25,7 @@ export interface CapacitorContext {
   points: number
 }
 
-interface CurrentFigures {
+export interface CurrentFigures {
   /** A, RMS of the current minus its mean */
   rms: number
   /** A, RMS of the switching-period-averaged current minus its mean (low-frequency ripple) */
@@ -37,12 +37,23 @@ interface CurrentFigures {
 }
 
 /**
+ * Per switching period of a split link (for the shared DC link of a back-to-back pair, link.ts):
+ * bounds[5k…5k+4] the carrier values where the joint state changes, values[(4k + q)·J + j] capacitor j+1's
+ * current in interval q, charged[j·points + k] its period average with the natural-sampling shift.
+ */
+export interface SplitLinkDetail {
+  bounds: Float64Array
+  values: Float64Array
+  charged: Float64Array
+}
+
+/**
  * Split DC link of L−1 series capacitors (capacitor j between DC nodes j−1 and j) feeding three legs
  * whose pole sits at DC node = level; PD carriers common to all phases. With a ripple-free DC source
  * current (Kolar & Round's assumption) capacitor j carries −Σ(currents drawn from nodes ≥ j) plus a
  * constant; in each switching period the carrier value c ∈ [0, 1] sweeps the joint states in order.
  */
-export function splitLinkCurrents(L: number, reference: (theta: number) => number, currentPeak: number, phi: number, points: number, switchingHz: number, fundamentalHz: number): CurrentFigures[] {
+export function splitLinkCurrents(L: number, reference: (theta: number) => number, currentPeak: number, phi: number, points: number, switchingHz: number, fundamentalHz: number, detail?: SplitLinkDetail): CurrentFigures[] {
   const J = L - 1
   const sum = new Float64Array(J)
   const sumSq = new Float64Array(J)
@@ -72,7 +83,8 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
 
   // The three phases are alike shifted by a third of the period, and the link currents are sums over all three,
   // so they repeat every third: on a grid that divides by 3, one third is computed and the rest copied.
-  const third = points % 3 === 0 ? points / 3 : points
+  // (The whole period when the caller wants every angle's detail.)
+  const third = !detail && points % 3 === 0 ? points / 3 : points
   for (let k = 0; k < third; k++) {
     const theta = (k + 0.5) * dTheta
     const kNext = k + 1 === points ? 0 : k + 1
@@ -101,6 +113,7 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
     bounds[2] = Math.max(Math.min(f0, f1), Math.min(Math.max(f0, f1), f2))
     bounds[3] = hi1
     bounds[4] = 1
+    if (detail) detail.bounds.set(bounds, 5 * k)
     for (let q = 0; q < 4; q++) {
       // Carrier in (bounds[q], bounds[q+1]): a phase sits one level up while its fraction exceeds the carrier.
       const top = bounds[q + 1]!
@@ -113,6 +126,7 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
       // Leave the scratch array all zero for the next interval.
       for (let x = 0; x < 3; x++) nodeCurrent[base[x]!] = nodeCurrent[base[x]! + 1] = 0
     }
+    if (detail) detail.values.set(values, 4 * J * k)
     for (let j = 0; j < J; j++) {
       let avg = 0
       let ms = 0
@@ -147,6 +161,7 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
       charged[j * points + k] = avgShifted
     }
   }
+  if (detail) detail.charged.set(charged)
   // The charge and the ripple repeat with the currents, so their figures over one third are those of the period.
   return Array.from({ length: J }, (_, j) => {
     const part = (a: Float64Array) => a.subarray(j * points, j * points + third)
@@ -308,6 +323,7 @@ export function capacitorStresses(ctx: CapacitorContext): CapacitorOutcome {
     return {
       name: def.name,
       kind: def.kind,
+      role: def.role,
       count: def.countInConverter,
       voltage: def.voltageUnits * ctx.unitVoltageMax,
       rippleCurrentRms: f.rms,

@@ -2,9 +2,10 @@
 import { clampStack, defaultDerating, voltageRequirement } from './derating'
 import { EngineInputError } from './errors'
 import { INPUT_LIMITS, tooLarge, tooSmall } from './limits'
+import { gridInput, isLinkCapacitor, sharedLink } from './link'
 import { evaluateStress } from './stress'
 import type {
-  CapacitorEnvelope, ConverterInput, ConverterResult, DeratingPolicy, DesignInput, DesignResult, DeviceEnvelope, InductorEnvelope, OperatingPoint, StressInput, StressResult,
+  CapacitorEnvelope, ConverterInput, ConverterResult, DeratingPolicy, DesignInput, DesignResult, DeviceEnvelope, InductorEnvelope, LinkCarriers, OperatingPoint, StressInput, StressResult,
 } from './types'
 import { resolveStressInput } from './validate'
 
@@ -207,20 +208,7 @@ function filterInductors(points: PointResult[], capacitors: CapacitorEnvelope[])
   }]
 }
 
-/** The grid side shares the DC link: same topology and DC link, levels taken from the machine side when absent. */
-function gridInput(machine: ConverterInput, grid: ConverterInput): ConverterInput {
-  if (typeof grid !== 'object' || grid === null) throw new EngineInputError('gridSide', 'gridSide must be an object')
-  if (machine.topology === 'matrix') throw new EngineInputError('gridSide', 'a matrix converter has no DC link to share with a grid-side converter')
-  if (grid.topology !== machine.topology) throw new EngineInputError('gridSide.topology', `gridSide.topology must equal machineSide.topology (${machine.topology}): the two converters share the DC link`)
-  for (const key of ['levels', 'dcVoltage', 'dcVoltageMax'] as const) {
-    if (grid[key] !== undefined && machine[key] !== undefined && grid[key] !== machine[key]) {
-      throw new EngineInputError(`gridSide.${key}`, `gridSide.${key} must equal machineSide.${key} (${machine[key]}): shared DC link`)
-    }
-  }
-  return { ...grid, levels: grid.levels ?? machine.levels, dcVoltage: grid.dcVoltage ?? machine.dcVoltage, dcVoltageMax: grid.dcVoltageMax ?? machine.dcVoltageMax }
-}
-
-function designPreamble(input: DesignInput): { derating: DeratingPolicy, rippleTarget: number | undefined, grid?: ConverterInput } {
+function designPreamble(input: DesignInput): { derating: DeratingPolicy, rippleTarget: number | undefined, grid?: ConverterInput, carriers: LinkCarriers } {
   if (typeof input !== 'object' || input === null) throw new EngineInputError('input', 'design input must be an object')
   const derating = resolveDerating(input.derating)
   const rippleTarget = input.capacitorRippleTarget
@@ -230,7 +218,13 @@ function designPreamble(input: DesignInput): { derating: DeratingPolicy, rippleT
   if (rippleTarget !== undefined && rippleTarget < INPUT_LIMITS.capacitorRippleTarget.min) throw new EngineInputError('capacitorRippleTarget', tooSmall('capacitorRippleTarget'))
   if (rippleTarget !== undefined && rippleTarget > INPUT_LIMITS.capacitorRippleTarget.max) throw new EngineInputError('capacitorRippleTarget', tooLarge('capacitorRippleTarget'))
   if (typeof input.machineSide !== 'object' || input.machineSide === null) throw new EngineInputError('machineSide', 'machineSide is required')
-  return { derating, rippleTarget, ...(input.gridSide !== undefined ? { grid: gridInput(input.machineSide, input.gridSide) } : {}) }
+  const carriers = input.linkCarriers ?? 'independent'
+  if (carriers !== 'independent' && carriers !== 'synchronised') throw new EngineInputError('linkCarriers', 'linkCarriers must be \'independent\' or \'synchronised\'')
+  const grid = input.gridSide !== undefined ? gridInput(input.machineSide, input.gridSide) : undefined
+  if (grid && carriers === 'synchronised' && grid.switchingHz !== input.machineSide.switchingHz) {
+    throw new EngineInputError('linkCarriers', `synchronised carriers need both converters at one switching frequency (machine side ${input.machineSide.switchingHz} Hz, grid side ${grid.switchingHz} Hz)`)
+  }
+  return { derating, rippleTarget, carriers, ...(grid ? { grid } : {}) }
 }
 
 /** Checks a design input without evaluating it (for form and route validation); throws EngineInputError naming the field. */
@@ -244,9 +238,15 @@ export function checkDesignInput(input: DesignInput): void {
 
 /** Evaluates every operating point of the machine side (and grid side), the envelopes and required ratings. */
 export function evaluateDesign(input: DesignInput): DesignResult {
-  const { derating, rippleTarget, grid } = designPreamble(input)
+  const { derating, rippleTarget, grid, carriers } = designPreamble(input)
   const converters = [converterResult('machine', input.machineSide, 'machineSide', derating, rippleTarget)]
   if (grid) converters.push(converterResult('grid', grid, 'gridSide', derating, rippleTarget))
+  for (const c of converters) {
+    for (const cap of [...c.envelope.capacitors, ...c.points.flatMap(p => p.capacitors)]) cap.side = c.side
+  }
+  // Back-to-back: the link capacitors are one bank, sized from both converters' combined current, listed once.
+  const link = grid ? sharedLink(input.machineSide, grid, converters as [ConverterResult, ConverterResult], derating, rippleTarget, carriers) : undefined
+  if (link) for (const c of converters) c.envelope.capacitors = c.envelope.capacitors.filter(cap => !isLinkCapacitor(cap))
 
   const warnings: string[] = []
   for (const c of converters) {
@@ -262,9 +262,13 @@ export function evaluateDesign(input: DesignInput): DesignResult {
     const pm = maxPower(input.machineSide, m)
     const pg = maxPower(grid!, g)
     if (pg < 0.95 * pm) warnings.push(`Grid side carries at most ${Math.round(pg / 1000)} kW of real power but the machine side up to ${Math.round(pm / 1000)} kW: the shared DC link cannot balance (add or uprate grid-side operating points).`)
-    warnings.push('Shared DC link: capacitor ripple currents are listed per converter; with unsynchronised carriers the link carries about the root-sum-square of both.')
+    for (const pair of link!.pairs.filter(x => !x.balanced && x.pairedBy !== 'nearest power')) {
+      warnings.push(`Shared DC link, ${pair.machinePoint} with ${pair.gridPoint}: the grid side takes in ${fmt(pair.gridPowerW / 1000)} kW but the machine side delivers ${fmt(pair.machinePowerW / 1000)} kW; they differ by ${fmt(pair.imbalanceW / 1000)} kW, more than 5 %, which the converters' losses cannot account for (real power must balance through the link).`)
+    }
+    const differ = link!.capacitors.filter(c => c.rippleCurrentRmsSynchronised !== undefined && Math.abs(c.rippleCurrentRmsSynchronised - c.rippleCurrentRmsIndependent) > 0.01 * c.rippleCurrentRmsIndependent)
+    warnings.push(`Shared DC link: one bank rated for ${carriers} carriers${differ.length ? ` (${differ.map(c => `${c.name} ${fmt(c.rippleCurrentRmsIndependent)} A RMS independent, ${fmt(c.rippleCurrentRmsSynchronised!)} A with one common carrier`).join('; ')})` : ''}.`)
   }
-  return { converters, derating, warnings }
+  return { converters, derating, warnings, ...(link ? { sharedLink: link } : {}) }
 }
 
 /** W, largest real power magnitude √3·V_LL,1·I·cos φ over a converter's points. */

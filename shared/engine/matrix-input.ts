@@ -503,6 +503,7 @@ export function evaluateMatrixInput(p: ResolvedInput, reference: (theta: number)
   const capacitor: CapacitorStress = {
     name: 'Cf',
     kind: 'input-filter',
+    role: 'filter',
     count: 3,
     voltage: inputPhasePeak + rippleTarget / 2,
     rippleCurrentRms: capacitorCurrentRms,

@@ -1,6 +1,6 @@
 // How a topology is described as data (positions, nodes, switching states) and compiled once per
 // level count into the weight tables the one generic integrator consumes.
-import type { DeviceKind, Modulation, TopologyId } from './types'
+import type { CapacitorKind, CapacitorRole, DeviceKind, Modulation, TopologyId } from './types'
 
 /**
  * One device position of a phase leg. `nodes` is [collector / cathode node, emitter / anode node]:
@@ -42,7 +42,9 @@ export interface StateDef {
 
 export interface CapacitorDef {
   name: string
-  kind: 'dc-link' | 'flying'
+  kind: CapacitorKind
+  /** what it is (shared/engine/types.ts CapacitorRole); the BOM and matching read this, never the name */
+  role: CapacitorRole
   nodes: [string, string]
   /** DC voltage in unit voltages */
   voltageUnits: number

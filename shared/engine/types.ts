@@ -13,7 +13,17 @@ export type TopologyId
 export type Modulation = 'sine' | 'third-harmonic' | 'space-vector' | 'six-step'
 
 export type DeviceKind = 'switch' | 'diode' | 'clamp-diode'
-export type CapacitorKind = 'dc-link' | 'flying' | 'input-filter'
+export type CapacitorKind = 'dc-link' | 'flying' | 'cell' | 'input-filter'
+/**
+ * What a capacitor is, explicitly (never read from its name): 'dc-link' a bank across the whole DC link,
+ * 'split' one of the series capacitors of a split DC link, 'flying' a flying capacitor, 'cell' an H-bridge
+ * cell's own capacitor, 'filter' an AC input-filter capacitor.
+ */
+export type CapacitorRole = 'dc-link' | 'split' | 'flying' | 'cell' | 'filter'
+/** Which converter a capacitor belongs to; 'shared': the one DC link a back-to-back pair shares (one bank). */
+export type CapacitorSide = 'machine' | 'grid' | 'shared'
+/** Carrier assumption for a shared DC link: one common carrier (same f_sw, in phase) or independent carriers. */
+export type LinkCarriers = 'synchronised' | 'independent'
 
 /** Where a number comes from, so an engineer can see why it is what it is. */
 export interface Provenance {
@@ -110,6 +120,9 @@ export interface DeviceStress {
 export interface CapacitorStress {
   name: string
   kind: CapacitorKind
+  role: CapacitorRole
+  /** set by evaluateDesign: the converter it belongs to, or 'shared' for a back-to-back pair's DC link */
+  side?: CapacitorSide
   count: number
   /** V, DC voltage across it at dcVoltageMax. */
   voltage: number
@@ -251,8 +264,10 @@ export interface ConverterInput {
 
 export interface DesignInput {
   machineSide: ConverterInput
-  /** Optional active front end sharing the DC link (back-to-back); same topology kind. */
+  /** Optional active front end sharing the DC link (back-to-back): any topology with the same DC-link structure. */
   gridSide?: ConverterInput
+  /** Back-to-back: carrier assumption the shared DC link is sized and rated for; default 'independent'. */
+  linkCarriers?: LinkCarriers
   derating?: Partial<DeratingPolicy>
   /** V ripple target on the split / cell capacitors (peak-to-peak) for capacitance sizing. */
   capacitorRippleTarget?: number
@@ -314,8 +329,50 @@ export interface ConverterResult {
   warnings: string[]
 }
 
+/** One machine-side point run together with one grid-side point on the shared DC link. */
+export interface LinkPointPair {
+  machinePoint: string
+  gridPoint: string
+  /** how the pair was formed: the same point name, the same position in the lists, or the grid point closest in real power */
+  pairedBy: 'name' | 'index' | 'nearest power'
+  /** W, real power the machine side delivers at its AC terminals (negative: regeneration) */
+  machinePowerW: number
+  /** W, real power the grid side takes in at its AC terminals (negative: feeding back) */
+  gridPowerW: number
+  /** var, each side's own reactive power at its AC terminals (never netted through the link) */
+  machineReactiveVar: number
+  gridReactiveVar: number
+  /** W, gridPowerW − machinePowerW: what the losses of both converters must account for */
+  imbalanceW: number
+  /** the two real powers agree within 5 % of the larger (losses unknown to the engine) */
+  balanced: boolean
+  /** A RMS per shared capacitor (by name): both carrier assumptions; synchronised only with equal switching frequencies */
+  rippleCurrentRms: Record<string, { synchronised?: number, independent: number }>
+}
+
+export interface SharedLinkCapacitor extends CapacitorEnvelope {
+  /** A RMS, combined ripple current with one common carrier (same f_sw, in phase); absent when the switching frequencies differ */
+  rippleCurrentRmsSynchronised?: number
+  /** A RMS, root-sum-square of the two sides' ripple currents (independent carriers) */
+  rippleCurrentRmsIndependent: number
+  /** F, capacitance for the ripple target under each assumption */
+  capacitanceSynchronised?: number
+  capacitanceIndependent: number
+}
+
+/** The one DC link of a back-to-back pair: one bank sized from both converters' combined current. */
+export interface SharedLinkResult {
+  /** the assumption `rippleCurrentRms`, `capacitanceRequired` and the required ratings use */
+  carriers: LinkCarriers
+  capacitors: SharedLinkCapacitor[]
+  pairs: LinkPointPair[]
+  notes: string[]
+}
+
 export interface DesignResult {
   converters: ConverterResult[]
+  /** back-to-back only: the shared DC link (its capacitors are not repeated in the converters' envelopes) */
+  sharedLink?: SharedLinkResult
   derating: DeratingPolicy
   warnings: string[]
 }

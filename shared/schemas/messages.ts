@@ -26,6 +26,7 @@ export const FIELD_LABELS = {
   powerFactorSense: 'Lagging or leading power factor',
   fundamentalHz: 'Fundamental frequency',
   capacitorRippleTarget: 'Capacitor ripple target',
+  linkCarriers: 'Carriers of the two converters',
   semiconductorVoltageUtilisation: 'Semiconductor voltage use',
   semiconductorTransientMargin: 'Semiconductor peak (with overshoot) use',
   semiconductorCurrentUtilisation: 'Semiconductor peak-current use',

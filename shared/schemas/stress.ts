@@ -155,6 +155,7 @@ export const designInputSchema = z.object({
   derating: deratingSchema.optional(),
   thermal: thermalSettingsSchema.optional(),
   capacitorRippleTarget: bounded('capacitorRippleTarget', 'positive').optional(),
+  linkCarriers: z.enum(['independent', 'synchronised'], { error: 'linkCarriers must be \'independent\' (each converter its own carrier) or \'synchronised\' (one common carrier)' }).optional(),
 }).superRefine((v, ctx) => engineIssue(ctx, () => checkDesignInput(v)), onlyWhenClean)
 
 export type StressInputBody = z.input<typeof stressInputSchema>

@@ -26,7 +26,7 @@ describe('POST /api/v1/stress', () => {
         expect(['switch', 'diode', 'clamp-diode']).toContain(d.kind)
         expect(d.blockingVoltageWithOvershoot).toBeGreaterThanOrEqual(d.blockingVoltage)
       }
-      for (const cap of r.body.capacitors) expect(['dc-link', 'flying', 'input-filter']).toContain(cap.kind)
+      for (const cap of r.body.capacitors) expect(['dc-link', 'split', 'flying', 'cell', 'filter']).toContain(cap.role)
       if (c.topology === 'matrix') expect(r.body.inputSide.filter.capacitance).toBeGreaterThan(0)
       expect(typeof r.body.lineVoltageFundamentalRms).toBe('number')
       expect(typeof r.body.lineVoltageThd).toBe('number')

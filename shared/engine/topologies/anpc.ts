@@ -50,8 +50,8 @@ export const anpc: TopologyDefinition = {
         { name: 'N', level: 0, on: ['S3', 'S4', 'S5'], nodeVoltages: { ...dc, out: 0, U: 1, L: 0 }, positive: ['D4', 'D3'], negative: ['S3', 'S4'] },
       ],
       capacitors: [
-        { name: 'Cdc1', kind: 'dc-link', nodes: ['dc1', 'dc0'], voltageUnits: 1, countInConverter: 1, splitIndex: 1, row: 2.5, column: 0 },
-        { name: 'Cdc2', kind: 'dc-link', nodes: ['dc2', 'dc1'], voltageUnits: 1, countInConverter: 1, splitIndex: 2, row: 0.5, column: 0 },
+        { name: 'Cdc1', kind: 'dc-link', role: 'split', nodes: ['dc1', 'dc0'], voltageUnits: 1, countInConverter: 1, splitIndex: 1, row: 2.5, column: 0 },
+        { name: 'Cdc2', kind: 'dc-link', role: 'split', nodes: ['dc2', 'dc1'], voltageUnits: 1, countInConverter: 1, splitIndex: 2, row: 0.5, column: 0 },
       ],
     }
   },

@@ -43,7 +43,7 @@ export const cascadedHBridge: TopologyDefinition = {
         { name: '-', level: 0, on: ['S2', 'S3'], nodeVoltages: v(0, 1), positive: ['D3', 'D2'], negative: ['S2', 'S3'] },
       ],
       capacitors: [
-        { name: 'Ccell', kind: 'dc-link', nodes: ['p', 'n'], voltageUnits: 1, countInConverter: 3 * cells, row: 0.5, column: 0 },
+        { name: 'Ccell', kind: 'cell', role: 'cell', nodes: ['p', 'n'], voltageUnits: 1, countInConverter: 3 * cells, row: 0.5, column: 0 },
       ],
     }
   },

@@ -58,7 +58,7 @@ function leg(N: number) {
   })
 
   const capacitors: CapacitorDef[] = range(1, N - 1).map(j => ({
-    name: `Cdc${j}`, kind: 'dc-link', nodes: [`dc${j}`, `dc${j - 1}`], voltageUnits: 1, countInConverter: 1, splitIndex: j, row: 2 * (N - 1 - j) + 0.5, column: 0,
+    name: `Cdc${j}`, kind: 'dc-link', role: 'split', nodes: [`dc${j}`, `dc${j - 1}`], voltageUnits: 1, countInConverter: 1, splitIndex: j, row: 2 * (N - 1 - j) + 0.5, column: 0,
   }))
 
   return { modelLevels: N, outputNode: 'out', carrier: 'phase-disposition' as const, capacitorModel: 'split' as const, positions, states, capacitors }

@@ -49,9 +49,9 @@ function leg(N: number) {
   }
 
   const capacitors: CapacitorDef[] = [
-    { name: 'Cdc', kind: 'dc-link', nodes: [`dc${C}`, 'dc0'], voltageUnits: 1, countInConverter: C, seriesCount: 1, row: 0.5, column: 0 },
+    { name: 'Cdc', kind: 'dc-link', role: 'dc-link', nodes: [`dc${C}`, 'dc0'], voltageUnits: 1, countInConverter: C, seriesCount: 1, row: 0.5, column: 0 },
     ...range(1, C - 1).map((j): CapacitorDef => ({
-      name: `Cf${C - j}`, kind: 'flying', nodes: [P(j), Q(j)], voltageUnits: C - j, countInConverter: 3, seriesCount: C - j, row: 0.5, column: 2 * j + 1,
+      name: `Cf${C - j}`, kind: 'flying', role: 'flying', nodes: [P(j), Q(j)], voltageUnits: C - j, countInConverter: 3, seriesCount: C - j, row: 0.5, column: 2 * j + 1,
     })),
   ]
 

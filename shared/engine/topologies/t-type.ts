@@ -34,8 +34,8 @@ export const tType: TopologyDefinition = {
       { name: 'N', level: 0, on: ['S4', 'S2'], nodeVoltages: { dc0: 0, dc1: 1, dc2: 2, out: 0, E: 0 }, positive: ['D4'], negative: ['S4'] },
     ],
     capacitors: [
-      { name: 'Cdc1', kind: 'dc-link', nodes: ['dc1', 'dc0'], voltageUnits: 1, countInConverter: 1, splitIndex: 1, row: 1.5, column: 0 },
-      { name: 'Cdc2', kind: 'dc-link', nodes: ['dc2', 'dc1'], voltageUnits: 1, countInConverter: 1, splitIndex: 2, row: 0.5, column: 0 },
+      { name: 'Cdc1', kind: 'dc-link', role: 'split', nodes: ['dc1', 'dc0'], voltageUnits: 1, countInConverter: 1, splitIndex: 1, row: 1.5, column: 0 },
+      { name: 'Cdc2', kind: 'dc-link', role: 'split', nodes: ['dc2', 'dc1'], voltageUnits: 1, countInConverter: 1, splitIndex: 2, row: 0.5, column: 0 },
     ],
   }),
 }

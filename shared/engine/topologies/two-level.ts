@@ -28,7 +28,7 @@ export const twoLevel: TopologyDefinition = {
       { name: 'N', level: 0, on: ['S2'], nodeVoltages: { dc0: 0, dc1: 1, out: 0 }, positive: ['D2'], negative: ['S2'] },
     ],
     capacitors: [
-      { name: 'Cdc', kind: 'dc-link', nodes: ['dc1', 'dc0'], voltageUnits: 1, countInConverter: 1, splitIndex: 1, row: 0.5, column: 0 },
+      { name: 'Cdc', kind: 'dc-link', role: 'dc-link', nodes: ['dc1', 'dc0'], voltageUnits: 1, countInConverter: 1, splitIndex: 1, row: 0.5, column: 0 },
     ],
   }),
 }

@@ -134,7 +134,9 @@ describe.each(CASES)('leg schematic SVG: $topology, N = $levels', ({ topology, l
 
   it('writes a stress beside every device and capacitor the engine rated', () => {
     const labelled = new Map(parsed.texts.filter(t => t.includes(' · ')).map(t => [t.split(' ')[0]!, t]))
-    for (const d of [...result.devices, ...result.capacitors]) expect(labelled.get(d.name), d.name).toMatch(/ [0-9.]+ [kM]?V · [0-9.]+ [mk]?A$/)
+    // The matrix converter's input filter capacitors sit on the input lines, outside the leg drawn here.
+    const inLeg = result.capacitors.filter(c => c.role !== 'filter')
+    for (const d of [...result.devices, ...inLeg]) expect(labelled.get(d.name), d.name).toMatch(/ [0-9.]+ [kM]?V · [0-9.]+ [mk]?A$/)
   })
 
   it('draws every placed part with the shared symbol paths (the page draws the same ones)', () => {

@@ -73,6 +73,7 @@ export function deviceKindLabel(kind: string): string {
     case 'dc-link': return 'DC link'
     case 'flying': return 'Flying'
     case 'input-filter': return 'Input filter'
+    case 'cell': return 'Cell'
     default: return kind
   }
 }

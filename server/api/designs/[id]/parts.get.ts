@@ -36,7 +36,7 @@ export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'designs:read')
   const { id } = paramsValid(event, idParam)
   const { show, limit } = queryValid(event, query)
-  const { design, positions, summary, policy, thermal } = await matchDesign(id, limit, { showAll: show === 'all' })
+  const { design, positions, summary, policy, thermal, linkBalance } = await matchDesign(id, limit, { showAll: show === 'all' })
   const head = { id: design.id, name: design.name, revision: design.revision }
   if (sees(user.role, 'catalogue')) {
     // Candidates refer to their part by partVersionId with a short label; the full catalogue data of
@@ -49,7 +49,7 @@ export default defineEventHandler(async (event) => {
         return { ...c, part: partLabel(c.part) }
       }),
     }))
-    return { design: head, policy, thermal, positions: listed as ShownPosition[], parts, summary: summary as (typeof summary[number] & { costPerDesign: number | null })[] }
+    return { design: head, policy, thermal, positions: listed as ShownPosition[], parts, summary: summary as (typeof summary[number] & { costPerDesign: number | null })[], linkBalance }
   }
   const shown = positions.map(p => ({
     ...strip(p, restrictedFields.catalogue.position),
@@ -59,5 +59,5 @@ export default defineEventHandler(async (event) => {
       evaluation: p.assigned.evaluation && strip(p.assigned.evaluation, restrictedFields.catalogue.evaluation),
     },
   })) as ShownPosition[]
-  return { design: head, policy, thermal, positions: shown, summary: summary.map(s => ({ ...s, costPerDesign: null as number | null })) }
+  return { design: head, policy, thermal, positions: shown, summary: summary.map(s => ({ ...s, costPerDesign: null as number | null })), linkBalance }
 })

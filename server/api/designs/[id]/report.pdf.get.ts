@@ -51,10 +51,14 @@ export default defineEventHandler(async (event) => {
       return { ...op, name: twoSides ? `${c.side}: ${name}` : name, modulationIndex: pt.modulationIndex, lineVoltageThd: pt.lineVoltageThd }
     })),
     devices: preview.result.converters.flatMap(c => c.envelope.devices.map(d => ({ ...d, ...(twoSides ? { converter: c.side } : {}) }))),
-    capacitors: preview.result.converters.flatMap(c => c.envelope.capacitors.map(d => ({ ...d, ...(twoSides ? { converter: c.side } : {}) }))),
+    capacitors: [
+      ...preview.result.converters.flatMap(c => c.envelope.capacitors.map(d => ({ ...d, ...(twoSides ? { converter: c.side } : {}) }))),
+      // Back-to-back: the one shared DC-link bank, once.
+      ...(preview.result.sharedLink?.capacitors ?? []).map(d => ({ ...d, converter: 'shared DC link' })),
+    ],
     warnings: [...preview.result.warnings, ...preview.result.converters.flatMap(c => c.warnings)],
-    // One drawing: a back-to-back grid side is the same kind of leg; its figures are in the tables.
-    schematicSvg: legSchematicSvg(preview.layouts.machine!, { devices: machine.envelope.devices, capacitors: machine.envelope.capacitors }, twoSides ? { title: 'Machine side' } : {}),
+    // One drawing, the machine side's leg (its DC-link capacitors labelled with the shared bank); the grid side's figures are in the tables.
+    schematicSvg: legSchematicSvg(preview.layouts.machine!, { devices: machine.envelope.devices, capacitors: [...machine.envelope.capacitors, ...(preview.result.sharedLink?.capacitors ?? [])] }, twoSides ? { title: 'Machine side' } : {}),
     waveform: extras?.waveform ? { title: extras.pointName, time: extras.waveform.time, lineVoltage: extras.waveform.lineVoltage, phaseCurrent: extras.waveform.phaseCurrent } : undefined,
     spectrum: extras?.spectrum,
     lineVoltageThd: extras?.thd ?? machine.points[0]?.lineVoltageThd,
