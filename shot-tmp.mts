@@ -1,0 +1,20 @@
+import { chromium } from 'playwright-core'
+const base = 'http://127.0.0.1:3190'
+const path = process.argv[2] ?? '/designs/new'
+const b = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage'] })
+const ctx = await b.newContext({ baseURL: base, viewport: { width: 1280, height: 800 } })
+const page = await ctx.newPage()
+page.setDefaultTimeout(240000)
+page.on('console', m => { if (m.type() === 'error' || m.type() === 'warning') console.log('console', m.type(), m.text().slice(0, 300)) })
+await page.goto('/sign-in')
+await page.getByLabel('E-mail').fill(process.argv[3] ?? 'engineer@example.com')
+await page.getByLabel('Password').fill('volt-demo-2026')
+await page.getByRole('button', { name: 'Sign in' }).click()
+await page.waitForURL(url => !url.pathname.startsWith('/sign-in'), { timeout: 120000 })
+await page.goto(path, { timeout: 180000 })
+await page.waitForTimeout(Number(process.argv[4] ?? 4000))
+const clip = await page.evaluate(() => [...document.querySelectorAll('table')].map(t => { const c = t.parentElement!; return `${t.querySelector('caption')?.textContent?.trim().slice(0, 40)} ${c.scrollWidth}/${c.clientWidth}` }))
+console.log(clip.join('\n'))
+await page.screenshot({ path: 'test-results/shot.png' })
+await page.screenshot({ path: 'test-results/shot-full.png', fullPage: true })
+await b.close()
