@@ -68,7 +68,7 @@ describe('the design results answer', () => {
 })
 
 describe('the parts page', () => {
-  it('is under 150 kB of HTML for every demo design, with the best 10 candidates per position and more on request', async () => {
+  it('is under 150 kB of HTML for every demo design, with the best 5 candidates per position and more on request', async () => {
     const api = await signInAs('design-engineer')
     const list = await api.json('GET', '/api/designs')
     const demo = (list.body as { id: number, name: string }[]).filter(d => /Pump drive|Dynamometer|MV fan|Battery inverter/.test(d.name))
@@ -84,15 +84,15 @@ describe('the parts page', () => {
     console.log('parts page HTML bytes', sizes)
 
     const largest = demo.find(d => sizes[d.name] === Math.max(...Object.values(sizes)))!
-    const top = await api.json('GET', `/api/designs/${largest.id}/parts?limit=10`)
+    const top = await api.json('GET', `/api/designs/${largest.id}/parts?limit=5`)
     const more = await api.json('GET', `/api/designs/${largest.id}/parts?limit=50`)
     type P = { position: string, side: string, candidates: unknown[], fitting: number }
     for (const p of top.body.positions as P[]) {
-      expect(p.candidates.length).toBeLessThanOrEqual(10)
-      expect(p.candidates.length).toBe(Math.min(10, p.fitting))
+      expect(p.candidates.length).toBeLessThanOrEqual(5)
+      expect(p.candidates.length).toBe(Math.min(5, p.fitting))
       const wider = (more.body.positions as P[]).find(x => x.position === p.position && x.side === p.side)!
       expect(wider.candidates.length).toBe(Math.min(50, p.fitting))
-      // The first ten of the longer list are the same ten, in the same order.
+      // The first five of the longer list are the same five, in the same order.
       expect(wider.candidates.slice(0, p.candidates.length)).toEqual(p.candidates)
     }
   })
