@@ -27,7 +27,7 @@ const figure = (name: string, samples: number[], target?: string): UiFigure => {
  * the frame after the results' text changed, measured inside the page.
  */
 async function editToRepaint(page: Page, volts: number): Promise<number> {
-  const field = page.getByLabel('DC link, nominal', { exact: true })
+  const field = page.getByLabel(/^DC link, nominal/)
   await field.fill(`${volts} V`)
   return page.evaluate(() => new Promise<number>((resolve, reject) => {
     const results = document.querySelector('[data-testid="results"]')
