@@ -57,7 +57,7 @@ export const restrictedFields = {
   catalogue: {
     roles: permissions['catalog:read'],
     /** keys of a parts-route position / assignment evaluation */
-    position: ['candidates', 'hiddenCandidates', 'nothingFits'],
+    position: ['candidates', 'hiddenCandidates', 'fitting', 'nothingFits'],
     evaluation: ['part', 'unitPrice', 'priceBreakQuantity', 'costPerDesign', 'orderQuantity', 'currency', 'stock', 'stockOk', 'leadTimeDays'],
   },
 } as const satisfies Record<string, { roles: readonly Role[], [fields: string]: readonly string[] }>

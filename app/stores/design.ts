@@ -56,6 +56,9 @@ export const useDesignStore = defineStore('design', () => {
   const snapshot = () => JSON.stringify({ n: name.value, d: description.value, i: input.value })
   const dirty = computed(() => snapshot() !== baseline.value)
   let sequence = 0
+  /** The operating point whose waveform and spectrum the results show, per side, and whether at every sample. */
+  const shownPoint = ref<Record<'machine' | 'grid', number>>({ machine: 0, grid: 0 })
+  const fullResolution = ref(false)
 
   const result = computed<DesignResult | null>(() => preview.value?.result ?? null)
   /** The results on screen belong to input that is now refused (by a field or by the server). */
@@ -74,6 +77,8 @@ export const useDesignStore = defineStore('design', () => {
     description.value = from.description
     input.value = structuredClone(toRaw(from.input))
     preview.value = null
+    shownPoint.value = { machine: 0, grid: 0 }
+    fullResolution.value = false
     fieldErrors.value = {}
     refusedFields.value = []
     evaluationError.value = ''
@@ -88,12 +93,32 @@ export const useDesignStore = defineStore('design', () => {
     fieldErrors.value = map
   }
 
+  /** The results query: the chosen points (kept within the points the form has now) and the resolution. */
+  function view() {
+    const within = (i: number, count = 1) => Math.min(Math.max(0, i), Math.max(0, count - 1))
+    shownPoint.value = {
+      machine: within(shownPoint.value.machine, input.value.machineSide.operatingPoints.length),
+      grid: within(shownPoint.value.grid, input.value.gridSide?.operatingPoints.length),
+    }
+    return { machinePoint: shownPoint.value.machine, gridPoint: shownPoint.value.grid, ...(fullResolution.value ? { resolution: 'full' } : {}) }
+  }
+
+  /** Shows another operating point's waveform and spectrum (or every sample of them) and asks the server for it. */
+  function showPoint(side: 'machine' | 'grid', index: number) {
+    shownPoint.value = { ...shownPoint.value, [side]: index }
+    return evaluate()
+  }
+  function showFullResolution(full: boolean) {
+    fullResolution.value = full
+    return evaluate()
+  }
+
   /** Evaluates the current inputs on the server; a newer request wins over an older answer. */
   async function evaluate() {
     const mine = ++sequence
     evaluating.value = true
     try {
-      const r = await $fetch<DesignPreview>('/api/designs/preview', { method: 'POST', body: toRaw(input.value) })
+      const r = await $fetch<DesignPreview>('/api/designs/preview', { method: 'POST', body: toRaw(input.value), query: view() })
       if (mine !== sequence) return
       preview.value = r
       evaluationError.value = ''
@@ -140,5 +165,5 @@ export const useDesignStore = defineStore('design', () => {
     }
   }
 
-  return { id, revision, name, description, input, preview, result, outOfDate, refusedFields, setRefused, evaluating, evaluationError, fieldErrors, saving, saveError, conflict, dirty, reset, evaluate, save }
+  return { id, revision, name, description, input, preview, result, outOfDate, shownPoint, fullResolution, showPoint, showFullResolution, refusedFields, setRefused, evaluating, evaluationError, fieldErrors, saving, saveError, conflict, dirty, reset, evaluate, save }
 })

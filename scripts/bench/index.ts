@@ -5,6 +5,7 @@ import { runEngineBench } from './engine'
 import { runImportApiBench } from './import-api'
 import { runLoadBench } from './load'
 import { runScaleBench } from './scale'
+import { runUiBench } from './ui'
 
 interface Figure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
 
@@ -15,6 +16,7 @@ const suites: [string, () => Promise<Figure[]>][] = [
   ['import-api', runImportApiBench],
   ['load', runLoadBench],
   ['scale', runScaleBench],
+  ['ui', runUiBench],
 ]
 const only = process.argv[2]?.startsWith('--') ? undefined : process.argv[2]
 

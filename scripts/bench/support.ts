@@ -19,14 +19,16 @@ export async function signIn(base: string, email: string, password: string): Pro
 }
 
 /**
- * The built server (.output, built when out of date) on 127.0.0.1:`port` against database `database`,
+ * The built server (.output or STRATAVOLT_BENCH_OUTPUT, built when out of date) on 127.0.0.1:`port` against database `database`,
  * recreated for the run; its output goes to .data/`name`-server.log. Resolves once health answers.
  */
 export async function startBuiltServer(options: { database: string, port: number, name: string, uploads: string, seedDemo: boolean }): Promise<{ base: string, stop: () => void }> {
   const url = ensurePostgres([{ name: options.database, recreate: true }])(options.database)
-  ensureBuild()
+  // STRATAVOLT_BENCH_OUTPUT=.output-test reuses the build `npm test` made (built again when out of date)
+  const output = process.env.STRATAVOLT_BENCH_OUTPUT ?? '.output'
+  const entry = ensureBuild({ output })
   const log = join(root, '.data', `${options.name}-server.log`)
-  const server = spawn(process.execPath, [join(root, '.output', 'server', 'index.mjs')], {
+  const server = spawn(process.execPath, [entry], {
     cwd: root,
     stdio: ['ignore', openSync(log, 'w'), openSync(log, 'a')],
     env: {

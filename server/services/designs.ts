@@ -3,7 +3,8 @@ import { and, desc, eq } from 'drizzle-orm'
 import { z } from 'zod'
 import { PG_INT_MAX } from '#shared/schemas/bounds'
 import { evaluateDesign, evaluateStress, gridInput, legLayout } from '#shared/engine'
-import type { DesignInput } from '#shared/engine/types'
+import type { DesignInput, DesignResult, Waveform } from '#shared/engine/types'
+import { decimationIndices } from '#shared/utils/decimate'
 import type { DesignPreview } from '#shared/types/design'
 
 /** Figures the design list shows, taken from the machine-side converter's first operating point. */
@@ -69,20 +70,72 @@ export async function saveRevision(id: number, fromRevision: number, fields: { n
   })
 }
 
-/** Evaluation, leg drawings and the first operating point's waveform of each side, for the design page. */
-export function previewDesign(input: DesignInput): DesignPreview {
+/** ?machinePoint=…&gridPoint=…&resolution=… of the design results: which point's waveform, how finely sampled. */
+export const previewQuery = z.object({
+  machinePoint: z.coerce.number().int().min(0).max(99).default(0),
+  gridPoint: z.coerce.number().int().min(0).max(99).default(0),
+  resolution: z.enum(['decimated', 'full'], { error: 'resolution must be decimated or full' }).default('decimated'),
+})
+export type PreviewView = z.infer<typeof previewQuery> & { compact: boolean }
+
+/** samples per waveform series the decimated answer keeps at most (extremes per bucket kept) */
+export const PREVIEW_WAVEFORM_POINTS = 1200
+
+/** x rounded to `digits` significant digits (integers stay as they are). */
+const significant = (x: number, digits: number) => (Number.isInteger(x) || !Number.isFinite(x) ? x : Number(x.toPrecision(digits)))
+
+/**
+ * The waveform the charts draw: every `decimationIndices` sample, times to 5 and values to 4 significant
+ * digits (finer than a chart's pixel).
+ */
+function decimatedWaveform(w: Waveform): Waveform {
+  const picked = decimationIndices(w.time.length, [w.lineVoltage, w.poleVoltage, w.phaseCurrent], PREVIEW_WAVEFORM_POINTS)
+  const take = (v: number[], digits: number) => picked.map(i => significant(v[i]!, digits))
+  return { time: take(w.time, 5), lineVoltage: take(w.lineVoltage, 4), poleVoltage: take(w.poleVoltage, 4), phaseCurrent: take(w.phaseCurrent, 4) }
+}
+
+/**
+ * What the results panels read of an evaluation: each point's figures keep 6 significant digits and lose
+ * their per-position provenance (the envelope's provenance, which the tables show, names the per-point method).
+ */
+function compactResult(result: DesignResult): DesignResult {
+  const slim = structuredClone(result)
+  for (const c of slim.converters) {
+    for (const p of c.points) {
+      for (const d of [...p.devices, ...p.capacitors] as { provenance?: unknown }[]) delete d.provenance
+    }
+  }
+  return JSON.parse(JSON.stringify(slim, (_, v) => (typeof v === 'number' ? significant(v, 6) : v)))
+}
+
+/**
+ * Evaluation, leg drawings and one operating point's waveform and spectrum per side, for the design page
+ * (the chosen points, else the first). `compact` answers what the visible panels need: a decimated waveform
+ * (`resolution: 'full'` keeps every sample) and the slim per-point figures; without it (the PDF) all of it.
+ */
+export function previewDesign(input: DesignInput, view: Partial<PreviewView> = {}): DesignPreview {
   const result = withEngine(() => evaluateDesign(input))
   // The grid side as the engine reads it: DC link and levels taken from the machine side where absent.
-  const sides = [['machine', input.machineSide], ['grid', input.gridSide && gridInput(input.machineSide, input.gridSide)]] as const
+  const sides = [['machine', input.machineSide, view.machinePoint ?? 0], ['grid', input.gridSide && gridInput(input.machineSide, input.gridSide), view.gridPoint ?? 0]] as const
   const layouts: DesignPreview['layouts'] = {}
   const extras: DesignPreview['extras'] = {}
-  for (const [side, converter] of sides) {
+  for (const [side, converter, index] of sides) {
     if (!converter) continue
     layouts[side] = legLayout(converter.topology, converter.levels)
-    const point = converter.operatingPoints[0]!
+    const point = converter.operatingPoints[index]
+    if (!point) {
+      const field = side === 'machine' ? 'machinePoint' : 'gridPoint'
+      throw createError({ statusCode: 422, message: `Operating point shown: the ${side === 'machine' ? 'converter' : 'grid side'} has ${converter.operatingPoints.length} operating point${converter.operatingPoints.length === 1 ? '' : 's'}; choose one of them.`, data: { issues: [{ path: field, message: 'Choose one of the operating points.' }] } })
+    }
     const { operatingPoints: _, ...rest } = converter
     const r = withEngine(() => evaluateStress({ ...rest, ...point }, { includeWaveform: true, includeSpectrum: true }))
-    extras[side] = { pointName: point.name ?? 'Point 1', waveform: r.waveform, spectrum: r.spectrum, thd: r.lineVoltageThd, thdToOrder: r.lineVoltageThdToOrder, thdMaxOrder: r.thdMaxOrder }
+    const full = !view.compact || view.resolution === 'full'
+    const waveform = r.waveform && (full ? r.waveform : decimatedWaveform(r.waveform))
+    const spectrum = r.spectrum && (view.compact ? r.spectrum.map(l => ({ order: l.order, frequency: significant(l.frequency, 6), amplitude: significant(l.amplitude, 4) })) : r.spectrum)
+    extras[side] = {
+      pointName: point.name ?? `Point ${index + 1}`, pointIndex: index, samples: r.waveform?.time.length ?? 0, resolution: full ? 'full' : 'decimated',
+      waveform, spectrum, thd: r.lineVoltageThd, thdToOrder: r.lineVoltageThdToOrder, thdMaxOrder: r.thdMaxOrder,
+    }
   }
-  return { result, layouts, extras }
+  return { result: view.compact ? compactResult(result) : result, layouts, extras }
 }

@@ -88,6 +88,8 @@ export interface PositionMatch {
   candidates: (Candidate & { partVersionId: number, approved: boolean, covers: string[], thermal?: ChoiceThermal | null })[]
   /** candidates left out of the default view (not approved, NRND or obsolete); `?show=all` lists them */
   hiddenCandidates: number
+  /** offered parts that fit, of which `candidates` holds the best `limit` */
+  fitting: number
   nothingFits: string | null
   /** the position whose module also fills this one */
   coveredBy: string | null
@@ -163,7 +165,7 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
       assigned = { partVersionId: a.partVersionId, current: currentIds.has(a.partVersionId), approved: approval.get(a.partVersionId) ?? false, seriesCount: a.seriesCount, parallelCount: a.parallelCount, evaluation: rated, review, coveredBy, part }
     }
     const nothingFits = options.summaryOnly || m.fitting + m.leftOut + (hostCandidate ? 1 : 0) > 0 ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.')
-    return { side, position: duty.positionName, label, duty, candidates, hiddenCandidates, nothingFits, coveredBy, assigned }
+    return { side, position: duty.positionName, label, duty, candidates, hiddenCandidates, fitting: m.fitting + (hostCandidate ? 1 : 0), nothingFits, coveredBy, assigned }
   })
   const thermal = attachThermal(input, result, positions, policy)
   const summary = lossSummary(input, positions, result)

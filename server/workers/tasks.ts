@@ -6,7 +6,7 @@ import { indexParts, type PartIndex } from '#shared/catalog/matching'
 import type { CatalogPart } from '#shared/catalog/types'
 import type { TradeStudyInput } from '#shared/schemas/trade-study'
 import { readCatalogFile, type ReadOptions } from '../catalog/read'
-import { previewDesign } from '../services/designs'
+import { previewDesign, type PreviewView } from '../services/designs'
 import { tradeStudyRows } from '../services/trade-study'
 import { bomToPdf } from '../exports/bom-pdf'
 import { designReportPdf } from '../exports/design-pdf'
@@ -22,7 +22,7 @@ export type CatalogPartRow = CatalogPart & { partVersionId: number, approved: bo
 export type Task
   = | { kind: 'stress', input: StressInput, options: EvaluateOptions, provenance?: 'compact' | 'full' }
     | { kind: 'evaluate', input: DesignInput, provenance?: 'compact' | 'full' }
-    | { kind: 'preview', input: DesignInput }
+    | { kind: 'preview', input: DesignInput, view?: Partial<PreviewView> }
     | { kind: 'trade-study', generation: number, parts?: CatalogPartRow[], duty: TradeStudyInput }
     | { kind: 'read-catalog', file: Uint8Array, filename: string, limits: ReadOptions }
     | { kind: 'bom-pdf', fonts?: PdfFonts, args: { snapshot: BomSnapshot, purchase: BomPurchase, options?: BomPdfOptions } }
@@ -57,7 +57,7 @@ async function run(task: Task): Promise<TaskResult> {
       return { ok: true, value: task.provenance === 'compact' ? compactProvenance(r) : r }
     }
     case 'preview':
-      return { ok: true, value: previewDesign(task.input) }
+      return { ok: true, value: previewDesign(task.input, task.view) }
     case 'trade-study': {
       const c = catalogFor(task)
       if (!c) return { ok: false, needs: 'parts' }

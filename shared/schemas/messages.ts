@@ -50,6 +50,9 @@ export const FIELD_LABELS = {
   password: 'Password',
   role: 'Role',
   revision: 'Revision',
+  machinePoint: 'Operating point shown',
+  gridPoint: 'Grid-side operating point shown',
+  resolution: 'Waveform resolution',
   locale: 'Language and number format',
 } as const satisfies Record<string, string>
 

@@ -1,15 +1,16 @@
-import { loadDesign, loadRevision, revisionQuery } from '~~/server/services/designs'
+import { loadDesign, loadRevision, previewQuery, revisionQuery } from '~~/server/services/designs'
 import { runInPool } from '~~/server/workers/pool'
 import { idParam } from '#shared/schemas/auth'
 import type { DesignInput } from '#shared/engine/types'
 import type { DesignPreview } from '#shared/types/design'
 
-// Results of the saved design (or of ?revision=N).
+// Results of the saved design (or of ?revision=N), as compact as the live preview's.
 export default defineEventHandler(async (event) => {
   await requireRole(event, 'designs:read')
   const { id } = paramsValid(event, idParam)
   const { revision } = queryValid(event, revisionQuery)
+  const view = queryValid(event, previewQuery)
   const design = await loadDesign(id)
   const input = revision && revision !== design.revision ? (await loadRevision(id, revision)).input : design.input as DesignInput
-  return runInPool<DesignPreview>({ kind: 'preview', input })
+  return runInPool<DesignPreview>({ kind: 'preview', input, view: { ...view, compact: true } })
 })

@@ -1,0 +1,118 @@
+// The design page and the parts page in Chromium against the built server (its own database
+// `stratavolt_bench_ui`, demo data): edit → repainted results (the form's debounce included), a saved design's
+// page → its results on screen, the size of the parts page's HTML and of one edit's answer.
+// `npm run bench -- ui`; STRATAVOLT_BENCH_OUTPUT=.output-test reuses the build of `npm test`.
+import { performance } from 'node:perf_hooks'
+import { chromium, type Page } from 'playwright-core'
+// @ts-expect-error -- plain ESM helper shared with the start and test scripts
+import { demoAccounts } from '../lib.mjs'
+import { percentile, signIn, startBuiltServer } from './support'
+
+export interface UiFigure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
+
+const PORT = Number(process.env.STRATAVOLT_BENCH_PORT ?? Number(process.env.PORT ?? 3000) + 304)
+const RUNS = 10
+
+/** The demo's NPC drive with three operating points (server/db/demo-designs.ts). */
+const NPC_DESIGN = 'Pump drive 690 V / 400 kW'
+
+const sorted = (xs: number[]) => [...xs].sort((a, b) => a - b)
+const figure = (name: string, samples: number[], target?: string): UiFigure => {
+  const s = sorted(samples)
+  return { name, p50Ms: percentile(s, 50), p99Ms: percentile(s, 99), runs: s.length, target }
+}
+
+/**
+ * One edit of the nominal DC link (it moves every point's modulation index): from the Enter that commits it to
+ * the frame after the results' text changed, measured inside the page.
+ */
+async function editToRepaint(page: Page, volts: number): Promise<number> {
+  const field = page.getByLabel(/^DC link, nominal/)
+  await field.fill(`${volts} V`)
+  return page.evaluate(() => new Promise<number>((resolve, reject) => {
+    const results = document.querySelector('[data-testid="results"]')
+    const input = document.activeElement as HTMLInputElement | null
+    if (!results || !input) return reject(new Error('no results or focused field'))
+    const before = results.textContent
+    let start = 0
+    const observer = new MutationObserver(() => {
+      if (results.textContent === before) return
+      observer.disconnect()
+      // the frame after the change is on screen
+      requestAnimationFrame(() => requestAnimationFrame(() => resolve(performance.now() - start)))
+    })
+    observer.observe(results, { subtree: true, childList: true, characterData: true })
+    start = performance.now()
+    input.dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter', bubbles: true }))
+    setTimeout(() => reject(new Error('results did not change within 20 s')), 20000)
+  }))
+}
+
+export async function runUiBench(): Promise<UiFigure[]> {
+  const { base, stop } = await startBuiltServer({ database: 'stratavolt_bench_ui', port: PORT, name: 'bench-ui', uploads: 'bench-ui-uploads', seedDemo: true })
+  const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage'] })
+  try {
+    const cookie = await signIn(base, 'engineer@example.com', demoAccounts.password)
+    const designs = await (await fetch(`${base}/api/designs`, { headers: { cookie } })).json() as { id: number, name: string }[]
+    const npc = designs.find(d => d.name === NPC_DESIGN)
+    if (!npc) throw new Error(`the demo design "${NPC_DESIGN}" is missing`)
+
+    const context = await browser.newContext({ baseURL: base, viewport: { width: 1280, height: 800 } })
+    await context.addCookies(cookie.split('; ').map((c) => {
+      const [name, ...value] = c.split('=')
+      return { name: name!, value: value.join('='), url: base }
+    }))
+    const page = await context.newPage()
+
+    // A saved design's page: navigation start to its device table on screen.
+    const open: number[] = []
+    for (let i = 0; i < RUNS + 1; i++) {
+      const t0 = performance.now()
+      await page.goto(`/designs/${npc.id}`)
+      await page.locator('[data-testid="results"] tr[data-position]').first().waitFor({ timeout: 60000 })
+      if (i > 0) open.push(performance.now() - t0) // the first visit warms the server and the browser cache
+    }
+
+    const edits: number[] = []
+    for (let i = 0; i < RUNS + 1; i++) {
+      const ms = await editToRepaint(page, i % 2 ? 1100 : 1080)
+      if (i > 0) edits.push(ms)
+    }
+
+    // One edit's answer for the same design, as the page asks for it.
+    const input = (await (await fetch(`${base}/api/designs/${npc.id}`, { headers: { cookie } })).json() as { input: unknown }).input
+    const previewMs: number[] = []
+    let previewBytes = 0
+    for (let i = 0; i < 5; i++) {
+      const t0 = performance.now()
+      const preview = await fetch(`${base}/api/designs/preview`, { method: 'POST', headers: { 'cookie': cookie, 'origin': base, 'content-type': 'application/json' }, body: JSON.stringify(input) })
+      previewBytes = (await preview.arrayBuffer()).byteLength
+      previewMs.push(performance.now() - t0)
+    }
+
+    // The parts page's HTML for every demo design; the largest is the figure.
+    let largest = { name: '', bytes: 0, ms: [] as number[] }
+    for (const d of designs) {
+      const ms: number[] = []
+      let bytes = 0
+      for (let i = 0; i < 3; i++) {
+        const t0 = performance.now()
+        const r = await fetch(`${base}/designs/${d.id}/parts`, { headers: { cookie } })
+        bytes = (await r.arrayBuffer()).byteLength
+        ms.push(performance.now() - t0)
+      }
+      if (bytes > largest.bytes) largest = { name: d.name, bytes, ms }
+    }
+    const kB = (b: number) => `${(b / 1000).toFixed(1)} kB`
+    return [
+      figure(`edit → repainted results, NPC with 3 points (150 ms debounce included)`, edits, '< 300 ms'),
+      figure('saved design page → results shown', open, '< 1000 ms'),
+      figure(`one edit's answer (POST /api/designs/preview): ${kB(previewBytes)}`, previewMs, '< 60 kB'),
+      figure(`parts page HTML, largest (${largest.name}): ${kB(largest.bytes)}`, largest.ms, '< 150 kB'),
+    ]
+  }
+  finally {
+    await browser.close()
+    stop()
+  }
+}
