@@ -1,7 +1,8 @@
 // The catalogue at scale, through the built server and PostgreSQL: 100 000 invented parts imported
 // in five files of 20 000 (five catalogue versions), then the parts browser's first page and a
 // sorted page, a search, and matching every position of a five-level diode-clamped design.
-// Uses its own database `stratavolt_bench_scale`, recreated for the run, and a server on 127.0.0.1:3301.
+// Uses its own database `stratavolt_bench_scale`, recreated for the run, and a server on 127.0.0.1:3301
+// (STRATAVOLT_BENCH_PORT moves it, as for the load bench).
 // Run alone with `npm run bench -- scale`.
 import { performance } from 'node:perf_hooks'
 // @ts-expect-error -- plain ESM helper shared with the start and test scripts
@@ -11,7 +12,7 @@ import { percentile, signIn, startBuiltServer } from './support'
 
 export interface ScaleFigure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
 
-const PORT = 3301
+const PORT = Number(process.env.STRATAVOLT_BENCH_PORT ?? Number(process.env.PORT ?? 3000) + 301)
 const FILES = 5
 const PER_FILE = 20_000
 
