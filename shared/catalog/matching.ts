@@ -445,8 +445,10 @@ export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] 
     else rejected.voltage++
   }
   const except = options.exceptId !== undefined ? placeOf(index, options.exceptId) : -1
-  const best = new BestRanks(options.limit)
+  const limit = options.limit
+  const best = new BestRanks(limit)
   const sizing: Sizing = { series: 0, parallel: 0 }
+  const kept = limit !== undefined ? fittingRows(table.count) : null
   let fitting = 0
   let leftOut = 0
   // Every check reads the columns; the part object is read only when it could still place in the kept list
@@ -461,16 +463,67 @@ export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] 
     const place = order[i]!
     if ((options.approvedActiveOnly && rank[i] !== 0) || place === except) { leftOut++; continue }
     if (options.only && !options.only(index.part(place))) { leftOut++; continue }
+    if (!kept) { rankInto(best, index.part(place), duty, policy, sizing, slots[i]!, place); fitting++; continue }
+    // At its lowest price and best group (T_j within its limit), the part's rank cannot be better than this.
+    kept.row[fitting] = i
+    kept.series[fitting] = sizing.series
+    kept.parallel[fitting] = sizing.parallel
+    kept.lowestCost[fitting] = round(lowestPrice[i]! * packagesPerDesignOf(duty, sizing, slots[i]!, isCapacitor ? 1 : PHASES_PER_PACKAGE[configuration[i]!]!), 2)
     fitting++
-    // Bound on the columns: at its lowest price and best group the part would still rank after every kept entry.
-    if (options.limit !== undefined) {
-      const lowestCost = round(lowestPrice[i]! * packagesPerDesignOf(duty, sizing, slots[i]!, isCapacitor ? 1 : PHASES_PER_PACKAGE[configuration[i]!]!), 2)
-      if (best.cannotEnter(rank[i]!, lowestCost)) continue
+  }
+  if (kept && limit! > 0) {
+    // The parts with the best bounds first, so the kept list is near its final state at once; then every other
+    // fitting part whose bound could still place it. Same result as any order (ties keep catalogue order).
+    const first = bestBounds(kept, fitting, rank, order, limit!)
+    const rank1 = (k: number) => {
+      const i = kept.row[k]!
+      sizing.series = kept.series[k]!
+      sizing.parallel = kept.parallel[k]!
+      rankInto(best, index.part(order[i]!), duty, policy, sizing, slots[i]!, order[i]!)
     }
-    rankInto(best, index.part(place), duty, policy, sizing, slots[i]!, place)
+    for (const k of first) rank1(k)
+    const seen = new Set(first)
+    for (let k = 0; k < fitting; k++) {
+      if (seen.has(k) || best.cannotEnter(rank[kept.row[k]!]!, kept.lowestCost[k]!)) continue
+      rank1(k)
+    }
   }
   for (const r of best.sorted()) candidates.push(buildCandidate(r.part, duty, policy, r.sizing, r.slots))
   return { candidates, fitting, leftOut, dutyProblems, considered: index.size, rejected }
+}
+
+interface FittingRows { row: Int32Array, series: Int32Array, parallel: Int32Array, lowestCost: Float64Array }
+let scratchRows: FittingRows | null = null
+/** Scratch columns for one position's fitting parts (reused: matching is synchronous, one position at a time per thread). */
+function fittingRows(count: number): FittingRows {
+  if (!scratchRows || scratchRows.row.length < count) {
+    const n = Math.max(count, 1024)
+    scratchRows = { row: new Int32Array(n), series: new Int32Array(n), parallel: new Int32Array(n), lowestCost: new Float64Array(n) }
+  }
+  return scratchRows
+}
+
+/** The `limit` fitting rows with the best (group, lowest cost, catalogue place) bounds, in no particular order. */
+function bestBounds(kept: FittingRows, fitting: number, rank: Uint8Array, order: Int32Array, limit: number): number[] {
+  const better = (a: number, b: number) => {
+    const ga = rank[kept.row[a]!]!
+    const gb = rank[kept.row[b]!]!
+    if (ga !== gb) return ga < gb
+    const ca = kept.lowestCost[a]!
+    const cb = kept.lowestCost[b]!
+    if (ca !== cb) return ca < cb
+    return order[kept.row[a]!]! < order[kept.row[b]!]!
+  }
+  // sorted best first; a row enters only when it beats the worst kept (most do not)
+  const top: number[] = []
+  for (let k = 0; k < fitting; k++) {
+    if (top.length === limit && !better(k, top[limit - 1]!)) continue
+    let at = top.length
+    while (at > 0 && better(k, top[at - 1]!)) at--
+    top.splice(at, 0, k)
+    if (top.length > limit) top.pop()
+  }
+  return top
 }
 
 /** Phases one package spans, by package configuration code (1 for an unknown code). */

@@ -92,18 +92,40 @@ function columnsOf(parts: readonly CatalogPart[], idOf: ((part: CatalogPart) => 
   const byPosition = {} as Record<PositionKind, PositionColumns>
   const n = parts.length
   const ids = new Float64Array(allocate(8 * n))
-  for (let i = 0; i < n; i++) ids[i] = idOf ? idOf(parts[i]!) : Number.NaN
+  // Read each part once into flat arrays; the columns of every position kind are filled from these.
+  const voltage = new Float64Array(n)
+  const current = new Float64Array(n)
+  const ripple = new Float64Array(n)
+  const capacitance = new Float64Array(n)
+  const lowestPrice = new Float64Array(n)
+  const configuration = new Uint8Array(n)
+  const lifecycle = new Uint8Array(n)
+  const rank = new Uint8Array(n)
+  const slots = POSITION_KINDS.map(() => new Int32Array(n))
   const configurationCode = new Map<string, number>(PACKAGE_CONFIGURATION_IDS.map((id, i) => [id, i]))
-  for (const position of POSITION_KINDS) {
+  const number = (v: unknown) => (typeof v === 'number' ? v : Number.NaN)
+  for (let i = 0; i < n; i++) {
+    const p = parts[i]!
+    ids[i] = idOf ? idOf(p) : Number.NaN
+    voltage[i] = number(p.voltageRating)
+    current[i] = number(p.currentRating)
+    ripple[i] = number(p.rippleCurrentRating)
+    capacitance[i] = number(p.capacitance)
+    let lowest = Infinity
+    for (const b of p.priceBreaks ?? []) if (b.unitPrice < lowest) lowest = b.unitPrice
+    lowestPrice[i] = lowest
+    configuration[i] = configurationCode.get(p.packageConfiguration) ?? UNKNOWN_CONFIGURATION
+    lifecycle[i] = LIFECYCLE_RANK[p.lifecycle]
+    rank[i] = approvalRank(p as CatalogPart & { approved?: boolean })
+    POSITION_KINDS.forEach((position, k) => { slots[k]![i] = slotsPerPackage(p, position) })
+  }
+  // sorted by voltage rating, missing ratings first, ties in catalogue order
+  const sortKey = voltage.map(v => (Number.isNaN(v) ? -Infinity : v))
+  POSITION_KINDS.forEach((position, k) => {
+    const slotsOf = slots[k]!
     const places: number[] = []
-    const slotsAt: number[] = []
-    for (let i = 0; i < n; i++) {
-      const slots = slotsPerPackage(parts[i]!, position)
-      if (slots > 0) { places.push(i); slotsAt[i] = slots }
-    }
-    const rating = (i: number) => { const v = parts[i]!.voltageRating; return typeof v === 'number' && !Number.isNaN(v) ? v : -Infinity }
-    // stable: ties keep catalogue order
-    places.sort((a, b) => rating(a) - rating(b) || a - b)
+    for (let i = 0; i < n; i++) if (slotsOf[i]! > 0) places.push(i)
+    places.sort((a, b) => sortKey[a]! - sortKey[b]! || a - b)
     const count = places.length
     const columns: PositionColumns = {
       count,
@@ -117,23 +139,21 @@ function columnsOf(parts: readonly CatalogPart[], idOf: ((part: CatalogPart) => 
       lifecycle: new Uint8Array(allocate(count)),
       rank: new Uint8Array(allocate(count)),
     }
-    const number = (v: unknown) => (typeof v === 'number' ? v : Number.NaN)
-    places.forEach((i, k) => {
-      const p = parts[i]!
-      columns.voltageRating[k] = number(p.voltageRating)
-      columns.currentRating[k] = number(position === 'capacitor' ? p.rippleCurrentRating : p.currentRating)
-      columns.capacitance[k] = number(p.capacitance)
-      let lowest = Infinity
-      for (const b of p.priceBreaks ?? []) if (b.unitPrice < lowest) lowest = b.unitPrice
-      columns.lowestPrice[k] = lowest
-      columns.order[k] = i
-      columns.slots[k] = slotsAt[i]!
-      columns.configuration[k] = configurationCode.get(p.packageConfiguration) ?? UNKNOWN_CONFIGURATION
-      columns.lifecycle[k] = LIFECYCLE_RANK[p.lifecycle]
-      columns.rank[k] = approvalRank(p as CatalogPart & { approved?: boolean })
-    })
+    const currentOf = position === 'capacitor' ? ripple : current
+    for (let j = 0; j < count; j++) {
+      const i = places[j]!
+      columns.voltageRating[j] = voltage[i]!
+      columns.currentRating[j] = currentOf[i]!
+      columns.capacitance[j] = capacitance[i]!
+      columns.lowestPrice[j] = lowestPrice[i]!
+      columns.order[j] = i
+      columns.slots[j] = slotsOf[i]!
+      columns.configuration[j] = configuration[i]!
+      columns.lifecycle[j] = lifecycle[i]!
+      columns.rank[j] = rank[i]!
+    }
     byPosition[position] = columns
-  }
+  })
   return { size: n, byPosition, ids }
 }
 
