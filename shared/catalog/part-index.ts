@@ -164,14 +164,20 @@ export function indexParts(parts: readonly CatalogPart[], idOf?: (part: CatalogP
 
 /** The index in shared memory with the parts as JSON text, for worker threads (openSharedIndex reads it). */
 export function sharePartIndex(parts: readonly CatalogPart[], idOf?: (part: CatalogPart) => number): SharedPartIndex {
+  const texts = parts.map(p => JSON.stringify(p))
   const encoder = new TextEncoder()
-  const encoded = parts.map(p => encoder.encode(JSON.stringify(p)))
+  // Catalogue text is mostly printable ASCII (one byte per character; JSON escapes control characters): only
+  // the other texts are measured by encoding them.
+  const wide = /[^ -~]/
   const textOffsets = new Float64Array(shared(8 * (parts.length + 1)))
   let bytes = 0
-  encoded.forEach((e, i) => { textOffsets[i] = bytes; bytes += e.byteLength })
+  texts.forEach((t, i) => {
+    textOffsets[i] = bytes
+    bytes += wide.test(t) ? encoder.encode(t).byteLength : t.length
+  })
   textOffsets[parts.length] = bytes
   const text = new Uint8Array(shared(bytes))
-  encoded.forEach((e, i) => text.set(e, textOffsets[i]!))
+  texts.forEach((t, i) => encoder.encodeInto(t, text.subarray(textOffsets[i]!, textOffsets[i + 1]!)))
   return { kind: 'shared-part-index', ...columnsOf(parts, idOf, shared), textOffsets, text }
 }
 
