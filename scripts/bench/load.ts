@@ -94,7 +94,7 @@ export function probeHealth(server = base) {
 }
 
 async function signIn(email: string) {
-  const r = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password: demoAccounts.password }) })
+  const r = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', 'origin': base }, body: JSON.stringify({ email, password: demoAccounts.password }) })
   if (r.status !== 200) throw new Error(`sign-in answered ${r.status}`)
   return r.headers.getSetCookie().map(c => c.split(';')[0]).join('; ')
 }
