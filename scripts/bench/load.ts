@@ -107,7 +107,7 @@ export async function runLoadBench(): Promise<LoadFigure[]> {
   const server = spawn(process.execPath, [join(root, '.output', 'server', 'index.mjs')], {
     cwd: root,
     stdio: ['ignore', openSync(log, 'w'), openSync(log, 'a')],
-    env: { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: String(PORT), NUXT_DATABASE_URL: url, NUXT_SESSION_PASSWORD: readSecrets().sessionPassword, NUXT_SMTP_PORT: '1', NUXT_UPLOAD_DIR: join(root, '.data', 'bench-uploads') },
+    env: { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: String(PORT), NUXT_DATABASE_URL: url, NUXT_SESSION_PASSWORD: readSecrets().sessionPassword, NUXT_SMTP_PORT: '1', NUXT_UPLOAD_DIR: join(root, '.data', 'bench-uploads'), NUXT_SEED_DEMO: 'true' },
   })
   const figures: LoadFigure[] = []
   try {
