@@ -1,17 +1,20 @@
 // The catalogue at scale, through the built server and PostgreSQL: 100 000 invented parts imported
 // in five files of 20 000 (five catalogue versions), then the parts browser's first page and a
 // sorted page, a search, and matching every position of a five-level diode-clamped design.
-// Uses its own database `stratavolt_bench_scale`, recreated for the run, and a server on 127.0.0.1:3301.
+// Uses its own database `stratavolt_bench_scale`, recreated for the run, and a server on 127.0.0.1:3301
+// (STRATAVOLT_BENCH_PORT moves it, as for the load bench).
 // Run alone with `npm run bench -- scale`.
 import { performance } from 'node:perf_hooks'
 // @ts-expect-error -- plain ESM helper shared with the start and test scripts
 import { demoAccounts } from '../lib.mjs'
 import { FIVE_LEVEL_DRIVE, manyParts, manyPartsWorkbook } from './catalog'
+import autocannon from 'autocannon'
+import { probeHealth } from './load'
 import { percentile, signIn, startBuiltServer } from './support'
 
 export interface ScaleFigure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
 
-const PORT = 3301
+const PORT = Number(process.env.STRATAVOLT_BENCH_PORT ?? Number(process.env.PORT ?? 3000) + 301)
 const FILES = 5
 const PER_FILE = 20_000
 
@@ -66,6 +69,12 @@ export async function runScaleBench(): Promise<ScaleFigure[]> {
       { name: 'parts search "V1234" in 100 000 (p95)', ...await timeGet(base, components, '/api/catalog/parts?q=V1234&pageSize=50', 40), target: 'p95 < 100 ms' },
       { name: 'match every position of a 5-level design, 100 000 parts (p95)', ...await timeGet(base, engineer, `/api/designs/${design.id}/parts`, 15), target: 'p95 < 200 ms' },
     ]
+    // Matching at 100 000 parts under load (4 connections, 15 s): it runs on the worker threads, so health answers meanwhile.
+    const stopProbe = probeHealth(base)
+    const loaded = await autocannon({ url: `${base}/api/designs/${design.id}/parts`, headers: { cookie: engineer }, connections: 4, duration: 15 })
+    const health = await stopProbe()
+    figures.push({ name: `  the same at 4 connections: ${loaded.requests.total} answers, ${loaded.errors + loaded.timeouts + loaded.non2xx} errors`, p50Ms: loaded.latency.p50, p99Ms: loaded.latency.p99, runs: loaded.requests.total })
+    figures.push({ name: `  GET /api/health meanwhile${health.failures ? ` (${health.failures} failed)` : ''}`, p50Ms: percentile(health.sorted, 50), p99Ms: percentile(health.sorted, 99), runs: health.sorted.length, target: '< 50 ms' })
     return figures
   }
   finally {

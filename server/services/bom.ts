@@ -144,10 +144,12 @@ function applyAcknowledgements(lines: BomLine[], acks: Awaited<ReturnType<typeof
 
 /** The live BOM of a design (not saved), with what still blocks its release. */
 export async function draftBom(designId: number, releasedBy = '') {
+  // The revision released when the request came in, read before the matching (a worker thread may take a while):
+  // two releases sent at once both draft the same next revision, so the lock in releaseBom lets one through.
+  const [last] = await useDb().select({ revision: boms.revision }).from(boms).where(eq(boms.designId, designId)).orderBy(desc(boms.revision)).limit(1)
   const { design, positions, result } = await matchDesign(designId)
   const settings = design.bomSettings as BomSettings
   const { input, missing, stale } = bomInputFrom(positions, settings, design.input as DesignInput, result)
-  const [last] = await useDb().select({ revision: boms.revision }).from(boms).where(eq(boms.designId, designId)).orderBy(desc(boms.revision)).limit(1)
   const snapshot = buildBomSnapshot({
     company: demo.company,
     designId,

@@ -4,7 +4,7 @@
 import { eq, inArray } from 'drizzle-orm'
 import { balanceWithLosses, evaluateDesign, gridInput, legLayout } from '#shared/engine'
 import type { CapacitorEnvelope, DesignInput, DesignResult } from '#shared/engine/types'
-import { approvalRank, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, rateAssignment, whyNothingFits, type Candidate, type MatchPolicy, type PositionDuty } from '#shared/catalog/matching'
+import { approvalRank, matchPosition, positionDutyFromCapacitor, positionDutyFromDevice, rateAssignment, whyNothingFits, type Candidate, type MatchPolicy, type PartIndex, type PositionDuty } from '#shared/catalog/matching'
 import { moduleCoverage, type LegPosition } from '#shared/bom/coverage'
 import type { CatalogPart } from '#shared/catalog/types'
 import type { BomSettings } from '#shared/schemas/design'
@@ -14,6 +14,7 @@ import type { ReportEvaluation } from '../exports/design-pdf'
 import { formatNumber } from '../exports/format'
 import { currentCatalogue, partVersionsById } from './catalog'
 import { loadDesign } from './designs'
+import { runInPool } from '../workers/pool'
 
 /** 'dc-link' = the DC link a back-to-back pair shares (one bank for both converters). */
 export type Side = 'machine' | 'grid' | 'dc-link'
@@ -117,26 +118,62 @@ async function approvalOf(versionIds: number[]) {
   return new Map(rows.map(r => [r.id, r.approved]))
 }
 
+type Assignment = typeof tables.partAssignments.$inferSelect
+
+/** What matching a design needs besides the catalogue index: read from PostgreSQL on the main thread, sent to a worker. */
+export interface DesignMatchRequest {
+  input: DesignInput
+  bomSettings: BomSettings
+  revision: number
+  assignments: Assignment[]
+  /** the assigned part versions (each as it was matched), by id */
+  pinned: [number, CatalogPart][]
+  /** approval of the assigned part versions' parts, by part version id */
+  approval: [number, boolean][]
+  /** assigned part versions that are current */
+  current: number[]
+  /** the current part of each covered position's host (a module listed first there) */
+  hosts: Part[]
+  limit: number
+  options: { showAll?: boolean, summaryOnly?: boolean }
+}
+
 /**
  * Matches every position of a design; `limit` candidates per position. By default only approved,
  * active parts are listed (ranked first anyway); `showAll` lists every fitting part, ranked by
- * approvalRank after the thermal check.
+ * approvalRank after the thermal check. The engine and the matching run on a worker thread
+ * (matchDesignPositions); this thread reads the design, its assignments and the catalogue generation.
  */
 export async function matchDesign(designId: number, limit = 40, options: { showAll?: boolean, summaryOnly?: boolean } = {}) {
   const design = await loadDesign(designId)
   const input = design.input as DesignInput
-  const result = withEngine(() => evaluateDesign(input))
-  const policy = matchPolicy(input, result, design.bomSettings as BomSettings)
   // The part index is kept between requests until the catalogue generation changes.
-  const { parts, index } = await currentCatalogue()
+  const catalogue = await currentCatalogue()
   const assignments = await useDb().select().from(tables.partAssignments).where(eq(tables.partAssignments.designId, designId))
   const pinned = await partVersionsById(assignments.map(a => a.partVersionId))
   const approval = await approvalOf(assignments.map(a => a.partVersionId))
-  const currentIds = new Set(parts.map(p => p.partVersionId))
+  const hostIds = assignments.filter(a => a.coveredBy).map(a => catalogue.places.get(a.partVersionId)).filter((p): p is number => p !== undefined)
+  const request: DesignMatchRequest = {
+    input, bomSettings: design.bomSettings as BomSettings, revision: design.revision, assignments,
+    pinned: [...pinned], approval: [...approval], current: assignments.map(a => a.partVersionId).filter(id => catalogue.places.has(id)),
+    hosts: hostIds.map(place => catalogue.index.part(place) as Part), limit, options,
+  }
+  const matched = await runInPool<ReturnType<typeof matchDesignPositions>>({ kind: 'match-design', generation: catalogue.generation, index: catalogue.shared, request })
+  return { design, input, ...matched }
+}
+
+/** Every position of a design matched against the index (pure: runs on a worker thread). */
+export function matchDesignPositions(request: DesignMatchRequest, index: PartIndex) {
+  const { input, limit, options } = request
+  const result = withEngine(() => evaluateDesign(input))
+  const policy = matchPolicy(input, result, request.bomSettings)
+  const pinned = new Map(request.pinned)
+  const approval = new Map(request.approval)
+  const currentIds = new Set(request.current)
   const legs = new Map<Side, LegPosition[]>((['machine', 'grid'] as const).map(s => [s, legPositions(input, s)]))
   const positions: PositionMatch[] = designPositions(input, result).map(({ side, duty, label }) => {
     const leg = legs.get(side) ?? []
-    const a = assignments.find(x => x.side === side && x.position === duty.positionName)
+    const a = request.assignments.find(x => x.side === side && x.position === duty.positionName)
     const coveredBy = a?.coveredBy ?? null
     // By default only approved, active parts; a covered position lists its host's module first, so
     // its own candidates never rank above it.
@@ -145,9 +182,9 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
     // summaryOnly: the assigned parts alone (the design page's figures), no candidate search
     const m = options.summaryOnly
       ? { candidates: [], fitting: 0, leftOut: 0 }
-      : matchPosition(duty, index, policy, { limit, only: part => offered(part) && (part as Part).partVersionId !== host })
+      : matchPosition(duty, index, policy, { limit, approvedActiveOnly: !options.showAll, ...(host !== null ? { exceptId: host } : {}) })
     const hiddenCandidates = options.showAll ? 0 : m.leftOut
-    const hostPart = host !== null ? parts.find(p => p.partVersionId === host) : undefined
+    const hostPart = host !== null ? request.hosts.find(p => p.partVersionId === host) : undefined
     const hostCandidate = hostPart && offered(hostPart) && !options.summaryOnly ? matchPosition(duty, [hostPart], policy).candidates[0] : undefined
     const pool = hostCandidate ? [hostCandidate, ...m.candidates] : m.candidates
     const candidates = pool.slice(0, limit).map(c => ({
@@ -160,8 +197,8 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
     if (a) {
       const part = pinned.get(a.partVersionId)!
       const { rated, needed, fits } = rateAssignment(part, duty, policy, a.seriesCount, a.parallelCount)
-      const confirmed = a.confirmedRevision === design.revision ? { revision: a.confirmedRevision, reason: a.confirmedReason } : null
-      const review: AssignmentReview = { ratedRevision: a.designRevision, fits, needed, stale: !fits && a.designRevision < design.revision && !confirmed, confirmed }
+      const confirmed = a.confirmedRevision === request.revision ? { revision: a.confirmedRevision, reason: a.confirmedReason } : null
+      const review: AssignmentReview = { ratedRevision: a.designRevision, fits, needed, stale: !fits && a.designRevision < request.revision && !confirmed, confirmed }
       assigned = { partVersionId: a.partVersionId, current: currentIds.has(a.partVersionId), approved: approval.get(a.partVersionId) ?? false, seriesCount: a.seriesCount, parallelCount: a.parallelCount, evaluation: rated, review, coveredBy, part }
     }
     const nothingFits = options.summaryOnly || m.fitting + m.leftOut + (hostCandidate ? 1 : 0) > 0 ? null : (whyNothingFits(duty, index, policy) ?? 'No part in the catalogue fits.')
@@ -169,7 +206,7 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
   })
   const thermal = attachThermal(input, result, positions, policy)
   const summary = lossSummary(input, positions, result)
-  return { design, input, result, policy, positions, thermal, summary, linkBalance: linkBalance(result, summary) }
+  return { result, policy, positions, thermal, summary, linkBalance: linkBalance(result, summary) }
 }
 
 /** Candidates per position whose T_j is followed over the period (the first ones shown; the assigned part always). */

@@ -45,7 +45,7 @@ export function candidateConverter(duty: TradeStudyInput, topology: TopologyId, 
 /** The duty through every candidate against the given parts (on a worker thread: runTradeStudy). */
 export async function runTradeStudy(duty: TradeStudyInput): Promise<{ rows: TradeStudyRow[] }> {
   const catalog = await currentCatalog()
-  return runInPool({ kind: 'trade-study', generation: catalog.generation, duty }, { parts: () => catalog.parts })
+  return runInPool({ kind: 'trade-study', generation: catalog.generation, index: catalog.shared, duty })
 }
 
 /** One row per candidate topology (pure: runs on a worker thread with the thread's catalogue index). */

@@ -1,5 +1,5 @@
 // The pool of worker threads (piscina, one thread per core) that keeps long computations off the
-// event loop, so health and cheap routes answer while evaluations, matching, trade studies, catalogue
+// event loop, so health and cheap routes answer while evaluations, part matching, trade studies, catalogue
 // reads and PDFs run. The worker file is bundled beside the server (workers/engine.mjs); under
 // `nuxt dev` without it, tasks run inline.
 import { existsSync } from 'node:fs'
@@ -10,7 +10,7 @@ import { Piscina } from 'piscina'
 import { EngineInputError } from '#shared/engine'
 import { loadFonts, type PdfFonts } from '../exports/pdf'
 import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
-import { runTask, type BomPdfOptions, type CatalogPartRow, type Task, type TaskResult } from './tasks'
+import { runTask, type BomPdfOptions, type Task, type TaskResult } from './tasks'
 
 export const WORKER_FILE = join('workers', 'engine.mjs')
 
@@ -71,13 +71,12 @@ async function dispatch(task: Task): Promise<TaskResult> {
 
 /**
  * Runs a task on a worker thread and returns its value; engine and HTTP errors are raised here as the
- * route would raise them. `supply` answers a thread whose catalogue or fonts copy is missing or stale.
+ * route would raise them. `supply` answers a thread whose fonts copy is missing.
  */
-export async function runInPool<T>(task: Task, supply?: { parts?: () => CatalogPartRow[], fonts?: () => Promise<PdfFonts> }): Promise<T> {
+export async function runInPool<T>(task: Task, supply?: { fonts?: () => Promise<PdfFonts> }): Promise<T> {
   let result = await dispatch(task)
   if (!result.ok && 'needs' in result) {
-    if (result.needs === 'parts' && supply?.parts && 'generation' in task) result = await dispatch({ ...task, parts: supply.parts() })
-    else if (result.needs === 'fonts' && supply?.fonts && (task.kind === 'bom-pdf' || task.kind === 'design-pdf')) result = await dispatch({ ...task, fonts: await supply.fonts() })
+    if (result.needs === 'fonts' && supply?.fonts && (task.kind === 'bom-pdf' || task.kind === 'design-pdf')) result = await dispatch({ ...task, fonts: await supply.fonts() })
     if (!result.ok && 'needs' in result) throw new Error(`worker task ${task.kind} needs ${result.needs}`)
   }
   if (!result.ok) return rethrow(result)

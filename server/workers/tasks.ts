@@ -1,12 +1,13 @@
 // The work the pool of worker threads does: evaluations, matching, trade studies, catalogue file reading
-// and PDF rendering. Pure functions of their message (plus a per-thread copy of the catalogue, checked
-// against the catalogue generation the main thread read from PostgreSQL for this request).
+// and PDF rendering. Pure functions of their message. Matching tasks carry the catalogue index of the
+// generation the main thread read from PostgreSQL for this request, in shared memory (no copy per thread);
+// each thread keeps that index opened (with the parts it parsed) until a task names another generation.
 import { EngineInputError, evaluateDesign, evaluateStress, type DesignInput, type EvaluateOptions, type StressInput } from '#shared/engine'
-import { indexParts, type PartIndex } from '#shared/catalog/matching'
-import type { CatalogPart } from '#shared/catalog/types'
+import { openSharedIndex, type PartIndex, type SharedPartIndex } from '#shared/catalog/matching'
 import type { TradeStudyInput } from '#shared/schemas/trade-study'
 import { readCatalogFile, type ReadOptions } from '../catalog/read'
 import { previewDesign, type PreviewView } from '../services/designs'
+import { matchDesignPositions, type DesignMatchRequest } from '../services/parts'
 import { tradeStudyRows } from '../services/trade-study'
 import { bomToPdf } from '../exports/bom-pdf'
 import { designReportPdf } from '../exports/design-pdf'
@@ -17,13 +18,12 @@ import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
 /** what the BOM PDF takes besides the snapshot and purchasing's entries */
 export interface BomPdfOptions { openOnly?: boolean, locale?: string }
 
-export type CatalogPartRow = CatalogPart & { partVersionId: number, approved: boolean }
-
 export type Task
   = | { kind: 'stress', input: StressInput, options: EvaluateOptions, provenance?: 'compact' | 'full' }
     | { kind: 'evaluate', input: DesignInput, provenance?: 'compact' | 'full' }
     | { kind: 'preview', input: DesignInput, view?: Partial<PreviewView> }
-    | { kind: 'trade-study', generation: number, parts?: CatalogPartRow[], duty: TradeStudyInput }
+    | { kind: 'trade-study', generation: number, index: SharedPartIndex, duty: TradeStudyInput }
+    | { kind: 'match-design', generation: number, index: SharedPartIndex, request: DesignMatchRequest }
     | { kind: 'read-catalog', file: Uint8Array, filename: string, limits: ReadOptions }
     | { kind: 'bom-pdf', fonts?: PdfFonts, args: { snapshot: BomSnapshot, purchase: BomPurchase, options?: BomPdfOptions } }
     | { kind: 'design-pdf', fonts?: PdfFonts, report: Parameters<typeof designReportPdf>[0] }
@@ -35,15 +35,16 @@ export type TaskError
 export type TaskResult
   = | { ok: true, value: unknown }
     | { ok: false, error: TaskError }
-  /** this thread's catalogue copy is older than the request's generation: send the parts along */
-    | { ok: false, needs: 'parts' | 'fonts' }
+  /** this thread has no fonts yet: send them along */
+    | { ok: false, needs: 'fonts' }
 
-let catalog: { generation: number, parts: CatalogPartRow[], index: PartIndex } | null = null
+let catalog: { generation: number, index: PartIndex } | null = null
 let fonts: PdfFonts | null = null
 
-function catalogFor(task: { generation: number, parts?: CatalogPartRow[] }) {
-  if (task.parts) catalog = { generation: task.generation, parts: task.parts, index: indexParts(task.parts) }
-  return catalog && catalog.generation === task.generation ? catalog : null
+/** The task's catalogue index, opened once per generation (parts already parsed stay parsed until then). */
+function catalogFor(task: { generation: number, index: SharedPartIndex }): PartIndex {
+  if (!catalog || catalog.generation !== task.generation) catalog = { generation: task.generation, index: openSharedIndex(task.index) }
+  return catalog.index
 }
 
 async function run(task: Task): Promise<TaskResult> {
@@ -58,11 +59,10 @@ async function run(task: Task): Promise<TaskResult> {
     }
     case 'preview':
       return { ok: true, value: previewDesign(task.input, task.view) }
-    case 'trade-study': {
-      const c = catalogFor(task)
-      if (!c) return { ok: false, needs: 'parts' }
-      return { ok: true, value: tradeStudyRows(task.duty, c.index) }
-    }
+    case 'trade-study':
+      return { ok: true, value: tradeStudyRows(task.duty, catalogFor(task)) }
+    case 'match-design':
+      return { ok: true, value: matchDesignPositions(task.request, catalogFor(task)) }
     case 'read-catalog':
       return { ok: true, value: await readCatalogFile(Buffer.from(task.file.buffer, task.file.byteOffset, task.file.byteLength), task.filename, task.limits) }
     case 'bom-pdf':

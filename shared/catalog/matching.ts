@@ -16,16 +16,16 @@
 //               carries the point with the highest total, by name; the envelope is never used for losses then.
 //   junction    T_j = T_heatsink + P·(R_th,jc + R_th,ch)            per device (no coupling between chips)
 
-import { COLUMN_BY_KEY, PACKAGE_CONFIGURATIONS, type ColumnKey, type PartKind } from '../../catalog/columns'
+import { COLUMN_BY_KEY, PACKAGE_CONFIGURATION_IDS, PACKAGE_CONFIGURATIONS, type ColumnKey, type PartKind } from '../../catalog/columns'
 import type { CapacitorEnvelope, CapacitorRole, DeviceEnvelope, TopologyId } from '../engine/types'
 import { FALLBACK_METHOD, lossesOverPoints, type PointDuty } from '../thermal/losses'
 import { hasTwoTemperatures, junctionOverPoints } from '../thermal/temperature'
+import { approvalRank, indexParts, OBSOLETE, placeOf, slotsPerPackage, type PartIndex, type PositionKind } from './part-index'
 import { priceAtQuantity } from './prices'
 import type { CatalogPart, Lifecycle } from './types'
 
 export { priceAtQuantity } from './prices'
-
-export type PositionKind = 'switch' | 'diode' | 'clamp-diode' | 'capacitor'
+export { approvalRank, indexParts, openSharedIndex, sharePartIndex, slotsPerPackage, type PartIndex, type PositionKind, type SharedPartIndex } from './part-index'
 
 /** One device or capacitor position of a converter at its worst operating point, and how often it occurs. */
 export interface PositionDuty {
@@ -160,8 +160,6 @@ export interface MatchResult {
   rejected: { wrongKind: number, wrongTopology: number, voltage: number, current: number, capacitance: number, obsolete: number, missingData: number }
 }
 
-const LIFECYCLE_RANK: Record<Lifecycle, number> = { active: 0, nrnd: 1, obsolete: 2 }
-
 function kindsFor(position: PositionKind): readonly PartKind[] {
   switch (position) {
     case 'switch': return ['switch-diode', 'switch']
@@ -171,25 +169,12 @@ function kindsFor(position: PositionKind): readonly PartKind[] {
   }
 }
 
-/** Positions of the duty's kind that one package of the part covers (0 = cannot serve it). */
-export function slotsPerPackage(part: Pick<CatalogPart, 'kind' | 'packageConfiguration'>, position: PositionKind): number {
-  const cfg = PACKAGE_CONFIGURATIONS[part.packageConfiguration]
-  if (!cfg || !cfg.kinds.includes(part.kind)) return 0
-  switch (position) {
-    case 'switch': return part.kind === 'switch-diode' || part.kind === 'switch' ? cfg.switches : 0
-    case 'diode': return part.kind === 'diode' ? cfg.diodes : part.kind === 'switch-diode' ? cfg.switches : 0
-    // A switch package serves clamp positions only when it has clamp diodes of its own (NPC leg).
-    case 'clamp-diode': return part.kind === 'diode' ? cfg.clampDiodes : part.kind === 'switch-diode' && part.packageConfiguration === 'npc-leg' ? cfg.clampDiodes : 0
-    case 'capacitor': return part.kind === 'capacitor' ? 1 : 0
-  }
-}
-
-function fitsTopology(part: PartFigures, duty: PositionDuty): boolean {
-  const cfg = PACKAGE_CONFIGURATIONS[part.packageConfiguration]
+function fitsTopology(packageConfiguration: string | undefined, duty: PositionDuty): boolean {
+  const cfg = PACKAGE_CONFIGURATIONS[packageConfiguration as keyof typeof PACKAGE_CONFIGURATIONS]
   if (!cfg?.topologies || !duty.topology) return true
   if (!cfg.topologies.includes(duty.topology)) return false
   // Three-level leg modules fit three-level legs only.
-  if ((part.packageConfiguration === 'npc-leg') && duty.levels !== undefined && duty.levels !== 3) return false
+  if ((packageConfiguration === 'npc-leg') && duty.levels !== undefined && duty.levels !== 3) return false
   return true
 }
 
@@ -210,10 +195,11 @@ function round(value: number, digits = 2): number {
 
 interface Sizing { series: number, parallel: number }
 
-function semiconductorSizing(part: PartFigures, duty: PositionDuty, maxSeries: number, maxParallel: number, parallelSharing: number, seriesSharing: number): Sizing | 'voltage' | 'current' | 'missingData' {
-  const rating = part.voltageRating
-  const current = part.currentRating
-  if (!(rating > 0) || !(current !== undefined && current > 0)) return 'missingData'
+type Refusal = 'voltage' | 'current' | 'capacitance' | 'missingData'
+
+/** Series and parallel counts into `into`, or why the part cannot serve (ratings NaN when the catalogue lacks them). */
+function semiconductorSizing(rating: number, current: number, duty: PositionDuty, maxSeries: number, maxParallel: number, parallelSharing: number, seriesSharing: number, into: Sizing): Refusal | null {
+  if (!(rating > 0) || !(current > 0)) return 'missingData'
   let series = Math.max(1, Math.ceil(duty.requiredVoltageRating / rating - 1e-9))
   if (series > 1) series = Math.ceil(duty.requiredVoltageRating / (rating * seriesSharing) - 1e-9)
   if (series > maxSeries) return 'voltage'
@@ -221,14 +207,13 @@ function semiconductorSizing(part: PartFigures, duty: PositionDuty, maxSeries: n
   let parallel = Math.max(1, Math.ceil(required / current - 1e-9))
   if (parallel > 1) parallel = Math.ceil(required / (current * parallelSharing) - 1e-9)
   if (parallel > maxParallel) return 'current'
-  return { series, parallel }
+  into.series = series
+  into.parallel = parallel
+  return null
 }
 
-function capacitorSizing(part: PartFigures, duty: PositionDuty, maxSeries: number, maxParallel: number): Sizing | 'voltage' | 'current' | 'capacitance' | 'missingData' {
-  const rating = part.voltageRating
-  const ripple = part.rippleCurrentRating
-  const capacitance = part.capacitance
-  if (!(rating > 0) || !(ripple !== undefined && ripple > 0) || !(capacitance !== undefined && capacitance > 0)) return 'missingData'
+function capacitorSizing(rating: number, ripple: number, capacitance: number, duty: PositionDuty, maxSeries: number, maxParallel: number, into: Sizing): Refusal | null {
+  if (!(rating > 0) || !(ripple > 0) || !(capacitance > 0)) return 'missingData'
   const series = Math.max(1, Math.ceil(duty.requiredVoltageRating / rating - 1e-9))
   if (series > maxSeries) return 'voltage'
   // A string of `series` capacitors carries the full ripple and has 1/series of one capacitance.
@@ -236,7 +221,9 @@ function capacitorSizing(part: PartFigures, duty: PositionDuty, maxSeries: numbe
   const byCapacitance = duty.capacitanceRequired ? Math.ceil((duty.capacitanceRequired * series) / capacitance - 1e-9) : 1
   const parallel = Math.max(1, byRipple, byCapacitance)
   if (parallel > maxParallel) return byCapacitance >= byRipple ? 'capacitance' : 'current'
-  return { series, parallel }
+  into.series = series
+  into.parallel = parallel
+  return null
 }
 
 /** Column headers of the figures a semiconductor part lacks for the position's losses and / or T_j. */
@@ -314,8 +301,12 @@ export function checkDuty(duty: PositionDuty): string[] {
 export interface MatchOptions {
   /** Candidates built and returned; the rest are only counted (`fitting`). Default: all. */
   limit?: number
-  /** Parts to offer; the others that fit are counted in `leftOut`. */
+  /** Parts to offer; the others that fit are counted in `leftOut`. Reads every fitting part: prefer the two below. */
   only?: (part: CatalogPart) => boolean
+  /** Offer only approved, active parts (approvalRank 0); the others that fit are counted in `leftOut`. */
+  approvedActiveOnly?: boolean
+  /** Leave out the part with this id (PartIndex built with `idOf`), counted in `leftOut`. */
+  exceptId?: number
 }
 
 interface RankEntry { part: CatalogPart, slots: number, sizing: Sizing, group: number, cost: number, loss: number, order: number }
@@ -332,7 +323,8 @@ function compareRank(a: RankEntry, b: RankEntry): number {
  * place them in the kept list. Must agree with buildCandidate (a unit test compares the two orders).
  */
 function rankInto(best: BestRanks, part: CatalogPart, duty: PositionDuty, policy: MatchPolicy, sizing: Sizing, slots: number, order: number): boolean {
-  const { series, parallel } = sizing
+  const series = sizing.series
+  const parallel = sizing.parallel
   const devices = series * parallel
   const devicesPerConverter = devices * duty.positionsPerPhase * duty.phases
   const isCapacitor = duty.kind === 'capacitor'
@@ -376,7 +368,8 @@ function rankInto(best: BestRanks, part: CatalogPart, duty: PositionDuty, policy
   const into = best.next()
   into.part = part
   into.slots = slots
-  into.sizing = sizing
+  into.sizing.series = series
+  into.sizing.parallel = parallel
   into.group = (thermalOk ? 0 : 6) + bestGroup
   into.cost = cost
   into.loss = loss
@@ -436,30 +429,127 @@ export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] 
   const maxParallel = policy.maxParallel?.[duty.kind] ?? DEFAULT_MAX_PARALLEL[duty.kind]
   const parallelSharing = policy.parallelCurrentSharing ?? 0.9
   const seriesSharing = policy.seriesVoltageSharing ?? 1
-  const pool = index.byPosition[duty.kind]
-  const rejected = { wrongKind: index.size - pool.length, wrongTopology: 0, voltage: 0, current: 0, capacitance: 0, obsolete: 0, missingData: 0 }
+  const table = index.byPosition[duty.kind]
+  const rejected = { wrongKind: index.size - table.count, wrongTopology: 0, voltage: 0, current: 0, capacitance: 0, obsolete: 0, missingData: 0 }
   const candidates: Candidate[] = []
   const isCapacitor = duty.kind === 'capacitor'
   const dutyProblems = checkDuty(duty)
   if (dutyProblems.length > 0) return { candidates, fitting: 0, leftOut: 0, dutyProblems, considered: 0, rejected: { ...rejected, wrongKind: 0 } }
 
-  const best = new BestRanks(options.limit)
+  const { voltageRating, currentRating, capacitance, lowestPrice, order, slots, configuration, lifecycle, rank } = table
+  const fits = topologyFits(duty)
+  // Sorted by voltage rating: below `from` no part reaches the voltage even with the most series parts allowed,
+  // so those are only counted (by the first check that refuses them, as the full checks would).
+  const from = seriesSharing <= 1 ? firstAtLeast(voltageRating, (duty.requiredVoltageRating / maxSeries) * (1 - 1e-6)) : 0
+  for (let i = 0; i < from; i++) {
+    if (!fits[configuration[i]!]) rejected.wrongTopology++
+    else if (!(voltageRating[i]! > 0) || !(currentRating[i]! > 0) || (isCapacitor && !(capacitance[i]! > 0))) rejected.missingData++
+    else rejected.voltage++
+  }
+  const except = options.exceptId !== undefined ? placeOf(index, options.exceptId) : -1
+  const limit = options.limit
+  const best = new BestRanks(limit)
+  const sizing: Sizing = { series: 0, parallel: 0 }
+  const kept = limit !== undefined ? fittingRows(table.count) : null
   let fitting = 0
   let leftOut = 0
-  // The checks read the entry's compact copy of the figures (laid out together when the index was built), and
-  // the part itself only once it fits: on a large catalogue most of the time went into fetching parts' memory.
-  for (const { part, slots, figures } of pool) {
-    if (!fitsTopology(figures, duty)) { rejected.wrongTopology++; continue }
-    const sizing = isCapacitor
-      ? capacitorSizing(figures, duty, maxSeries, maxParallel)
-      : semiconductorSizing(figures, duty, maxSeries, maxParallel, parallelSharing, seriesSharing)
-    if (typeof sizing === 'string') { rejected[sizing]++; continue }
-    if (figures.lifecycle === 'obsolete' && !policy.includeObsolete) { rejected.obsolete++; continue }
-    if (options.only && !options.only(part)) { leftOut++; continue }
-    rankInto(best, part, duty, policy, sizing, slots, fitting++)
+  // Every check reads the columns; the part object is read only when it could still place in the kept list
+  // (on a large catalogue most of the time went into fetching parts' memory and collecting the garbage).
+  for (let i = from; i < table.count; i++) {
+    if (!fits[configuration[i]!]) { rejected.wrongTopology++; continue }
+    const refusal = isCapacitor
+      ? capacitorSizing(voltageRating[i]!, currentRating[i]!, capacitance[i]!, duty, maxSeries, maxParallel, sizing)
+      : semiconductorSizing(voltageRating[i]!, currentRating[i]!, duty, maxSeries, maxParallel, parallelSharing, seriesSharing, sizing)
+    if (refusal) { rejected[refusal]++; continue }
+    if (lifecycle[i] === OBSOLETE && !policy.includeObsolete) { rejected.obsolete++; continue }
+    const place = order[i]!
+    if ((options.approvedActiveOnly && rank[i] !== 0) || place === except) { leftOut++; continue }
+    if (options.only && !options.only(index.part(place))) { leftOut++; continue }
+    if (!kept) { rankInto(best, index.part(place), duty, policy, sizing, slots[i]!, place); fitting++; continue }
+    // At its lowest price and best group (T_j within its limit), the part's rank cannot be better than this.
+    kept.row[fitting] = i
+    kept.series[fitting] = sizing.series
+    kept.parallel[fitting] = sizing.parallel
+    kept.lowestCost[fitting] = round(lowestPrice[i]! * packagesPerDesignOf(duty, sizing, slots[i]!, isCapacitor ? 1 : PHASES_PER_PACKAGE[configuration[i]!]!), 2)
+    fitting++
+  }
+  if (kept && limit! > 0) {
+    // The parts with the best bounds first, so the kept list is near its final state at once; then every other
+    // fitting part whose bound could still place it. Same result as any order (ties keep catalogue order).
+    const first = bestBounds(kept, fitting, rank, order, limit!)
+    const rank1 = (k: number) => {
+      const i = kept.row[k]!
+      sizing.series = kept.series[k]!
+      sizing.parallel = kept.parallel[k]!
+      rankInto(best, index.part(order[i]!), duty, policy, sizing, slots[i]!, order[i]!)
+    }
+    for (const k of first) rank1(k)
+    const seen = new Set(first)
+    for (let k = 0; k < fitting; k++) {
+      if (seen.has(k) || best.cannotEnter(rank[kept.row[k]!]!, kept.lowestCost[k]!)) continue
+      rank1(k)
+    }
   }
   for (const r of best.sorted()) candidates.push(buildCandidate(r.part, duty, policy, r.sizing, r.slots))
   return { candidates, fitting, leftOut, dutyProblems, considered: index.size, rejected }
+}
+
+interface FittingRows { row: Int32Array, series: Int32Array, parallel: Int32Array, lowestCost: Float64Array }
+let scratchRows: FittingRows | null = null
+/** Scratch columns for one position's fitting parts (reused: matching is synchronous, one position at a time per thread). */
+function fittingRows(count: number): FittingRows {
+  if (!scratchRows || scratchRows.row.length < count) {
+    const n = Math.max(count, 1024)
+    scratchRows = { row: new Int32Array(n), series: new Int32Array(n), parallel: new Int32Array(n), lowestCost: new Float64Array(n) }
+  }
+  return scratchRows
+}
+
+/** The `limit` fitting rows with the best (group, lowest cost, catalogue place) bounds, in no particular order. */
+function bestBounds(kept: FittingRows, fitting: number, rank: Uint8Array, order: Int32Array, limit: number): number[] {
+  const better = (a: number, b: number) => {
+    const ga = rank[kept.row[a]!]!
+    const gb = rank[kept.row[b]!]!
+    if (ga !== gb) return ga < gb
+    const ca = kept.lowestCost[a]!
+    const cb = kept.lowestCost[b]!
+    if (ca !== cb) return ca < cb
+    return order[kept.row[a]!]! < order[kept.row[b]!]!
+  }
+  // sorted best first; a row enters only when it beats the worst kept (most do not)
+  const top: number[] = []
+  for (let k = 0; k < fitting; k++) {
+    if (top.length === limit && !better(k, top[limit - 1]!)) continue
+    let at = top.length
+    while (at > 0 && better(k, top[at - 1]!)) at--
+    top.splice(at, 0, k)
+    if (top.length > limit) top.pop()
+  }
+  return top
+}
+
+/** Phases one package spans, by package configuration code (1 for an unknown code). */
+const PHASES_PER_PACKAGE = [...PACKAGE_CONFIGURATION_IDS.map(id => PACKAGE_CONFIGURATIONS[id].phasesPerPackage), 1]
+
+/** Whether each package configuration code fits the duty's topology (the last entry: an unknown code). */
+function topologyFits(duty: PositionDuty): boolean[] {
+  return [...PACKAGE_CONFIGURATION_IDS.map(id => fitsTopology(id, duty)), true]
+}
+
+function packagesPerDesignOf(duty: PositionDuty, sizing: Sizing, slots: number, phasesPerPackage: number): number {
+  return packagesPerConverter(duty, sizing.series * sizing.parallel, slots, phasesPerPackage) * duty.converters
+}
+
+/** First place of an ascending column (NaN first) whose value is at least `value`. */
+function firstAtLeast(column: Float64Array, value: number): number {
+  let lo = 0
+  let hi = column.length
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1
+    if (column[mid]! >= value) hi = mid
+    else lo = mid + 1
+  }
+  return lo
 }
 
 /**
@@ -475,40 +565,6 @@ export function rateAssignment(part: CatalogPart, duty: PositionDuty, policy: Ma
   const needed = sized ? { seriesCount: sized.seriesCount, parallelCount: sized.parallelCount } : null
   const fits = !!sized && seriesCount >= sized.seriesCount && parallelCount >= sized.parallelCount && rated.thermalOk
   return { rated, needed, fits }
-}
-
-/** Parts grouped by the position kinds they can serve, with their slot counts: build once per catalogue, match many positions. */
-export interface PartIndex {
-  readonly kind: 'part-index'
-  readonly size: number
-  readonly byPosition: Readonly<Record<PositionKind, readonly { part: CatalogPart, slots: number, figures: PartFigures }[]>>
-}
-
-/** The figures the fit and sizing checks read, copied out of the part in one shape. */
-type PartFigures = Pick<CatalogPart, 'packageConfiguration' | 'voltageRating' | 'currentRating' | 'rippleCurrentRating' | 'capacitance' | 'lifecycle'>
-
-function figuresOf(part: CatalogPart): PartFigures {
-  return {
-    packageConfiguration: part.packageConfiguration,
-    voltageRating: part.voltageRating,
-    currentRating: part.currentRating,
-    rippleCurrentRating: part.rippleCurrentRating,
-    capacitance: part.capacitance,
-    lifecycle: part.lifecycle,
-  }
-}
-
-const POSITION_KINDS: readonly PositionKind[] = ['switch', 'diode', 'clamp-diode', 'capacitor']
-
-export function indexParts(parts: readonly CatalogPart[]): PartIndex {
-  const byPosition: Record<PositionKind, { part: CatalogPart, slots: number, figures: PartFigures }[]> = { 'switch': [], 'diode': [], 'clamp-diode': [], 'capacitor': [] }
-  for (const part of parts) {
-    for (const position of POSITION_KINDS) {
-      const slots = slotsPerPackage(part, position)
-      if (slots > 0) byPosition[position].push({ part, slots, figures: figuresOf(part) })
-    }
-  }
-  return { kind: 'part-index', size: parts.length, byPosition }
 }
 
 function isPartIndex(parts: readonly CatalogPart[] | PartIndex): parts is PartIndex {
@@ -643,15 +699,6 @@ function buildCandidate(part: CatalogPart, duty: PositionDuty, policy: MatchPoli
   return candidate
 }
 
-/**
- * Approval and lifecycle rank of a part: 0 for approved and active (the default view), then NRND,
- * obsolete; parts component engineering has not approved (approved === false) after all approved ones.
- * Parts without an approval flag (plain catalogue data) count as approved.
- */
-export function approvalRank(part: Pick<CatalogPart, 'lifecycle'> & { approved?: boolean }): number {
-  return (part.approved === false ? 3 : 0) + LIFECYCLE_RANK[part.lifecycle]
-}
-
 /** Thermally fine first, then approval and lifecycle (approvalRank), cost per design, losses per converter. */
 export function sortCandidates(candidates: Candidate[]): Candidate[] {
   // Keys computed once per candidate: the comparator runs n·log n times on large catalogues.
@@ -687,8 +734,8 @@ export function whyNothingFits(duty: PositionDuty, catalogue: readonly CatalogPa
   const noun = describePosition(duty.kind)
   const isCapacitor = duty.kind === 'capacitor'
   const kinds = kindsFor(duty.kind)
-  const pool = index.byPosition[duty.kind].map(entry => entry.part)
-  if (pool.length === 0) return `${duty.positionName}: the catalogue has no part that can serve as a ${noun} (kinds ${kinds.map(k => `'${k}'`).join(' or ')}).`
+  const table = index.byPosition[duty.kind]
+  if (table.count === 0) return `${duty.positionName}: the catalogue has no part that can serve as a ${noun} (kinds ${kinds.map(k => `'${k}'`).join(' or ')}).`
 
   const currentNeeded = isCapacitor ? (duty.requiredRippleRating ?? duty.currentRms) : (duty.requiredCurrentRating ?? duty.currentPeak)
   const needs = [`≥ ${formatNumber(duty.requiredVoltageRating)} V`, `≥ ${formatNumber(currentNeeded)} A${isCapacitor ? ' ripple' : ''}`]
@@ -696,16 +743,19 @@ export function whyNothingFits(duty: PositionDuty, catalogue: readonly CatalogPa
   const allowance = `allowing up to ${maxSeries} in series and ${maxParallel} in parallel`
   let message = `${duty.positionName}: no ${noun} rated ${needs.join(' and ')} (${allowance}).`
 
-  // Closest: the smallest product of shortfalls even with the most series / parallel parts allowed.
-  const shortfall = (p: CatalogPart) => {
-    const v = duty.requiredVoltageRating / (p.voltageRating * maxSeries)
-    const i = currentNeeded / (((isCapacitor ? p.rippleCurrentRating : p.currentRating) ?? 0) * maxParallel)
-    const c = isCapacitor && duty.capacitanceRequired ? (duty.capacitanceRequired * Math.ceil(duty.requiredVoltageRating / p.voltageRating)) / ((p.capacitance ?? 0) * maxParallel) : 1
+  // Closest: the smallest product of shortfalls even with the most series / parallel parts allowed (read from the columns).
+  const shortfall = (k: number) => {
+    const rating = table.voltageRating[k]!
+    const v = duty.requiredVoltageRating / (rating * maxSeries)
+    const i = currentNeeded / (table.currentRating[k]! * maxParallel)
+    const c = isCapacitor && duty.capacitanceRequired ? (duty.capacitanceRequired * Math.ceil(duty.requiredVoltageRating / rating)) / (table.capacitance[k]! * maxParallel) : 1
     return Math.max(1, v) * Math.max(1, Number.isFinite(i) ? i : 1e9) * Math.max(1, Number.isFinite(c) ? c : 1e9)
   }
-  // Obsolete parts are counted below rather than offered as "closest" (unless nothing else exists).
-  const usable = policy.includeObsolete ? pool : pool.filter(p => p.lifecycle !== 'obsolete')
-  const closest = [...(usable.length > 0 ? usable : pool)].sort((a, b) => shortfall(a) - shortfall(b)).slice(0, 3)
+  // Obsolete parts are counted below rather than offered as "closest" (unless nothing else exists); ties in catalogue order.
+  const all = Array.from({ length: table.count }, (_, k) => k)
+  const usablePlaces = policy.includeObsolete ? all : all.filter(k => table.lifecycle[k] !== OBSOLETE)
+  const short = Float64Array.from({ length: table.count }, (_, k) => shortfall(k))
+  const closest = (usablePlaces.length > 0 ? usablePlaces : all).sort((a, b) => short[a]! - short[b]! || table.order[a]! - table.order[b]!).slice(0, 3).map(k => index.part(table.order[k]!))
   const describe = (p: CatalogPart) => {
     const lacks: string[] = []
     if (p.voltageRating * maxSeries < duty.requiredVoltageRating) lacks.push(`voltage ${formatNumber(p.voltageRating)} V${maxSeries > 1 ? ` × ${maxSeries}` : ''} < ${formatNumber(duty.requiredVoltageRating)} V`)
@@ -716,7 +766,7 @@ export function whyNothingFits(duty: PositionDuty, catalogue: readonly CatalogPa
       const series = Math.max(1, Math.ceil(duty.requiredVoltageRating / p.voltageRating))
       if ((p.capacitance * maxParallel) / series < duty.capacitanceRequired) lacks.push(`capacitance ${formatCapacitance(p.capacitance)} × ${maxParallel} / ${series} in series < ${formatCapacitance(duty.capacitanceRequired)}`)
     }
-    if (!fitsTopology(p, duty)) lacks.push(`a ${PACKAGE_CONFIGURATIONS[p.packageConfiguration].label} module made for another topology`)
+    if (!fitsTopology(p.packageConfiguration, duty)) lacks.push(`a ${PACKAGE_CONFIGURATIONS[p.packageConfiguration].label} module made for another topology`)
     if (p.lifecycle === 'obsolete' && !policy.includeObsolete) lacks.push('obsolete')
     const rating2 = isCapacitor ? `${formatNumber(p.voltageRating)} V, ${formatCapacitance(p.capacitance ?? 0)}, ${formatNumber(p.rippleCurrentRating ?? 0)} A` : `${formatNumber(p.voltageRating)} V, ${formatNumber(p.currentRating ?? 0)} A`
     return `${p.manufacturer} ${p.partNumber} (${rating2})${lacks.length > 0 ? `: ${lacks.join('; ')}` : ''}`

@@ -7,6 +7,8 @@ import { fileURLToPath, pathToFileURL } from 'node:url'
 import { Piscina } from 'piscina'
 import { describe, expect, it } from 'vitest'
 import { CATALOG_COLUMNS } from '../../catalog/columns'
+import { DEMO_PARTS } from '../../catalog/demo-parts'
+import { sharePartIndex } from '../../shared/catalog/matching'
 import { baseUrl, signInAs, unique, type Client } from '../support/api'
 
 const npc = {
@@ -124,7 +126,7 @@ describe('work on the job queue', () => {
 })
 
 describe('the worker threads of the built server', () => {
-  it('load from the build folder (its own packages only), evaluate and read a spreadsheet', async () => {
+  it('load from the build folder (its own packages only), evaluate, read a spreadsheet and match a design', async () => {
     const root = fileURLToPath(new URL('../..', import.meta.url))
     const file = [join(root, '.output-test', 'server', 'workers', 'engine.mjs'), join(root, '.output', 'server', 'workers', 'engine.mjs')].find(f => existsSync(f))
     expect(file, 'workers/engine.mjs beside the built server').toBeTruthy()
@@ -138,6 +140,16 @@ describe('the worker threads of the built server', () => {
       const table = await pool.run({ kind: 'read-catalog', file: csv, filename: 'w.csv', limits: { maxBytes: 1e6, maxRows: 10 } })
       expect(table.ok, JSON.stringify(table).slice(0, 300)).toBe(true)
       expect(table.value.rows.length).toBe(1)
+      // part matching reads the catalogue index from shared memory, the same copy the main thread built
+      const parts = DEMO_PARTS.map((p, i) => ({ ...p, partVersionId: i + 1, approved: true }))
+      const { levels, dcVoltage, dcVoltageMax, switchingHz, modulation, topology, overshootVoltage, ...point } = npc
+      const request = {
+        input: { machineSide: { topology, levels, dcVoltage, dcVoltageMax, switchingHz, modulation, overshootVoltage, operatingPoints: [point] } },
+        bomSettings: { buildQuantity: 1 }, revision: 1, assignments: [], pinned: [], approval: [], current: [], hosts: [], limit: 3, options: {},
+      }
+      const matched = await pool.run({ kind: 'match-design', generation: 1, index: sharePartIndex(parts, p => (p as typeof parts[number]).partVersionId), request })
+      expect(matched.ok, JSON.stringify(matched).slice(0, 300)).toBe(true)
+      expect(matched.value.positions[0].candidates.length).toBeGreaterThan(0)
     }
     finally {
       await pool.destroy()

@@ -3,6 +3,11 @@ import { describe, expect, it } from 'vitest'
 import { evaluateDesign, evaluateStress } from '../../../shared/engine'
 import { compactProvenance } from '../../../server/workers/provenance'
 import { runTask } from '../../../server/workers/tasks'
+import { withEngine } from '../../../server/workers/shims'
+import { DEMO_PARTS } from '../../../catalog/demo-parts'
+import { sharePartIndex } from '../../../shared/catalog/matching'
+import type { DesignMatchRequest, PositionMatch } from '../../../server/services/parts'
+import type { BomSettings } from '../../../shared/schemas/design'
 
 const npc = {
   topology: 'diode-clamped' as const, levels: 3, dcVoltage: 1100, dcVoltageMax: 1250, lineVoltageRms: 690, phaseCurrentRms: 400,
@@ -46,7 +51,20 @@ describe('worker tasks', () => {
     expect(r).toMatchObject({ error: { kind: 'engine', field: expect.any(String), message: expect.any(String) } })
   })
 
-  it('asks for the catalogue when its copy is missing or older than the request\'s generation', async () => {
-    expect(await runTask({ kind: 'trade-study', generation: 7, duty: {} as never })).toEqual({ ok: false, needs: 'parts' })
+  it('matches a design against the index the task carries, and follows a newer generation at once', async () => {
+    // service code calls Nitro's withEngine; the worker bundle gets it from the shims, this test too
+    Object.assign(globalThis, { withEngine })
+    const { levels, dcVoltage, dcVoltageMax, switchingHz, modulation, topology, overshootVoltage, ...point } = npc
+    const input = { machineSide: { topology, levels, dcVoltage, dcVoltageMax, switchingHz, modulation, overshootVoltage, operatingPoints: [point] } }
+    const request: DesignMatchRequest = { input, bomSettings: { buildQuantity: 1 } as BomSettings, revision: 1, assignments: [], pinned: [], approval: [], current: [], hosts: [], limit: 5, options: {} }
+    const parts = DEMO_PARTS.map((p, i) => ({ ...p, partVersionId: 100 + i, approved: true }))
+    const first = await runTask({ kind: 'match-design', generation: 1, index: sharePartIndex(parts, p => (p as typeof parts[number]).partVersionId), request })
+    expect(first.ok).toBe(true)
+    const top = (r: typeof first) => (r as { value: { positions: PositionMatch[] } }).value.positions[0]!.candidates[0]!.partVersionId
+    const best = top(first)
+    // generation 2 no longer has that part: the thread's index of generation 1 is not used again
+    const second = await runTask({ kind: 'match-design', generation: 2, index: sharePartIndex(parts.filter(p => p.partVersionId !== best), p => (p as typeof parts[number]).partVersionId), request })
+    expect(second.ok).toBe(true)
+    expect(top(second)).not.toBe(best)
   })
 })
