@@ -2,6 +2,7 @@
 // quantity, spares, MOQ and price breaks. Pure functions over plain data; quantities in pieces,
 // money per piece in the part's currency.
 
+import { partKey } from '../catalog/part-key'
 import { gateReasons } from './gates'
 import type { BomLine, BomPositionRow, BomSnapshot } from './types'
 
@@ -147,9 +148,9 @@ function cleanMoney(value: number): number {
   return Math.round(value * 1e6) / 1e6
 }
 
-/** Line key: one line per manufacturer + part number, case and surrounding blanks ignored, so it stays stable across revisions. */
+/** Line key: one line per part, by the catalogue's partKey() (so it stays stable across revisions and spellings). */
 export function bomLineKey(manufacturer: string, partNumber: string): string {
-  return `${manufacturer.trim().toUpperCase()}|${partNumber.trim().toUpperCase()}`
+  return partKey(manufacturer, partNumber)
 }
 
 function validWholeNumber(value: unknown, min: number): value is number {

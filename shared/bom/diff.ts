@@ -1,5 +1,6 @@
 // "What changed since the last release": lines added, removed, or with another quantity or price.
 
+import { partKey } from '../catalog/part-key'
 import type { BomLine, BomSnapshot } from './types'
 
 /** Fields compared between two releases of the same line. */
@@ -37,9 +38,12 @@ const LABELS: Record<BomComparedField, string> = {
   references: 'references',
 }
 
-/** Manual lines are numbered ("manual-3"), so they are matched by what they are, not by number. */
+/**
+ * Part lines are matched by partKey() of what they name (a release written before the key was one function still
+ * matches); manual lines are numbered ("manual-3"), so they are matched by what they are, not by number.
+ */
 function identity(line: BomLine): string {
-  if (!line.manual) return `part:${line.key}`
+  if (!line.manual) return `part:${partKey(line.manufacturer, line.partNumber)}`
   return `manual:${[line.description, line.partNumber, line.manufacturer].map(s => s.trim().toUpperCase()).join('|')}`
 }
 
