@@ -1,6 +1,7 @@
 // "What changed since the last release": lines added, removed, or with another quantity or price.
 
 import { partKey } from '../catalog/part-key'
+import { DEFAULT_LOCALE, formatNumber } from '../utils/format'
 import type { BomLine, BomSnapshot } from './types'
 
 /** Fields compared between two releases of the same line. */
@@ -58,7 +59,7 @@ function same(a: number | string | null, b: number | string | null): boolean {
 
 function show(field: BomComparedField, v: number | string | null, currency: string): string {
   if (v === null) return '—'
-  if (typeof v === 'number') return field === 'unitPrice' || field === 'extendedPrice' ? `${v.toFixed(2)} ${currency}` : `${v} pcs`
+  if (typeof v === 'number') return field === 'unitPrice' || field === 'extendedPrice' ? `${formatNumber(v, DEFAULT_LOCALE, { decimals: 2, grouping: false })} ${currency}` : `${v} pcs`
   return v === '' ? '—' : v
 }
 
