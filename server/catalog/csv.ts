@@ -22,7 +22,7 @@ const lineBreaks = (text: string) => text.match(LINE_BREAK)?.length ?? 0
 
 /** csv-parse, as the catalogue reads CSV: blanks before an opening quote dropped, stray quotes kept as text. */
 function records(text: string, delimiter: CsvDelimiter, to?: number) {
-  return parse(text, { delimiter, relax_column_count: true, relax_quotes: true, ltrim: true, bom: true, info: true, ...(to === undefined ? {} : { to }) }) as { info: { lines: number }, record: string[] }[]
+  return parse(text, { delimiter, relax_column_count: true, relax_quotes: true, ltrim: true, bom: true, info: true, ...(to === undefined ? {} : { to }) }) as unknown as { info: { lines: number }, record: string[] }[]
 }
 
 /** Picks the delimiter that splits the first record into the most cells; ',' on a tie. */

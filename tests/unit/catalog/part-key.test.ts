@@ -84,6 +84,6 @@ describe('the BOM keys lines by partKey', () => {
     const line = previous.lines.find(l => !l.manual)!
     line.key = `${line.manufacturer.toUpperCase()}|${line.partNumber.replace('-', ' -').toUpperCase()}`
     line.partNumber = line.partNumber.replace('-', ' -')
-    expect(diffBoms(previous, next).filter(c => c.kind !== 'changed')).toEqual([])
+    expect(diffBoms(previous, next).filter(c => c.change !== 'changed')).toEqual([])
   })
 })
