@@ -63,6 +63,30 @@ describe('part key in the database', () => {
   })
 })
 
+describe('a part the re-keying marked as another spelling', () => {
+  it('cannot be edited (409 naming the part it repeats); the kept part can; the part answer says which it repeats', async () => {
+    const components = await signInAs('component-engineer')
+    const pn = unique('PK-DUP')
+    await importCsv(components, capacitorCsv('Kestrel Capacitors', pn, 5), pn)
+    const [kept] = await db`select id, key, current_version_id from parts where key = ${partKey('Kestrel Capacitors', pn)}`
+    const [version] = await db`select catalog_version_id, data from part_versions where id = ${kept!.current_version_id}`
+    // what migration 0008 leaves for a second spelling the old index allowed
+    const [repeat] = await db`insert into parts (manufacturer, part_number, key, key_conflict_with) values ('Kestrel  Capacitors', ${pn}, ${kept!.key}, ${kept!.id}) returning id`
+    const [repeatVersion] = await db`insert into part_versions (part_id, catalog_version_id, part_number, manufacturer, kind, package_config, lifecycle, data, is_current)
+      values (${repeat!.id}, ${version!.catalog_version_id}, ${pn}, 'Kestrel  Capacitors', 'capacitor', 'single', 'active', ${version!.data}, true) returning id`
+    await db`update parts set current_version_id = ${repeatVersion!.id} where id = ${repeat!.id}`
+
+    const refused = await components.json('PATCH', `/api/catalog/parts/${repeat!.id}`, { stock: 9 })
+    expect(refused.status).toBe(409)
+    expect(refused.body.message).toContain(`part ${kept!.id}`)
+    expect((await components.json('GET', `/api/catalog/parts/${repeat!.id}`)).body.keyConflictWith).toBe(kept!.id)
+    expect((await components.json('PATCH', `/api/catalog/parts/${kept!.id}`, { stock: 9 })).status).toBe(200)
+    // the refused edit wrote nothing on either part
+    const versions = await db`select part_id, count(*)::int as n from part_versions where part_id in (${kept!.id}, ${repeat!.id}) group by part_id order by part_id`
+    expect(versions.map(v => v.n)).toEqual([2, 1])
+  })
+})
+
 describe('migration 0008 re-keys stored parts', () => {
   // The migrations up to 0007 are applied in a schema of their own, parts are written the way the old index let
   // them be, then 0008 runs: the way an operator's database with years of imports is migrated.
