@@ -73,7 +73,7 @@ describe('a part the re-keying marked as another spelling', () => {
     // what migration 0008 leaves for a second spelling the old index allowed
     const [repeat] = await db`insert into parts (manufacturer, part_number, key, key_conflict_with) values ('Kestrel  Capacitors', ${pn}, ${kept!.key}, ${kept!.id}) returning id`
     const [repeatVersion] = await db`insert into part_versions (part_id, catalog_version_id, part_number, manufacturer, kind, package_config, lifecycle, data, is_current)
-      values (${repeat!.id}, ${version!.catalog_version_id}, ${pn}, 'Kestrel  Capacitors', 'capacitor', 'single', 'active', ${version!.data}, true) returning id`
+      values (${repeat!.id}, ${version!.catalog_version_id}, ${pn}, 'Kestrel  Capacitors', 'capacitor', 'single', 'active', ${db.json(version!.data)}, true) returning id`
     await db`update parts set current_version_id = ${repeatVersion!.id} where id = ${repeat!.id}`
 
     const refused = await components.json('PATCH', `/api/catalog/parts/${repeat!.id}`, { stock: 9 })
