@@ -61,6 +61,7 @@ function asOwner(bin, args, opts = {}) {
   return isRoot ? capture('runuser', ['-u', 'postgres', '--', exe, ...args], opts) : capture(exe, args, opts)
 }
 
+/** @returns {{ sessionPassword: string, dbPassword: string }} */
 export function readSecrets() {
   mkdirSync(dataDir, { recursive: true })
   const file = join(dataDir, 'secrets.json')

@@ -31,3 +31,31 @@ export function useFormErrors() {
 
   return { errors, message, clear, validate, fromResponse }
 }
+
+/**
+ * The submit handling forms share: clear the old errors, check the value with the shared zod schema, send it once
+ * at a time (`busy` while sending) and show the server's answer beside the fields or above the button.
+ */
+export function useFormSubmit<T extends z.ZodType>(schema: T, value: () => unknown, send: (valid: z.infer<T>) => Promise<void>) {
+  const { errors, message, clear, validate, fromResponse } = useFormErrors()
+  const busy = ref(false)
+
+  async function submit() {
+    if (busy.value) return
+    clear()
+    const current = value()
+    if (!validate(schema, current)) return
+    busy.value = true
+    try {
+      await send(current)
+    }
+    catch (err) {
+      fromResponse(err)
+    }
+    finally {
+      busy.value = false
+    }
+  }
+
+  return { errors, message, busy, submit, clear }
+}

@@ -2,9 +2,8 @@
 // the session answer names (the user's choice, else the company default; server/plugins/03.session-refresh.ts).
 // The server fetches the session while rendering and the browser hydrates the same answer, so both write the
 // same text: no hydration mismatch.
-import { formatDate, formatDateTime, formatInteger, formatMoney, formatNumber, resolveLocale, DEFAULT_LOCALE, type AppLocale, type NumberOptions } from '#shared/utils/format'
+import { DEFAULT_LOCALE, formatDate, formatDateTime, formatInteger, formatMoney, formatNumber, formatSi, resolveLocale, type AppLocale, type NumberOptions } from '#shared/utils/format'
 import type { ComputedRef } from 'vue'
-import { formatSi } from '#shared/utils/si'
 
 type SessionLike = { locale?: string, user?: { locale?: string | null } | null } | null | undefined
 

@@ -2,7 +2,6 @@
 // (read, store, map, validate, preview), then commit it as a catalogue version (one transaction).
 // Uses its own database `stratavolt_bench`, recreated for the run, and a server on 127.0.0.1:3300.
 import { performance } from 'node:perf_hooks'
-// @ts-expect-error -- plain ESM helper shared with the start and test scripts
 import { demoAccounts } from '../lib.mjs'
 import { manyParts, manyPartsWorkbook } from './catalog'
 import { signIn, startBuiltServer } from './support'
@@ -18,7 +17,7 @@ export async function runImportApiBench(): Promise<ImportFigure[]> {
     const parts = manyParts(20_000)
     const workbook = await manyPartsWorkbook(parts)
     const form = new FormData()
-    form.append('file', new Blob([workbook]), 'bench-20000.xlsx')
+    form.append('file', new Blob([new Uint8Array(workbook)]), 'bench-20000.xlsx')
     const t0 = performance.now()
     const up = await fetch(`${base}/api/catalog/imports`, { method: 'POST', headers: { cookie, origin: base }, body: form })
     const t1 = performance.now()

@@ -9,7 +9,6 @@ import { join } from 'node:path'
 import { performance } from 'node:perf_hooks'
 import autocannon from 'autocannon'
 import { evaluateStress } from '../../shared/engine'
-// @ts-expect-error -- plain ESM helper shared with the start and test scripts
 import { demoAccounts, ensureBuild, ensurePostgres, readSecrets, root, waitForHttp } from '../lib.mjs'
 
 export interface LoadFigure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }

@@ -5,7 +5,6 @@
 // (STRATAVOLT_BENCH_PORT moves it, as for the load bench).
 // Run alone with `npm run bench -- scale`.
 import { performance } from 'node:perf_hooks'
-// @ts-expect-error -- plain ESM helper shared with the start and test scripts
 import { demoAccounts } from '../lib.mjs'
 import { FIVE_LEVEL_DRIVE, manyParts, manyPartsWorkbook } from './catalog'
 import autocannon from 'autocannon'
@@ -44,7 +43,7 @@ export async function runScaleBench(): Promise<ScaleFigure[]> {
     for (let f = 0; f < FILES; f++) {
       const workbook = await manyPartsWorkbook(all.slice(f * PER_FILE, (f + 1) * PER_FILE))
       const form = new FormData()
-      form.append('file', new Blob([workbook]), `scale-${f + 1}.xlsx`)
+      form.append('file', new Blob([new Uint8Array(workbook)]), `scale-${f + 1}.xlsx`)
       const up = await fetch(`${base}/api/catalog/imports`, { method: 'POST', headers: { cookie: components, origin: base }, body: form })
       if (up.status !== 201) throw new Error(`upload ${f + 1} answered ${up.status}: ${(await up.text()).slice(0, 300)}`)
       const described = await up.json() as { import: { id: number }, mapping: unknown, decimalSeparator: string }

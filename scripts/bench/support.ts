@@ -3,7 +3,6 @@
 import { spawn } from 'node:child_process'
 import { openSync } from 'node:fs'
 import { join } from 'node:path'
-// @ts-expect-error -- plain ESM helper shared with the start and test scripts
 import { ensureBuild, ensurePostgres, readSecrets, root, waitForHttp } from '../lib.mjs'
 
 export function percentile(sorted: number[], p: number): number {

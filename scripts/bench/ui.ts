@@ -4,7 +4,6 @@
 // `npm run bench -- ui`; STRATAVOLT_BENCH_OUTPUT=.output-test reuses the build of `npm test`.
 import { performance } from 'node:perf_hooks'
 import { chromium, type Page } from 'playwright-core'
-// @ts-expect-error -- plain ESM helper shared with the start and test scripts
 import { demoAccounts } from '../lib.mjs'
 import { percentile, signIn, startBuiltServer } from './support'
 

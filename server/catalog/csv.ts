@@ -1,5 +1,7 @@
-// CSV text → records (RFC 4180 quoting, CRLF / LF / CR line ends), with delimiter detection.
-// Hand-written because no CSV package is installed; small enough to test fully.
+// CSV text → records with csv-parse (RFC 4180 quoting, CRLF / LF / CR line ends), with delimiter detection.
+// Every CSV the app and the tests read goes through csv-parse; this file adds the row and line numbers a person
+// needs to find a record, and messages that say what to fix.
+import { CsvError, parse } from 'csv-parse/sync'
 
 export type CsvDelimiter = ',' | ';' | '\t'
 
@@ -15,19 +17,42 @@ export type CsvParseResult
   = | { ok: true, records: CsvRecord[] }
     | { ok: false, row: number, line: number, message: string }
 
-/** Picks the delimiter that splits the first line (outside quotes) most often; ',' on a tie. */
+const LINE_BREAK = /\r\n|\r|\n/g
+const lineBreaks = (text: string) => text.match(LINE_BREAK)?.length ?? 0
+
+/** csv-parse, as the catalogue reads CSV: blanks before an opening quote dropped, stray quotes kept as text. */
+function records(text: string, delimiter: CsvDelimiter, to?: number) {
+  return parse(text, { delimiter, relax_column_count: true, relax_quotes: true, ltrim: true, bom: true, info: true, ...(to === undefined ? {} : { to }) }) as unknown as { info: { lines: number }, record: string[] }[]
+}
+
+/** Picks the delimiter that splits the first record into the most cells; ',' on a tie. */
 export function detectDelimiter(text: string): CsvDelimiter {
-  const counts: Record<CsvDelimiter, number> = { ',': 0, ';': 0, '\t': 0 }
-  let quoted = false
-  for (let i = 0; i < text.length; i++) {
-    const ch = text[i]!
-    if (ch === '"') quoted = !quoted
-    else if (!quoted && (ch === '\n' || ch === '\r')) break
-    else if (!quoted && (ch === ',' || ch === ';' || ch === '\t')) counts[ch]++
+  const cellsWith = (d: CsvDelimiter) => {
+    try { return records(text, d, 1)[0]?.record.length ?? 0 }
+    catch { return 0 }
   }
   let best: CsvDelimiter = ','
-  for (const d of ['\t', ';'] as const) if (counts[d] > counts[best]) best = d
+  let most = cellsWith(',')
+  for (const d of ['\t', ';'] as const) {
+    const n = cellsWith(d)
+    if (n > most) { best = d; most = n }
+  }
   return best
+}
+
+/** The line of the quote left open in the record that starts on `startLine`. */
+function openQuoteLine(text: string, startLine: number): number {
+  const lines = text.split(LINE_BREAK).slice(startLine - 1)
+  let open = startLine
+  let quoted = false
+  lines.forEach((line, i) => {
+    for (const ch of line) {
+      if (ch !== '"') continue
+      quoted = !quoted
+      if (quoted) open = startLine + i
+    }
+  })
+  return open
 }
 
 /**
@@ -35,60 +60,20 @@ export function detectDelimiter(text: string): CsvDelimiter {
  * (the caller reports the limit).
  */
 export function parseCsv(text: string, delimiter: CsvDelimiter, maxRecords = Infinity): CsvParseResult {
-  const records: CsvRecord[] = []
-  let cells: string[] = []
-  let cell = ''
-  let line = 1
-  let recordLine = 1
-  let quoted = false
-  let quoteStartLine = 0
-  let cellWasQuoted = false
-  const endCell = () => {
-    cells.push(cell)
-    cell = ''
-    cellWasQuoted = false
+  try {
+    const parsed = records(text, delimiter, Number.isFinite(maxRecords) ? maxRecords + 1 : undefined)
+    // csv-parse counts the line a record ends on; the record starts as many line breaks earlier as its cells hold
+    return { ok: true, records: parsed.map((r, i) => ({ rowNumber: i + 1, line: r.info.lines - lineBreaks(r.record.join('')), cells: r.record })) }
   }
-  const endRecord = () => {
-    endCell()
-    records.push({ rowNumber: records.length + 1, line: recordLine, cells })
-    cells = []
-  }
-  for (let i = 0; i < text.length; i++) {
-    const ch = text[i]!
-    if (quoted) {
-      if (ch === '"') {
-        if (text[i + 1] === '"') {
-          cell += '"'
-          i++
-        }
-        else quoted = false
-      }
-      else {
-        if (ch === '\n' || (ch === '\r' && text[i + 1] !== '\n')) line++
-        cell += ch
-      }
-      continue
+  catch (err) {
+    if (!(err instanceof CsvError)) throw err
+    const done = (err as CsvError & { records?: number }).records ?? 0
+    const before = done > 0 ? records(text, delimiter, done).at(-1)?.info.lines ?? 0 : 0
+    const row = done + 1
+    if (err.code === 'CSV_QUOTE_NOT_CLOSED') {
+      const line = openQuoteLine(text, before + 1)
+      return { ok: false, row, line, message: `a quoted cell opened on line ${line} is never closed (a '"' is missing)` }
     }
-    if (ch === '"' && cell.trim() === '' && !cellWasQuoted) {
-      // An opening quote: whitespace before it is dropped.
-      quoted = true
-      cellWasQuoted = true
-      quoteStartLine = line
-      cell = ''
-    }
-    else if (ch === delimiter) endCell()
-    else if (ch === '\r' || ch === '\n') {
-      if (ch === '\r' && text[i + 1] === '\n') i++
-      endRecord()
-      if (records.length > maxRecords) return { ok: true, records }
-      line++
-      recordLine = line
-    }
-    else cell += ch
+    return { ok: false, row, line: before + 1, message: `the text cannot be read as CSV (${err.message}); save the sheet again as CSV` }
   }
-  if (quoted) {
-    return { ok: false, row: records.length + 1, line: quoteStartLine, message: `a quoted cell opened on line ${quoteStartLine} is never closed (a '"' is missing)` }
-  }
-  if (cell !== '' || cells.length > 0 || cellWasQuoted) endRecord()
-  return { ok: true, records }
 }

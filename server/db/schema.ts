@@ -1,9 +1,16 @@
 // All tables of Stratavolt. drizzle-kit generates the SQL migrations in drizzle/ from this file.
 import { sql } from 'drizzle-orm'
 import {
-  boolean, doublePrecision, index, integer, jsonb, pgTable, serial, text, timestamp, uniqueIndex,
+  boolean, doublePrecision, index, integer, jsonb, numeric, pgTable, serial, text, timestamp, uniqueIndex,
+  type AnyPgColumn,
 } from 'drizzle-orm/pg-core'
 import type { ImportSettings } from '../../shared/catalog/types'
+
+/**
+ * Money in the database: exact decimals, six places (prices are quoted in fractions of a cent). The app holds
+ * money as a JS number rounded to those six places (shared/utils/money.ts); drizzle converts at the edge.
+ */
+const money = (name: string) => numeric(name, { precision: 18, scale: 6, mode: 'number' })
 
 const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 
@@ -142,10 +149,18 @@ export const parts = pgTable('parts', {
   id: serial('id').primaryKey(),
   manufacturer: text('manufacturer').notNull(),
   partNumber: text('part_number').notNull(),
+  /** partKey(manufacturer, partNumber) from shared/catalog/part-key.ts: the part's identity, written by the app. */
+  key: text('key').notNull(),
+  /**
+   * Set by the re-keying migration (0008) on a part whose new key another, older part already had: the two were
+   * one part under different spellings. Left for a component engineer to resolve (audit log: "Part key conflict"),
+   * never merged silently; imports and look-ups by key find the older part.
+   */
+  keyConflictWith: integer('key_conflict_with').references((): AnyPgColumn => parts.id, { onDelete: 'set null' }),
   currentVersionId: integer('current_version_id'),
   approved: boolean('approved').notNull().default(false),
   createdAt: createdAt(),
-}, t => [uniqueIndex('parts_key').on(sql`lower(${t.manufacturer})`, sql`lower(${t.partNumber})`)])
+}, t => [uniqueIndex('parts_key').on(t.key).where(sql`${t.keyConflictWith} is null`)])
 
 /**
  * One row (id 1): `generation` goes up with every committed change to parts or part_versions (statement
@@ -168,7 +183,7 @@ export const partVersions = pgTable('part_versions', {
   packageConfig: text('package_config').notNull(),
   voltageRating: doublePrecision('voltage_rating'),
   currentRating: doublePrecision('current_rating'),
-  unitPrice: doublePrecision('unit_price'),
+  unitPrice: money('unit_price'),
   currency: text('currency'),
   stock: integer('stock'),
   leadTimeDays: integer('lead_time_days'),
@@ -255,7 +270,7 @@ export const bomPurchaseLines = pgTable('bom_purchase_lines', {
   bomId: integer('bom_id').notNull().references(() => boms.id, { onDelete: 'cascade' }),
   lineKey: text('line_key').notNull(),
   supplier: text('supplier'),
-  quotedUnitPrice: doublePrecision('quoted_unit_price'),
+  quotedUnitPrice: money('quoted_unit_price'),
   orderReference: text('order_reference'),
   // Purchasing line status: to-quote | quoted | ordered | confirmed | received, with the date of each step.
   status: text('status').notNull().default('to-quote'),

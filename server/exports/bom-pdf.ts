@@ -5,8 +5,7 @@ import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interface
 import type { BomLine, BomPurchase, BomSnapshot } from '../../shared/bom/types'
 import { gateMark } from '../../shared/bom/gates'
 import { openLinesBySupplier, supplierOf } from '../../shared/bom/purchase'
-import { count, DEFAULT_LOCALE, formatNumber as formatDecimal } from '../../shared/utils/format'
-import { formatDateTime, formatMoney, formatPieces, formatUnitPrice } from './format'
+import { count, DEFAULT_LOCALE, formatDateTime, formatInteger, formatMoney, formatNumber as formatDecimal, formatUnitPrice } from '../../shared/utils/format'
 import { PDF_STYLES, TABLE_LAYOUT, heading, keepHeadingsWithContent, pageFrame, renderPdf, safetyBox, type PdfFonts } from './pdf'
 
 export { loadFonts, loadFontsFromNodeModules, type PdfFonts } from './pdf'
@@ -21,7 +20,7 @@ function num(text: string, extra: Record<string, unknown> = {}): TableCell {
 
 /** Currency shown beside the number only when the line differs from the BOM currency. */
 function price(value: number | null, line: BomLine, bomCurrency: string, locale: string, unit = false): string {
-  const text = unit ? formatUnitPrice(value, locale) : formatMoney(value, locale)
+  const text = unit ? formatUnitPrice(value, locale) : formatMoney(value, null, locale)
   return value !== null && line.currency !== bomCurrency ? `${text} ${line.currency}` : text
 }
 
@@ -39,19 +38,19 @@ function linesTable(snapshot: BomSnapshot, locale: string): Content {
     body.push([
       num(String(i + 1)), { text: line.partNumber || '—' }, { text: line.manufacturer || '—' }, { stack: description },
       { text: line.references.join(', '), fontSize: 6.5 },
-      num(formatPieces(line.quantityPerUnit, locale)), num(formatPieces(line.quantityBuild, locale)), num(formatPieces(line.quantitySpares, locale)),
-      num(formatPieces(line.quantityOrder, locale), { bold: true }), num(formatPieces(line.priceBreakQuantity, locale)),
+      num(formatInteger(line.quantityPerUnit, locale)), num(formatInteger(line.quantityBuild, locale)), num(formatInteger(line.quantitySpares, locale)),
+      num(formatInteger(line.quantityOrder, locale), { bold: true }), num(formatInteger(line.priceBreakQuantity, locale)),
       num(price(line.unitPrice, line, cur, locale, true)), num(price(line.extendedPrice, line, cur, locale)),
-      num(formatPieces(line.leadTimeDays, locale)), { text: line.lifecycle ?? '—' },
+      num(formatInteger(line.leadTimeDays, locale)), { text: line.lifecycle ?? '—' },
     ])
   })
   const t = snapshot.totals
   const sum = (pick: (l: BomLine) => number) => snapshot.lines.reduce((a, l) => a + pick(l), 0)
   body.push([
     { text: `Total, ${t.lines} lines`, bold: true, colSpan: 5 }, '', '', '', '',
-    num(formatPieces(sum(l => l.quantityPerUnit), locale), { bold: true }), num(formatPieces(sum(l => l.quantityBuild), locale), { bold: true }),
-    num(formatPieces(sum(l => l.quantitySpares), locale), { bold: true }), num(formatPieces(t.pieces, locale), { bold: true }), '', '',
-    num(`${formatMoney(t.extendedPrice, locale)} ${cur}`, { bold: true, colSpan: 2 }), '', '',
+    num(formatInteger(sum(l => l.quantityPerUnit), locale), { bold: true }), num(formatInteger(sum(l => l.quantityBuild), locale), { bold: true }),
+    num(formatInteger(sum(l => l.quantitySpares), locale), { bold: true }), num(formatInteger(t.pieces, locale), { bold: true }), '', '',
+    num(`${formatMoney(t.extendedPrice, null, locale)} ${cur}`, { bold: true, colSpan: 2 }), '', '',
   ])
   return {
     table: {
@@ -81,10 +80,10 @@ function purchaseTable(snapshot: BomSnapshot, purchase: BomPurchase, locale: str
   for (const { line, i, p } of rows) {
     const quoted = p!.quotedUnitPrice ?? null
     const quoteCurrency = p!.quoteCurrency ?? line.currency
-    const quotedText = (v: number | null, unit: boolean) => (v === null ? '—' : `${unit ? formatUnitPrice(v, locale) : formatMoney(v, locale)}${quoteCurrency !== cur ? ` ${quoteCurrency}` : ''}`)
+    const quotedText = (v: number | null, unit: boolean) => (v === null ? '—' : `${unit ? formatUnitPrice(v, locale) : formatMoney(v, null, locale)}${quoteCurrency !== cur ? ` ${quoteCurrency}` : ''}`)
     const status = p!.status ?? 'to-quote'
     body.push([
-      num(String(i + 1)), { text: line.partNumber || line.description }, { text: p!.supplier ?? '—' }, num(formatPieces(line.quantityOrder, locale)),
+      num(String(i + 1)), { text: line.partNumber || line.description }, { text: p!.supplier ?? '—' }, num(formatInteger(line.quantityOrder, locale)),
       num(quotedText(quoted, true)), num(quotedText(quoted === null ? null : quoted * line.quantityOrder, false)), { text: p!.orderReference ?? '—' },
       { text: `${status}${p!.statusDates?.[status] ? ` (${p!.statusDates[status]})` : ''}` }, { text: p!.promisedDelivery ?? '—' },
     ])
@@ -98,7 +97,7 @@ function purchaseTable(snapshot: BomSnapshot, purchase: BomPurchase, locale: str
 function positionsTable(snapshot: BomSnapshot, locale: string): Content {
   const body: TableCell[][] = [[header('Side'), header('Position'), header('Manufacturer'), header('Part number'), header('Per converter set [pcs]', 'right'), header('In series [pcs]', 'right'), header('In parallel [pcs]', 'right'), header('Covered by')]]
   for (const p of snapshot.positions) {
-    body.push([{ text: p.side }, { text: p.position }, { text: p.manufacturer }, { text: p.partNumber }, num(formatPieces(p.perConverter, locale)), num(formatPieces(p.seriesCount, locale)), num(formatPieces(p.parallelCount, locale)), { text: p.coveredBy ? `module at ${p.coveredBy}` : '' }])
+    body.push([{ text: p.side }, { text: p.position }, { text: p.manufacturer }, { text: p.partNumber }, num(formatInteger(p.perConverter, locale)), num(formatInteger(p.seriesCount, locale)), num(formatInteger(p.parallelCount, locale)), { text: p.coveredBy ? `module at ${p.coveredBy}` : '' }])
   }
   return { table: { headerRows: 1, dontBreakRows: true, widths: [50, 60, 140, 110, 70, 50, 50, '*'], body }, layout: TABLE_LAYOUT }
 }
@@ -113,7 +112,7 @@ export async function bomToPdf(full: BomSnapshot, fonts: PdfFonts, purchase: Bom
   const summary: TableCell[][] = [
     [header('Design'), { text: `${snapshot.designName}, revision ${snapshot.designRevision}` }, header('BOM revision'), { text: String(snapshot.revision) }],
     [header('Topology'), { text: snapshot.topologySummary }, header('Released'), { text: `${formatDateTime(snapshot.releasedAt, locale)} by ${snapshot.releasedBy}` }],
-    [header('Build quantity'), { text: `${formatPieces(snapshot.buildQuantity, locale)} sets, spares ${snapshot.sparesPercent} %` }, header('Total'), { text: `${formatMoney(snapshot.totals.extendedPrice, locale)} ${snapshot.currency}`, bold: true }],
+    [header('Build quantity'), { text: `${formatInteger(snapshot.buildQuantity, locale)} sets, spares ${snapshot.sparesPercent} %` }, header('Total'), { text: `${formatMoney(snapshot.totals.extendedPrice, null, locale)} ${snapshot.currency}`, bold: true }],
   ]
   const designRows: TableCell[][] = snapshot.designSummary.map(([label, value, unit]) => [{ text: label }, num(typeof value === 'number' ? formatDecimal(value, locale) : value), { text: unit }])
 

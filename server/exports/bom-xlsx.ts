@@ -8,6 +8,7 @@ import { diffBoms } from '../../shared/bom/diff'
 import { gateMark } from '../../shared/bom/gates'
 import { openLinesBySupplier, stockShortfall } from '../../shared/bom/purchase'
 import { count, DEFAULT_LOCALE, formatDateTime } from '../../shared/utils/format'
+import { extendedPrice, roundMoney } from '../../shared/utils/money'
 
 export interface BomXlsxOptions {
   /** the previous release: adds the "Changes" sheet */
@@ -31,11 +32,6 @@ interface Column {
 const QTY = '#,##0'
 const PRICE = '#,##0.00##'
 const MONEY = '#,##0.00'
-
-/** Round away binary noise so the cached result equals what the spreadsheet computes to the cent. */
-function money(value: number): number {
-  return Math.round(value * 1e6) / 1e6
-}
 
 /** Every text cell goes through here: formula-looking text is neutralised. */
 function text(value: string | null | undefined): string | null {
@@ -64,7 +60,7 @@ function bomColumns(currency: string, letter: (key: string) => string): Record<s
     currency: { header: 'Currency', width: 9, value: l => text(l.currency) },
     extendedPrice: {
       header: `Extended price [${currency}]`, width: 15, numFmt: MONEY,
-      value: (l, _p, row) => l.unitPrice === null ? null : { formula: `${letter('quantityOrder')}${row}*${letter('unitPrice')}${row}`, result: money(l.unitPrice * l.quantityOrder) },
+      value: (l, _p, row) => l.unitPrice === null ? null : { formula: `${letter('quantityOrder')}${row}*${letter('unitPrice')}${row}`, result: extendedPrice(l.unitPrice, l.quantityOrder) },
     },
     moq: { header: 'MOQ [pcs]', width: 10, numFmt: QTY, value: l => l.moq },
     leadTime: { header: 'Lead time [days]', width: 10, numFmt: '0', value: l => l.leadTimeDays },
@@ -77,7 +73,7 @@ function bomColumns(currency: string, letter: (key: string) => string): Record<s
     quotedUnitPrice: { header: `Quoted unit price [${currency}]`, width: 14, numFmt: PRICE, value: (_l, p) => p?.quotedUnitPrice ?? null },
     quotedExtended: {
       header: `Quoted extended [${currency}]`, width: 15, numFmt: MONEY,
-      value: (l, p, row) => p?.quotedUnitPrice == null ? null : { formula: `${letter('quantityOrder')}${row}*${letter('quotedUnitPrice')}${row}`, result: money(p.quotedUnitPrice * l.quantityOrder) },
+      value: (l, p, row) => p?.quotedUnitPrice == null ? null : { formula: `${letter('quantityOrder')}${row}*${letter('quotedUnitPrice')}${row}`, result: extendedPrice(p.quotedUnitPrice, l.quantityOrder) },
     },
     orderReference: { header: 'Order reference', width: 18, value: (_l, p) => text(p?.orderReference) },
     quoteCurrency: { header: 'Quote currency', width: 9, value: (l, p) => p?.quotedUnitPrice == null ? null : text(p?.quoteCurrency ?? l.currency) },
@@ -147,7 +143,7 @@ function addBomSheet(workbook: ExcelJS.Workbook, snapshot: BomSnapshot, purchase
   // Only lines in the BOM currency add up to the total; others are never converted.
   const sumInCurrency = (key: string, values: (number | null)[]) => ({
     formula: `SUMIF(${range('currency')},"${snapshot.currency.replace(/"/g, '')}",${range(key)})`,
-    result: money(values.reduce<number>((a, v, i) => (v !== null && snapshot.lines[i]!.currency === snapshot.currency ? a + v : a), 0)),
+    result: roundMoney(values.reduce<number>((a, v, i) => (v !== null && snapshot.lines[i]!.currency === snapshot.currency ? a + v : a), 0)),
   })
   totalsRow.getCell(letterOf('description')).value = `Total (${snapshot.totals.lines} lines)`
   totalsRow.getCell(letterOf('quantityPerUnit')).value = sumOf('quantityPerUnit', snapshot.lines.map(l => l.quantityPerUnit))

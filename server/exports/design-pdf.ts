@@ -3,7 +3,7 @@
 // route decides what goes in; SI units in every column header.
 
 import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces'
-import { formatDateTime, formatNumber } from './format'
+import { formatDateTime, formatNumber } from '../../shared/utils/format'
 import { PDF_STYLES, TABLE_LAYOUT, heading, keepHeadingsWithContent, pageFrame, renderPdf, safetyBox, selfContainedSvg, type PdfFonts } from './pdf'
 
 export { loadFonts, loadFontsFromNodeModules, type PdfFonts } from './pdf'
@@ -147,7 +147,7 @@ function check(report: DesignReport): void {
 }
 
 const h = (text: string, alignment: 'left' | 'right' = 'right'): TableCell => ({ text, bold: true, alignment })
-const cellIn = (locale: string | undefined) => (value: number | null | undefined, digits: number): TableCell => ({ text: formatNumber(value, digits, locale), alignment: 'right' })
+const cellIn = (locale: string | undefined) => (value: number | null | undefined, digits: number): TableCell => ({ text: formatNumber(value, locale, { decimals: digits }), alignment: 'right' })
 
 function table(widths: (number | string)[], head: TableCell[], rows: TableCell[][]): Content {
   return { table: { headerRows: 1, dontBreakRows: true, widths, body: [head, ...rows] }, layout: TABLE_LAYOUT }
@@ -164,7 +164,7 @@ function operatingPointsTable(report: DesignReport): Content {
   return table(['*', 60, 55, 40, 45, 40, 45],
     [h('Operating point', 'left'), h('V line RMS [V]'), h('I phase RMS [A]'), h('PF'), h('f [Hz]'), h('m'), h('THD [%]')],
     report.operatingPoints.map(p => [
-      { text: p.name }, n(p.lineVoltageRms, 0), n(p.phaseCurrentRms, 1), p.powerFactorSense === 'leading' ? { text: `${formatNumber(p.powerFactor, 2)} lead`, alignment: 'right' } : n(p.powerFactor, 2), n(p.fundamentalHz, 1),
+      { text: p.name }, n(p.lineVoltageRms, 0), n(p.phaseCurrentRms, 1), p.powerFactorSense === 'leading' ? { text: `${formatNumber(p.powerFactor, undefined, { decimals: 2 })} lead`, alignment: 'right' } : n(p.powerFactor, 2), n(p.fundamentalHz, 1),
       n(p.modulationIndex, 3), n(p.lineVoltageThd == null ? null : p.lineVoltageThd * 100, 1),
     ]))
 }
@@ -248,13 +248,13 @@ function waveformSection(report: DesignReport): Content[] {
   const peakOf = (values: number[]) => values.reduce((m, v) => Math.max(m, Math.abs(v)), 0)
   const peakV = peakOf(w.lineVoltage)
   const traces: Trace[] = [{ values: w.lineVoltage, colour: '#111827' }]
-  let legend = `Black: line-to-line voltage, ±${formatNumber(peakV, 0, report.locale)} V full scale`
+  let legend = `Black: line-to-line voltage, ±${formatNumber(peakV, report.locale, { decimals: 0 })} V full scale`
   if (w.phaseCurrent) {
     const peakI = peakOf(w.phaseCurrent)
     traces.push({ values: w.phaseCurrent, colour: '#b45309', dashed: true })
-    legend += `; orange dashed: phase current, ±${formatNumber(peakI, 1, report.locale)} A full scale`
+    legend += `; orange dashed: phase current, ±${formatNumber(peakI, report.locale, { decimals: 1 })} A full scale`
   }
-  legend += `; time axis ${formatNumber((w.time.at(-1)! - w.time[0]!) * 1000, 2, report.locale)} ms, quarter divisions.`
+  legend += `; time axis ${formatNumber((w.time.at(-1)! - w.time[0]!) * 1000, report.locale, { decimals: 2 })} ms, quarter divisions.`
   return [
     heading(w.title ? `Waveform: ${w.title}` : 'Waveform'),
     { stack: [{ svg: waveformSvg(w.time, traces), width: 500 }, { text: legend, style: 'small', margin: [0, 2, 0, 0] }], unbreakable: true },
@@ -267,7 +267,7 @@ function spectrumSection(report: DesignReport): Content[] {
   const out: Content[] = []
   if (lines.length === 0 && report.lineVoltageThd == null) return out
   out.push(heading('Line-voltage spectrum'))
-  if (report.lineVoltageThd != null) out.push({ text: `Total harmonic distortion of the line voltage (THD, full band): ${formatNumber(report.lineVoltageThd * 100, 1, report.locale)} %`, margin: [0, 0, 0, 4] })
+  if (report.lineVoltageThd != null) out.push({ text: `Total harmonic distortion of the line voltage (THD, full band): ${formatNumber(report.lineVoltageThd * 100, report.locale, { decimals: 1 })} %`, margin: [0, 0, 0, 4] })
   if (lines.length === 0) return out
   const fundamental = lines.find(l => l.order === 1)?.amplitude
   const shown = lines.length > MAX_SPECTRUM_ROWS
@@ -279,7 +279,7 @@ function spectrumSection(report: DesignReport): Content[] {
   return out
 }
 
-const hoursText = (h: number, locale?: string) => (Number.isFinite(h) ? `${formatNumber(Math.round(h), 0, locale)} h` : 'no cycling')
+const hoursText = (h: number, locale?: string) => (Number.isFinite(h) ? `${formatNumber(Math.round(h), locale, { decimals: 0 })} h` : 'no cycling')
 
 /** Page 1: the figures a review signs off, the assumptions, and the signature block. */
 function reviewSummary(report: DesignReport, e: ReportEvaluation): Content[] {

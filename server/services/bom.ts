@@ -10,8 +10,7 @@ import { slotsPerPackage } from '#shared/catalog/matching'
 import { sees, type Role } from '#shared/roles'
 import { topologyById, type DesignInput, type DesignResult } from '#shared/engine'
 import type { BomSettings } from '#shared/schemas/design'
-import { formatSi } from '#shared/utils/si'
-import { count, formatMoney } from '#shared/utils/format'
+import { count, formatMoney, formatSi } from '#shared/utils/format'
 import demo from '../db/demo-accounts.json'
 import { legPositions, matchDesign, type PositionMatch } from './parts'
 import { renderBomPdf } from '../workers/pool'
@@ -318,11 +317,13 @@ export async function bomsUsingPart(partId: number) {
   const db = useDb()
   const [part] = await db.select().from(tables.parts).where(eq(tables.parts.id, partId))
   if (!part) throw createError({ statusCode: 404, message: 'No such part.' })
-  const key = `${part.manufacturer.trim().toUpperCase()}|${part.partNumber.trim().toUpperCase()}`
+  // releases keep the line keys they were written with: match those and what the line names, re-keyed
+  const key = part.key
   const released = await db.execute<{ id: number, design_id: number, design_name: string, revision: number, status: string, quantity_order: number }>(sql`
     select b.id, b.design_id, d.name as design_name, b.revision, b.status, (l->>'quantityOrder')::int as quantity_order
     from boms b join designs d on d.id = b.design_id, jsonb_array_elements(b.snapshot->'lines') l
-    where l->>'key' = ${key} order by d.name, b.revision`)
+    where not coalesce((l->>'manual')::boolean, false)
+      and (l->>'key' = ${key} or stratavolt_part_key(l->>'manufacturer', l->>'partNumber') = ${key}) order by d.name, b.revision`)
   const drafts = await db.execute<{ design_id: number, design_name: string, positions: string[] }>(sql`
     select d.id as design_id, d.name as design_name, array_agg(a.side || ' ' || a.position order by a.side, a.position) as positions
     from part_assignments a join part_versions v on v.id = a.part_version_id join designs d on d.id = a.design_id

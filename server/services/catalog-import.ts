@@ -8,6 +8,7 @@ import { normaliseHeader, suggestMapping, checkMapping } from '#shared/catalog/m
 import { validateRows } from '#shared/catalog/validate'
 import { detectDecimalSeparators, normaliseValue, type ColumnSeparator, type ValueMapping } from '#shared/catalog/values'
 import { changedFields, mergeIncoming, type FieldChange } from '#shared/catalog/merge'
+import { partKey } from '#shared/catalog/part-key'
 import type { ColumnKey, ColumnMapping, ImportSettings, RawTable } from '#shared/catalog/types'
 import type { DecimalSeparator } from '#shared/catalog/units'
 import type { UnknownValue } from '#shared/catalog/validate'
@@ -203,7 +204,7 @@ export async function changesAgainstCatalogue(parts: ReturnType<typeof previewOf
   let changedCount = 0
   const changes: PartChange[] = []
   for (const part of parts) {
-    const found = existing.get(`${part.manufacturer.trim().toLowerCase()}\u0000${part.partNumber.trim().toLowerCase()}`)
+    const found = existing.get(partKey(part.manufacturer, part.partNumber))
     if (!found?.data) {
       added++
       continue

@@ -4,23 +4,25 @@ import { eq, inArray, isNotNull, sql } from 'drizzle-orm'
 import type { CatalogPart, ColumnKey } from '#shared/catalog/types'
 import { canonical, mergeIncoming, storedPart, type ImportedPart } from '#shared/catalog/merge'
 import { openSharedIndex, sharePartIndex, type PartIndex, type SharedPartIndex } from '#shared/catalog/matching'
+import { partKey } from '#shared/catalog/part-key'
 
 const BATCH = 2000
 
-const key = (manufacturer: string, partNumber: string) => `${manufacturer.trim().toLowerCase()}\u0000${partNumber.trim().toLowerCase()}`
-
 export interface ExistingPart { id: number, manufacturer: string, partNumber: string, approved: boolean, data: CatalogPart | null }
 
-/** The current version of the parts with these makers and part numbers (by the parts_key index, not a scan). */
+/**
+ * The current version of the parts with these makers and part numbers, by partKey() (the parts_key index, not a
+ * scan); the map is keyed by partKey(). A part the re-keying found to repeat an older one is never returned.
+ */
 export async function currentVersionsOf(db: Db | Tx, keys: readonly Pick<CatalogPart, 'manufacturer' | 'partNumber'>[]): Promise<Map<string, ExistingPart>> {
   if (keys.length === 0) return new Map()
-  const wanted = JSON.stringify(keys.map(k => ({ m: k.manufacturer.toLowerCase(), n: k.partNumber.toLowerCase() })))
-  const rows = await db.execute<{ id: number, manufacturer: string, part_number: string, approved: boolean, data: CatalogPart | null }>(sql`
-    select distinct p.id, p.manufacturer, p.part_number, p.approved, v.data
-    from jsonb_to_recordset(${wanted}::jsonb) as x(m text, n text)
-    join parts p on lower(p.manufacturer) = x.m and lower(p.part_number) = x.n
+  const wanted = JSON.stringify([...new Set(keys.map(k => partKey(k.manufacturer, k.partNumber)))])
+  const rows = await db.execute<{ id: number, key: string, manufacturer: string, part_number: string, approved: boolean, data: CatalogPart | null }>(sql`
+    select p.id, p.key, p.manufacturer, p.part_number, p.approved, v.data
+    from jsonb_array_elements_text(${wanted}::jsonb) as x(k)
+    join parts p on p.key = x.k and p.key_conflict_with is null
     left join part_versions v on v.id = p.current_version_id`)
-  return new Map(rows.map(r => [key(r.manufacturer, r.part_number), { id: r.id, manufacturer: r.manufacturer, partNumber: r.part_number, approved: r.approved, data: r.data }]))
+  return new Map(rows.map(r => [r.key, { id: r.id, manufacturer: r.manufacturer, partNumber: r.part_number, approved: r.approved, data: r.data }]))
 }
 
 /** Columns of part_versions that the parts browser filters and sorts on. */
@@ -68,7 +70,7 @@ export async function commitParts(tx: Tx, incoming: ImportedPart[], meta: { user
   const fresh: CatalogPart[] = []
   const changed: { partId: number, part: CatalogPart }[] = []
   for (const raw of incoming) {
-    const found = byKey.get(key(raw.manufacturer, raw.partNumber))
+    const found = byKey.get(partKey(raw.manufacturer, raw.partNumber))
     const part = found?.data && meta.carried ? mergeIncoming(found.data as CatalogPart, raw, meta.carried) : storedPart(raw)
     if (!found) fresh.push(part)
     else if (canonical(found.data) !== canonical(part)) changed.push({ partId: found.id, part })
@@ -83,13 +85,13 @@ export async function commitParts(tx: Tx, incoming: ImportedPart[], meta: { user
   // multi-row VALUES list, which is what makes a 20 000-part import fast.
   for (let i = 0; i < fresh.length; i += BATCH) {
     const slice = fresh.slice(i, i + BATCH)
-    const rows = slice.map(p => ({ manufacturer: p.manufacturer, part_number: p.partNumber }))
-    const inserted = await tx.execute<{ id: number, manufacturer: string, part_number: string }>(sql`
-      insert into parts (manufacturer, part_number, approved)
-      select x.manufacturer, x.part_number, ${meta.approve} from jsonb_to_recordset(${JSON.stringify(rows)}::jsonb) as x(manufacturer text, part_number text)
-      returning id, manufacturer, part_number`)
-    const ids = new Map(inserted.map(r => [key(r.manufacturer, r.part_number), r.id]))
-    for (const p of slice) changed.push({ partId: ids.get(key(p.manufacturer, p.partNumber))!, part: p })
+    const rows = slice.map(p => ({ manufacturer: p.manufacturer, part_number: p.partNumber, key: partKey(p.manufacturer, p.partNumber) }))
+    const inserted = await tx.execute<{ id: number, key: string }>(sql`
+      insert into parts (manufacturer, part_number, key, approved)
+      select x.manufacturer, x.part_number, x.key, ${meta.approve} from jsonb_to_recordset(${JSON.stringify(rows)}::jsonb) as x(manufacturer text, part_number text, key text)
+      returning id, key`)
+    const ids = new Map(inserted.map(r => [r.key, r.id]))
+    for (const [j, p] of slice.entries()) changed.push({ partId: ids.get(rows[j]!.key)!, part: p })
     added += slice.length
     await meta.onProgress?.(added, units)
   }
@@ -110,7 +112,7 @@ export async function commitParts(tx: Tx, incoming: ImportedPart[], meta: { user
       with inserted as (
         insert into part_versions (part_id, catalog_version_id, part_number, manufacturer, kind, package_config, voltage_rating, current_rating, unit_price, currency, stock, lead_time_days, lifecycle, data, is_current)
         select x.part_id, ${version!.id}, x.part_number, x.manufacturer, x.kind, x.package_config, x.voltage_rating, x.current_rating, x.unit_price, x.currency, x.stock, x.lead_time_days, x.lifecycle, x.data, true
-        from jsonb_to_recordset(${JSON.stringify(rows)}::jsonb) as x(part_id int, part_number text, manufacturer text, kind text, package_config text, voltage_rating float8, current_rating float8, unit_price float8, currency text, stock int, lead_time_days int, lifecycle text, data jsonb)
+        from jsonb_to_recordset(${JSON.stringify(rows)}::jsonb) as x(part_id int, part_number text, manufacturer text, kind text, package_config text, voltage_rating float8, current_rating float8, unit_price numeric, currency text, stock int, lead_time_days int, lifecycle text, data jsonb)
         returning id, part_id
       )
       update parts set current_version_id = inserted.id from inserted where parts.id = inserted.part_id`)

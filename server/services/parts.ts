@@ -11,7 +11,7 @@ import type { BomSettings } from '#shared/schemas/design'
 import { efficiencyAt, headlinePoint, pointDutiesOf, totalsPerPoint } from '#shared/thermal/losses'
 import { designThermal, type ChoiceThermal, type DesignThermal, type ThermalPosition } from '#shared/thermal/design'
 import type { ReportEvaluation } from '../exports/design-pdf'
-import { formatNumber } from '../exports/format'
+import { formatNumber } from '#shared/utils/format'
 import { currentCatalogue, partVersionsById } from './catalog'
 import { loadDesign } from './designs'
 import { runInPool } from '../workers/pool'
@@ -317,7 +317,7 @@ const round1 = (v: number) => Math.round(v * 10) / 10
 export function reportEvaluation(match: Awaited<ReturnType<typeof matchDesign>>, locale?: string): ReportEvaluation {
   const { positions, summary, thermal, result } = match
   const d = result.derating
-  const num = (v: number, digits: number) => formatNumber(v, digits, locale)
+  const num = (v: number, digits: number) => formatNumber(v, locale, { decimals: digits })
   const pct = (v: number) => `${num(v * 100, 1)} %`
   const derating: [string, string][] = [
     ['Semiconductor voltage utilisation', pct(d.semiconductorVoltageUtilisation)],

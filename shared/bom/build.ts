@@ -2,6 +2,9 @@
 // quantity, spares, MOQ and price breaks. Pure functions over plain data; quantities in pieces,
 // money per piece in the part's currency.
 
+import { partKey } from '../catalog/part-key'
+import { orderAtBreaks } from '../catalog/prices'
+import { extendedPrice as extendedPriceOf, roundMoney } from '../utils/money'
 import { gateReasons } from './gates'
 import type { BomLine, BomPositionRow, BomSnapshot } from './types'
 
@@ -156,14 +159,9 @@ function ceilPieces(value: number): number {
   return Math.ceil(Math.round(value * 1e9) / 1e9)
 }
 
-/** Money without binary noise (10.8 × 3 = 32.4, not 32.400000000000006); display rounds further. */
-function cleanMoney(value: number): number {
-  return Math.round(value * 1e6) / 1e6
-}
-
-/** Line key: one line per manufacturer + part number, case and surrounding blanks ignored, so it stays stable across revisions. */
+/** Line key: one line per part, by the catalogue's partKey() (so it stays stable across revisions and spellings). */
 export function bomLineKey(manufacturer: string, partNumber: string): string {
-  return `${manufacturer.trim().toUpperCase()}|${partNumber.trim().toUpperCase()}`
+  return partKey(manufacturer, partNumber)
 }
 
 function validWholeNumber(value: unknown, min: number): value is number {
@@ -244,23 +242,10 @@ export interface OrderPricing {
   raisedBy: 'moq' | 'first-price-break' | null
 }
 
-/**
- * Pieces to order and the unit price: order = max(need, MOQ); the price is the highest break not
- * above the order. When even the first break is above the order, the order is raised to it (the
- * supplier sells no fewer), so every priced line has a price that really applies.
- */
+/** The catalogue's price-break rule (orderAtBreaks) in the BOM's terms. */
 export function priceOrder(needed: number, breaks: readonly UnitPriceBreak[], moq: number | null | undefined): OrderPricing {
-  let quantityOrder = Math.max(needed, moq ?? 0)
-  let raisedBy: OrderPricing['raisedBy'] = quantityOrder > needed ? 'moq' : null
-  if (breaks.length === 0) return { quantityOrder, priceBreakQuantity: null, unitPrice: null, raisedBy }
-  const sorted = [...breaks].sort((a, b) => a.quantity - b.quantity)
-  if (sorted[0]!.quantity > quantityOrder) {
-    quantityOrder = sorted[0]!.quantity
-    raisedBy = 'first-price-break'
-  }
-  let applying = sorted[0]!
-  for (const b of sorted) if (b.quantity <= quantityOrder) applying = b
-  return { quantityOrder, priceBreakQuantity: applying.quantity, unitPrice: applying.price, raisedBy }
+  const order = orderAtBreaks(breaks.map(b => ({ minQuantity: b.quantity, unitPrice: b.price })), needed, moq)
+  return { quantityOrder: order.orderQuantity, priceBreakQuantity: order.breakQuantity, unitPrice: order.unitPrice, raisedBy: order.raisedBy }
 }
 
 interface Group {
@@ -427,7 +412,7 @@ function finishLine(identity: LineIdentity, quantityPerUnit: number, input: BomB
     quantityOrder: pricing.quantityOrder,
     priceBreakQuantity: pricing.priceBreakQuantity,
     unitPrice: pricing.unitPrice,
-    extendedPrice: pricing.unitPrice === null ? null : cleanMoney(pricing.unitPrice * pricing.quantityOrder),
+    extendedPrice: pricing.unitPrice === null ? null : extendedPriceOf(pricing.unitPrice, pricing.quantityOrder),
     ...(warnings.length > 0 ? { warnings } : {}),
   }
 }
@@ -444,7 +429,7 @@ export function bomTotals(lines: readonly BomLine[], currency: string): BomSnaps
     else if (line.currency !== currency) otherCurrencyLines++
     else extendedPrice += line.extendedPrice
   }
-  return { lines: lines.length, pieces, extendedPrice: cleanMoney(extendedPrice), unpricedLines, otherCurrencyLines }
+  return { lines: lines.length, pieces, extendedPrice: roundMoney(extendedPrice), unpricedLines, otherCurrencyLines }
 }
 
 /** Everything of a snapshot that does not come from the lines. */

@@ -1,5 +1,7 @@
 // "What changed since the last release": lines added, removed, or with another quantity or price.
 
+import { partKey } from '../catalog/part-key'
+import { DEFAULT_LOCALE, formatNumber } from '../utils/format'
 import type { BomLine, BomSnapshot } from './types'
 
 /** Fields compared between two releases of the same line. */
@@ -37,9 +39,12 @@ const LABELS: Record<BomComparedField, string> = {
   references: 'references',
 }
 
-/** Manual lines are numbered ("manual-3"), so they are matched by what they are, not by number. */
+/**
+ * Part lines are matched by partKey() of what they name (a release written before the key was one function still
+ * matches); manual lines are numbered ("manual-3"), so they are matched by what they are, not by number.
+ */
 function identity(line: BomLine): string {
-  if (!line.manual) return `part:${line.key}`
+  if (!line.manual) return `part:${partKey(line.manufacturer, line.partNumber)}`
   return `manual:${[line.description, line.partNumber, line.manufacturer].map(s => s.trim().toUpperCase()).join('|')}`
 }
 
@@ -54,7 +59,7 @@ function same(a: number | string | null, b: number | string | null): boolean {
 
 function show(field: BomComparedField, v: number | string | null, currency: string): string {
   if (v === null) return '—'
-  if (typeof v === 'number') return field === 'unitPrice' || field === 'extendedPrice' ? `${v.toFixed(2)} ${currency}` : `${v} pcs`
+  if (typeof v === 'number') return field === 'unitPrice' || field === 'extendedPrice' ? `${formatNumber(v, DEFAULT_LOCALE, { decimals: 2, grouping: false })} ${currency}` : `${v} pcs`
   return v === '' ? '—' : v
 }
 

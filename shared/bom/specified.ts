@@ -1,7 +1,7 @@
 // Design positions the catalogue has no kind for (the matrix converter's input filter inductors): one BOM
 // line each with the figures to specify the part by, no part number and no price.
 import type { DesignResult } from '../engine/types'
-import { formatSi } from '../utils/si'
+import { formatSi } from '../utils/format'
 import type { SpecifiedLineInput } from './build'
 
 export function specifiedLines(result: DesignResult | undefined): SpecifiedLineInput[] {

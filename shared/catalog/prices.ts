@@ -52,6 +52,38 @@ export function formatPriceBreaks(breaks: readonly PriceBreak[]): string {
   return breaks.map(b => `${b.minQuantity}:${b.unitPrice.toFixed(2)}`).join('; ')
 }
 
+/** What buying at the price breaks comes to; the one rule behind part matching and the BOM. */
+export interface OrderAtBreaks {
+  /** Pieces to order: at least the need, the MOQ and the first break. */
+  orderQuantity: number
+  /** Per piece, at the break that applies; null when there are no prices. */
+  unitPrice: number | null
+  /** The break that applies (pieces); null when there are no prices. */
+  breakQuantity: number | null
+  /** Why the order exceeds the need, if it does (the MOQ wins when both do). */
+  raisedBy: 'moq' | 'first-price-break' | null
+}
+
+/**
+ * Pieces to order and the unit price: order = max(need, MOQ, first break); the price is that of the largest break
+ * not above the order, so every priced order has a price that really applies. The breaks may come in any order.
+ */
+export function orderAtBreaks(priceBreaks: readonly PriceBreak[], needed: number, minimumOrderQuantity?: number | null): OrderAtBreaks {
+  const wanted = Math.max(0, Math.ceil(needed))
+  let orderQuantity = Math.max(wanted, minimumOrderQuantity ?? 0)
+  let raisedBy: OrderAtBreaks['raisedBy'] = orderQuantity > wanted ? 'moq' : null
+  if (priceBreaks.length === 0) return { orderQuantity, unitPrice: null, breakQuantity: null, raisedBy }
+  let first = priceBreaks[0]!
+  for (const b of priceBreaks) if (b.minQuantity < first.minQuantity) first = b
+  if (first.minQuantity > orderQuantity) {
+    orderQuantity = first.minQuantity
+    raisedBy = 'first-price-break'
+  }
+  let applying = first
+  for (const b of priceBreaks) if (b.minQuantity <= orderQuantity && b.minQuantity > applying.minQuantity) applying = b
+  return { orderQuantity, unitPrice: applying.unitPrice, breakQuantity: applying.minQuantity, raisedBy }
+}
+
 export interface PriceAtQuantity {
   /** per piece */
   unitPrice: number
@@ -63,18 +95,9 @@ export interface PriceAtQuantity {
   raisedToMinimum: boolean
 }
 
-/**
- * Unit price for buying `quantity` pieces: the break with the largest minimum quantity not above it.
- * Below the first break (or the MOQ) the order is raised to that minimum. Null when there are no prices.
- */
+/** orderAtBreaks for part matching: null when there are no prices. */
 export function priceAtQuantity(priceBreaks: readonly PriceBreak[], quantity: number, minimumOrderQuantity = 1): PriceAtQuantity | null {
-  if (priceBreaks.length === 0) return null
-  const wanted = Math.max(0, Math.ceil(quantity))
-  // Do not rely on the order of the breaks: find the smallest and the best applying one.
-  let first = priceBreaks[0]!
-  for (const b of priceBreaks) if (b.minQuantity < first.minQuantity) first = b
-  const orderQuantity = Math.max(wanted, first.minQuantity, minimumOrderQuantity)
-  let applying = first
-  for (const b of priceBreaks) if (b.minQuantity <= orderQuantity && b.minQuantity > applying.minQuantity) applying = b
-  return { unitPrice: applying.unitPrice, breakQuantity: applying.minQuantity, orderQuantity, raisedToMinimum: orderQuantity > wanted }
+  const order = orderAtBreaks(priceBreaks, quantity, minimumOrderQuantity)
+  if (order.unitPrice === null || order.breakQuantity === null) return null
+  return { unitPrice: order.unitPrice, breakQuantity: order.breakQuantity, orderQuantity: order.orderQuantity, raisedToMinimum: order.raisedBy !== null }
 }

@@ -7,6 +7,7 @@ import {
 } from '../../catalog/columns'
 import { fosterProblems } from '../thermal/network'
 import { checkMapping, columnLetter } from './mapping'
+import { partKey } from './part-key'
 import { parsePriceBreaks } from './prices'
 import type { CatalogPart, CellValue, ColumnKey, ColumnMapping, Currency, PriceBreak, RawTable, ValidationIssue } from './types'
 import { parseQuantity, unitScaleFromHeader, type DecimalSeparator } from './units'
@@ -315,7 +316,7 @@ export function validateRows(table: Pick<RawTable, 'headers' | 'rows' | 'headerR
     let dedupeKey: string | undefined
     const fingerprint = JSON.stringify(CATALOG_COLUMNS.map(c => values[c.key] ?? null).concat([kind]))
     if (partNumber && manufacturer) {
-      dedupeKey = `${manufacturer.toLowerCase().replace(/\s+/g, ' ')}\u0000${partNumber.toLowerCase().replace(/\s+/g, '')}`
+      dedupeKey = partKey(manufacturer, partNumber)
       duplicateOf = seen.get(dedupeKey)
       if (duplicateOf && !rowHasError && duplicateOf.fingerprint === fingerprint) {
         duplicatesSkipped.push({ rowNumber: row.rowNumber, sameAs: duplicateOf.rowNumber })

@@ -1,7 +1,7 @@
 // The leg schematic as a standalone SVG document for print (the design report PDF): the page's geometry and
 // symbols from ./leg, in black and greys, each position labelled with its name and stress. No scripts, no links.
 import { topologyById, type LegLayout } from '../engine'
-import { formatSi } from '../utils/si'
+import { formatSi } from '../utils/format'
 import { drawLeg, FRAME, insetGeometry, LABEL_GAP, labelBaselines, labelLines, labelWidthOf, SYMBOL, WIRE, type LabelLine, type PlacedPart } from './leg'
 
 /** Worst-case stresses per position (the engine's DeviceEnvelope and CapacitorEnvelope fit as they are). */

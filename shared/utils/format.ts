@@ -65,6 +65,29 @@ export function formatNumber(value: number | null | undefined, locale: string = 
   return numberFormat(locale, o).format(value)
 }
 
+const SI_PREFIXES: [number, string][] = [[1e9, 'G'], [1e6, 'M'], [1e3, 'k'], [1, ''], [1e-3, 'm'], [1e-6, 'µ'], [1e-9, 'n'], [1e-12, 'p']]
+
+export interface SiOptions {
+  /** Keep trailing zeros to the significant digits ("4.70 mF", the results tables) instead of dropping them ("4.7 mF"). */
+  fixed?: boolean
+}
+
+/**
+ * A value in SI base units with a prefix, rounded to `digits` significant digits first (999.96 V → "1 kV", not
+ * "1000 V"): formatSi(1200, 'V') → "1.2 kV" (en-GB) / "1,2 kV" (de-DE); negative values carry a true minus sign.
+ */
+export function formatSi(value: number | null | undefined, unit: string, digits = 4, locale: string = DEFAULT_LOCALE, options: SiOptions = {}): string {
+  if (missing(value)) return '—'
+  if (value === 0) return `0 ${unit}`.trim()
+  const rounded = Number(value.toPrecision(digits))
+  const magnitude = Math.abs(rounded)
+  const [factor, prefix] = SI_PREFIXES.find(([f]) => magnitude >= f * (1 - 1e-12)) ?? SI_PREFIXES[SI_PREFIXES.length - 1]!
+  const scaled = Number((rounded / factor).toPrecision(digits))
+  const o: Intl.NumberFormatOptions = { useGrouping: false, maximumSignificantDigits: digits }
+  if (options.fixed) o.minimumSignificantDigits = digits
+  return `${numberFormat(locale, o).format(scaled).replace('-', '−')} ${prefix}${unit}`.trim()
+}
+
 /** Whole pieces, thousands separated: 12345 → "12,345" (en-GB), "12.345" (de-DE). */
 export function formatInteger(value: number | null | undefined, locale: string = DEFAULT_LOCALE): string {
   return formatNumber(missing(value) ? value : Math.round(value), locale, { decimals: 0 })

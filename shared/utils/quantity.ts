@@ -3,7 +3,7 @@
 // the field is refused with a message, never reinterpreted. Numbers and units are read by the catalogue's
 // parser (shared/catalog/units.ts), so a cell and a field understand the same notation.
 import { parseNumberText, prefixFactor, recogniseOtherQuantity, splitQuantityText, UNIT_SPECS, unitFactor, type DecimalSeparator } from '../catalog/units'
-import { formatSi } from './si'
+import { formatSi } from './format'
 
 export interface QuantityField {
   /** SI base unit of the field, a key of UNIT_SPECS: 'V', 'A', 'Hz', 'H', 'A/s', '°C', '%' (a fraction: 85 % → 0.85), '' (a plain number). */

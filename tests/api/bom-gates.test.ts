@@ -30,7 +30,7 @@ const npc = {
   },
 }
 
-type Candidate = { partVersionId: number, seriesCount: number, parallelCount: number, approved: boolean, covers: string[], lifecycle: string, part: { partNumber: string, manufacturer: string, packageConfiguration: string, kind: string } }
+type Candidate = { partVersionId: number, seriesCount: number, parallelCount: number, packagesPerConverter: number, approved: boolean, covers: string[], lifecycle: string, part: { partNumber: string, manufacturer: string, packageConfiguration: string, kind: string } }
 type Position = { side: string, position: string, coveredBy: string | null, duty: { kind: string, positionsPerPhase: number }, candidates: Candidate[], assigned: null | { partVersionId: number, seriesCount: number, parallelCount: number, coveredBy: string | null, review: { fits: boolean, stale: boolean, ratedRevision: number, needed: null | { seriesCount: number, parallelCount: number } } } }
 
 const db = postgres(process.env.STRATAVOLT_TEST_DATABASE_URL!, { max: 2, onnotice: () => {} })

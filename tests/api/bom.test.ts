@@ -5,6 +5,7 @@ import { join } from 'node:path'
 import ExcelJS from 'exceljs'
 import { describe, expect, it } from 'vitest'
 import { signInAs, unique, waitForMail } from '../support/api'
+import { readCsv } from '../support/csv'
 
 const input = {
   machineSide: {
@@ -31,7 +32,7 @@ function libreofficeCsv(xlsx: Buffer): string[][] {
   execFileSync('soffice', [`-env:UserInstallation=file://${dir}/profile`, '--headless', '--convert-to', 'csv:Text - txt - csv (StarCalc):44,34,76,1,,0,false,true,false', '--outdir', dir, join(dir, 'bom.xlsx')], { stdio: 'ignore', timeout: 120000 })
   const csv = readdirSync(dir).filter(f => f.endsWith('.csv')).map(f => readFileSync(join(dir, f), 'utf8'))[0]!
   // cells as LibreOffice computed them (raw values, not as formatted); quoted cells may hold commas
-  return csv.trim().split('\n').map(l => (l.match(/("([^"]|"")*"|[^,]*)(,|$)/g) ?? []).map(c => c.replace(/,$/, '').replace(/^"|"$/g, '')))
+  return readCsv(csv)
 }
 
 describe('bill of materials', () => {

@@ -5,6 +5,7 @@ import ExcelJS from 'exceljs'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { CATALOG_COLUMNS } from '../../catalog/columns'
 import { signInAs, unique, type Client } from '../support/api'
+import { readCsv } from '../support/csv'
 
 /** Headers as a supplier might write them: none is the template's own, two are traps for the suggestion. */
 function untidyHeaders(extra: string) {
@@ -341,8 +342,8 @@ describe('catalogue template downloads', () => {
     const r = await purchasing.request('GET', '/api/catalog/template.csv')
     expect(r.status).toBe(200)
     expect(r.headers.get('content-type')).toContain('text/csv')
-    const firstLine = (await r.text()).split(/\r?\n/)[0]!
-    expect(firstLine.split(',')).toEqual(headers)
+    const firstLine = readCsv(await r.text())[0]!
+    expect(firstLine).toEqual(headers)
   })
 
   it('maps the unchanged template by label and refuses its example rows', async () => {

@@ -6,7 +6,6 @@ import { existsSync, openSync } from 'node:fs'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { CATALOG_COLUMNS } from '../../catalog/columns'
-// @ts-expect-error -- plain ESM helper shared with the start and test scripts
 import { readSecrets, root } from '../../scripts/lib.mjs'
 import { client, demoEmail, linkIn, signIn, unique, waitForMail, type Client } from '../support/api'
 

@@ -9,6 +9,7 @@ import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it, onTestFinished } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
 import { baseUrl, linkIn, signInAs, unique, waitForMail } from '../support/api'
+import { readCsv } from '../support/csv'
 import { launch, newPage, screenshot, signInPage } from '../support/browser'
 
 const side = (dc: number, current: number, pf: number, name: string) => ({
@@ -25,7 +26,7 @@ function libreofficeSheets(xlsx: Buffer): Record<string, string[][]> {
   const out: Record<string, string[][]> = {}
   for (const f of readdirSync(dir).filter(n => n.endsWith('.csv'))) {
     const name = f.replace(/^bom-?/, '').replace(/\.csv$/, '') || 'BOM'
-    out[name] = readFileSync(join(dir, f), 'utf8').trim().split('\n').map(l => (l.match(/("([^"]|"")*"|[^,]*)(,|$)/g) ?? []).map(c => c.replace(/,$/, '').replace(/^"|"$/g, '')))
+    out[name] = readCsv(readFileSync(join(dir, f), 'utf8'))
   }
   return out
 }

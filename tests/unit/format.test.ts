@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { decimalMark, formatDate, formatDateTime, formatInteger, formatMoney, formatNumber, formatUnitPrice, isAppLocale, LOCALES, resolveLocale } from '../../shared/utils/format'
-import { formatSi } from '../../shared/utils/si'
+import { decimalMark, formatDate, formatDateTime, formatInteger, formatMoney, formatNumber, formatSi, formatUnitPrice, isAppLocale, LOCALES, resolveLocale } from '../../shared/utils/format'
 
 // The one formatting helper, per locale. The expected strings are the CLDR conventions Intl follows (Unicode CLDR
 // number and date patterns for en-GB, de-DE, sv-SE, en-US), written out here so that a change in the helper shows.

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { parseQuantity } from '../../shared/catalog/units'
-import { formatSi } from '../../shared/utils/si'
+import { formatSi } from '../../shared/utils/format'
 
 // SI prefixes (BIPM, The International System of Units, 9th edition 2019, table 7).
 describe('form quantities: shown with a prefix, read back to the same SI value', () => {

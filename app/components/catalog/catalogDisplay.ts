@@ -6,8 +6,7 @@ import {
 } from '~~/catalog/columns'
 import type { MappingSuggestion, MatchReason } from '#shared/catalog/mapping'
 import type { CatalogPart, ColumnMapping, PriceBreak, TableProblem, ValidationIssue } from '#shared/catalog/types'
-import { formatSi } from '#shared/utils/si'
-import { formatDateTime, formatInteger, formatMoney, formatNumber } from '#shared/utils/format'
+import { formatDateTime, formatInteger, formatMoney, formatNumber, formatSi } from '#shared/utils/format'
 import { activeLocale } from '~/composables/useLocale'
 
 export { CATALOG_COLUMNS, COLUMN_BY_KEY, LIFECYCLES, PART_KINDS }

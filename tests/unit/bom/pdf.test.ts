@@ -9,7 +9,7 @@ import { join } from 'node:path'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { bomToPdf, loadFonts, loadFontsFromNodeModules, type PdfFonts } from '../../../server/exports/bom-pdf'
 import { designReportPdf, DesignReportError, type DesignReport } from '../../../server/exports/design-pdf'
-import { formatMoney } from '../../../server/exports/format'
+import { formatMoney } from '../../../shared/utils/format'
 import { selfContainedSvg } from '../../../server/exports/pdf'
 import { demoSnapshot, largeSnapshot, SAFETY_NOTE } from './fixtures'
 
@@ -86,7 +86,7 @@ describe('bomToPdf', () => {
     expect(text).toContain('released 14 Mar 2026, 09:30 UTC by')
     expect(text).toContain('ORS-IG12-150')
     // 28443.70 EUR, worked by hand in build.test.ts
-    expect(formatMoney(snapshot.totals.extendedPrice)).toBe('28,443.70')
+    expect(formatMoney(snapshot.totals.extendedPrice, null)).toBe('28,443.70')
     expect(text).toContain('28,443.70 EUR')
     expect(text).toContain('page 1 of')
     expect(text).toContain('PO-2026-0142')
@@ -128,7 +128,7 @@ describe('bomToPdf', () => {
     expect(page2).toContain('Large test BOM')
     const last = flat(pdfText(pdf, pages))
     expect(last).toContain('IEC 61800-5-1')
-    expect(flat(pdfText(pdf))).toContain(`${formatMoney(snapshot.totals.extendedPrice)} EUR`)
+    expect(flat(pdfText(pdf))).toContain(`${formatMoney(snapshot.totals.extendedPrice, null)} EUR`)
   }, 60_000)
 })
 

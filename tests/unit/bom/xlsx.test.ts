@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest'
 import { buildBomSnapshot } from '../../../shared/bom/build'
 import type { BomSnapshot } from '../../../shared/bom/types'
 import { bomToXlsx } from '../../../server/exports/bom-xlsx'
+import { readCsv } from '../../support/csv'
 import { demoInput, demoSnapshot, positionFill, snapshotHeader } from './fixtures'
 
 const SOFFICE = '/usr/bin/soffice'
@@ -199,7 +200,7 @@ describe('LibreOffice recomputes the workbook', () => {
     const bytes = await bomToXlsx(snapshot)
     const csv = libreOfficeCsv({ exported: bytes, poisoned: await withPoisonedResults(bytes) })
     for (const name of ['exported', 'poisoned']) {
-      const rows = parseCsv(csv[name]!)
+      const rows = readCsv(csv[name]!)
       const header = rows[0]!
       const qty = header.indexOf('Qty to order [pcs]')
       const unit = header.indexOf('Unit price [EUR]')
@@ -224,7 +225,7 @@ describe('LibreOffice recomputes the workbook', () => {
     const input = demoInput()
     input.positions.push(positionFill({ position: 'S9', partNumber: 'CCX-SC12-80', manufacturer: 'Carrow Carbide', currency: 'USD', unitPriceBreaks: [{ quantity: 1, price: 40 }] }))
     const snapshot = buildBomSnapshot(snapshotHeader(), input)
-    const rows = parseCsv(libreOfficeCsv({ bom: await withPoisonedResults(await bomToXlsx(snapshot)) }).bom!)
+    const rows = readCsv(libreOfficeCsv({ bom: await withPoisonedResults(await bomToXlsx(snapshot)) }).bom!)
     const ext = rows[0]!.indexOf('Extended price [EUR]')
     const usd = rows.find(r => r.includes('CCX-SC12-80'))!
     // 3/set × 10 sets = 30 + ceil(1.5) = 2 spares → 32 × 40 = 1280 USD, computed and shown in USD;
@@ -233,31 +234,6 @@ describe('LibreOffice recomputes the workbook', () => {
     expect(parseNumber(rows[snapshot.lines.length + 2]![ext]!)).toBeCloseTo(28443.7, 2)
   }, 150_000)
 })
-
-/** Minimal RFC 4180 reader (quoted fields, doubled quotes). */
-function parseCsv(text: string): string[][] {
-  const rows: string[][] = []
-  let row: string[] = []
-  let field = ''
-  let quoted = false
-  for (let i = 0; i < text.length; i++) {
-    const ch = text[i]!
-    if (quoted) {
-      if (ch === '"' && text[i + 1] === '"') { field += '"'; i++ }
-      else if (ch === '"') quoted = false
-      else field += ch
-    }
-    else if (ch === '"') quoted = true
-    else if (ch === ',') { row.push(field); field = '' }
-    else if (ch === '\n' || ch === '\r') {
-      if (ch === '\r' && text[i + 1] === '\n') i++
-      row.push(field); rows.push(row); row = []; field = ''
-    }
-    else field += ch
-  }
-  if (field !== '' || row.length > 0) { row.push(field); rows.push(row) }
-  return rows
-}
 
 /** Numbers as LibreOffice formats them in CSV ("5,008.50", "5008.5", "1,320.00 USD"). */
 function parseNumber(text: string): number {

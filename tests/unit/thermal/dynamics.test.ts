@@ -37,7 +37,7 @@ function switchedRun(input: StressInput, stepsPerCarrier = 40, periods = 14) {
   const fsw = input.switchingHz
   const dt = 1 / (fsw * stepsPerCarrier)
   const steps = Math.round(1 / (f * dt))
-  const M = (input.lineVoltageRms * Math.SQRT2) / Math.sqrt(3) / (input.dcVoltage / 2)
+  const M = (input.lineVoltageRms * Math.SQRT2) / Math.sqrt(3) / (input.dcVoltage! / 2)
   const Ipk = input.phaseCurrentRms * Math.SQRT2
   const phi = Math.acos(input.powerFactor)
   const elems = [[0.006, 0.0008], [0.02, 0.012], [0.03, 0.06], [0.009, 0.4]] as const
@@ -55,7 +55,7 @@ function switchedRun(input: StressInput, stepsPerCarrier = 40, periods = 14) {
       const i = Ipk * Math.sin(theta - phi)
       let p = on && i > 0 ? (0.9 + 2.6e-3 * i) * i : 0
       // S1 switches hard only while it carries the current (i > 0): E·(|i|/I_ref)·(V_dc/V_ref).
-      if (on !== prevOn && i > 0) p += ((on ? 38e-3 : 52e-3) * (i / 450) * (input.dcVoltage / 600)) / dt
+      if (on !== prevOn && i > 0) p += ((on ? 38e-3 : 52e-3) * (i / 450) * (input.dcVoltage! / 600)) / dt
       prevOn = on
       let rise = 0
       elems.forEach(([r, tau], e) => {

@@ -1,35 +1,16 @@
 // Display formatting for result numbers: SI prefixes, three significant digits, the active locale's decimal
 // mark. No engineering here.
-import { decimalMark } from '#shared/utils/format'
+import { decimalMark, formatSi } from '#shared/utils/format'
 import { activeLocale } from '~/composables/useLocale'
 
 /** The number text with the active locale's decimal mark. */
 const localised = (text: string) => (decimalMark(activeLocale()) === ',' ? text.replace('.', ',') : text)
 
-const PREFIXES: { symbol: string, factor: number }[] = [
-  { symbol: 'G', factor: 1e9 },
-  { symbol: 'M', factor: 1e6 },
-  { symbol: 'k', factor: 1e3 },
-  { symbol: '', factor: 1 },
-  { symbol: 'm', factor: 1e-3 },
-  { symbol: 'µ', factor: 1e-6 },
-  { symbol: 'n', factor: 1e-9 },
-  { symbol: 'p', factor: 1e-12 },
-]
-
 const DASH = '—'
 
-/** "1.23 kV", "780 V", "4.70 mF": value in base SI units, rounded to `digits` significant digits. */
+/** "1.23 kV", "780 V", "4.70 mF": value in base SI units, rounded to `digits` significant digits, zeros kept. */
 export function formatSI(value: number | null | undefined, unit: string, digits = 3): string {
-  if (value === null || value === undefined || !Number.isFinite(value)) return DASH
-  if (value === 0) return `0 ${unit}`
-  // Round first so 999.6 becomes "1.00 k", not "1000".
-  const rounded = Number(value.toPrecision(digits))
-  const magnitude = Math.abs(rounded)
-  const prefix = PREFIXES.find(p => magnitude >= p.factor * (1 - 1e-12)) ?? PREFIXES[PREFIXES.length - 1]!
-  const mantissa = (rounded / prefix.factor).toPrecision(digits)
-  const text = mantissa.includes('e') ? String(Number(mantissa)) : mantissa
-  return `${localised(text).replace('-', '−')} ${prefix.symbol}${unit}`
+  return formatSi(value, unit, digits, activeLocale(), { fixed: true })
 }
 
 /** Below this magnitude a voltage or current is numerical noise of the integration: shown as 0. */

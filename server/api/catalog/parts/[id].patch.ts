@@ -20,6 +20,10 @@ export default defineEventHandler(async (event) => {
       .innerJoin(tables.partVersions, eq(tables.partVersions.id, tables.parts.currentVersionId)).where(eq(tables.parts.id, id))
       .for('update', { of: tables.parts })
     if (!row) throw createError({ statusCode: 404, message: 'No such part.' })
+    // A part the re-keying found to repeat an older one: a new version would land on the older part (same key).
+    if (row.part.keyConflictWith !== null && Object.values(edits).some(v => v !== undefined)) {
+      throw createError({ statusCode: 409, message: `${row.part.manufacturer} ${row.part.partNumber} is another spelling of part ${row.part.keyConflictWith} (see "Part key conflict" in the audit log): edit that part instead.` })
+    }
     if (approved !== undefined) await tx.update(tables.parts).set({ approved }).where(eq(tables.parts.id, id))
     const changes = Object.fromEntries(Object.entries(edits).filter(([, v]) => v !== undefined))
     if (Object.keys(changes).length) {
