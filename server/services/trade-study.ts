@@ -1,7 +1,7 @@
 // Trade study: one duty through several topologies and level counts, side by side.
 import { evaluateDesign, EngineInputError, topologyById, type ConverterInput, type DesignInput, type TopologyId } from '#shared/engine'
 import { matchPosition, type PartIndex } from '#shared/catalog/matching'
-import type { TradeStudyInput } from '#shared/schemas/trade-study'
+import { defaultCandidates, type TradeStudyInput } from '#shared/schemas/trade-study'
 import type { TradeStudyMissing, TradeStudyRow } from '#shared/types/trade-study'
 import { headlinePoint, totalsPerPoint } from '#shared/thermal/losses'
 import { designThermal, type ThermalPosition } from '#shared/thermal/design'
@@ -9,18 +9,7 @@ import { runInPool } from '../workers/pool'
 import { currentCatalog } from './catalog'
 import { designPositions, matchPolicy } from './parts'
 
-export const defaultCandidates: { topology: TopologyId, levels?: number }[] = [
-  { topology: 'two-level', levels: 2 },
-  { topology: 'diode-clamped', levels: 3 },
-  { topology: 't-type', levels: 3 },
-  { topology: 'anpc', levels: 3 },
-  { topology: 'flying-capacitor', levels: 3 },
-  { topology: 'diode-clamped', levels: 5 },
-  { topology: 'flying-capacitor', levels: 5 },
-  { topology: 'cascaded-h-bridge', levels: 5 },
-  { topology: 'cascaded-h-bridge', levels: 7 },
-  { topology: 'matrix' },
-]
+export { defaultCandidates }
 
 /** The converter a candidate needs for the duty: a cascaded H-bridge gets cells of V_dc/(N−1), so that its devices block what the diode-clamped leg's do. */
 export function candidateConverter(duty: TradeStudyInput, topology: TopologyId, levels?: number): ConverterInput {
