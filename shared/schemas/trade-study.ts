@@ -17,8 +17,8 @@ export const tradeStudySchema = z.object({
   candidates: z.array(z.object({ topology: z.enum(topologyIds), levels: z.number().int().min(2).max(15).optional() })).min(1).max(40).optional(),
 }).superRefine((v, ctx) => {
   v.candidates?.forEach((c, i) => {
-    const allowed = topologyById[c.topology].allowedLevels
-    if (c.levels === undefined || allowed === 'ignored' || allowed.includes(c.levels)) return
+    const allowed = topologyById[c.topology]?.allowedLevels
+    if (!allowed || c.levels === undefined || allowed === 'ignored' || allowed.includes(c.levels)) return
     ctx.addIssue({ code: 'custom', path: ['candidates', i, 'levels'], message: `candidates.${i}.levels: ${topologyById[c.topology].label} takes N = ${allowed.join(', ')}, not ${c.levels}` })
   })
 })
