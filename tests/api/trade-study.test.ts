@@ -65,10 +65,10 @@ describe('trade study', () => {
   it('refuses a level count the topology does not take, naming the candidate', async () => {
     const a = await signInAs('design-engineer')
     const npc = await a.json('POST', '/api/trade-study', { ...duty, candidates: [{ topology: 'two-level' }, { topology: 'diode-clamped', levels: 11 }] })
-    expect(npc.status).toBe(400)
+    expect(npc.status).toBe(422)
     expect(JSON.stringify(npc.body)).toContain('candidates.1.levels')
     const chb = await a.json('POST', '/api/trade-study', { ...duty, candidates: [{ topology: 'cascaded-h-bridge', levels: 4 }] })
-    expect(chb.status).toBe(400)
+    expect(chb.status).toBe(422)
     expect(JSON.stringify(chb.body)).toMatch(/candidates\.0\.levels/)
   })
 })

@@ -24,7 +24,7 @@ describe('trade study from a design in Chromium', () => {
     const page = await newPage(browser)
     await signInPage(page, 'design-engineer')
     await page.goto(`/designs/${created.body.id}`)
-    await page.getByRole('link', { name: 'Trade study' }).click()
+    await page.locator('#main').getByRole('link', { name: 'Trade study' }).click()
     await page.waitForURL(/\/compare\?/)
     await page.getByTestId('study-origin').waitFor()
     // cells of 700 V, N = 9: the whole link is 8 × 700 V
