@@ -92,15 +92,15 @@ export function tradeStudyRows(duty: TradeStudyInput, parts: PartIndex): { rows:
     // T_j over the fundamental period with the best part of every position (shared/thermal/design.ts): the hottest peak of the row.
     const thermal = designThermal(input, result.converters, thermalPositions, policy.junctionMarginC, policy.heatsinkTemperatureC).results
     let peak: { c: number, meanC: number, limitC: number, position: string, pointName: string } | null = null
-    thermalPositions.forEach((pos, i) => {
+    for (const [i, pos] of thermalPositions.entries()) {
       const t = thermal[i]?.[0]
       if (!t) {
         if (!missing.some(m => m.position === pos.duty.positionName)) missing.push({ position: pos.duty.positionName, partNumber: pos.choices[0]!.part.partNumber, fields: ['T_j,max'], figure: 'junction temperature', reason: `${pos.duty.positionName}: ${pos.choices[0]!.part.partNumber} lacks T_j,max or R_th (no T_j)` })
-        return
+        continue
       }
       if (!peak || t.peakC > peak.c) peak = { c: t.peakC, meanC: t.meanC, limitC: t.limitC, position: pos.duty.positionName, pointName: t.worstPointName }
-    })
-    const hottest = peak as typeof peak | null
+    }
+    const hottest = peak
     return {
       topology,
       levels: converter.levels ?? null,
