@@ -1,25 +1,15 @@
 // Trade study: one duty through several topologies and level counts, side by side.
 import { evaluateDesign, EngineInputError, topologyById, type ConverterInput, type DesignInput, type TopologyId } from '#shared/engine'
 import { matchPosition, type PartIndex } from '#shared/catalog/matching'
-import type { TradeStudyInput } from '#shared/schemas/trade-study'
-import type { TradeStudyRow } from '#shared/types/trade-study'
+import { defaultCandidates, type TradeStudyInput } from '#shared/schemas/trade-study'
+import type { TradeStudyMissing, TradeStudyRow } from '#shared/types/trade-study'
 import { headlinePoint, totalsPerPoint } from '#shared/thermal/losses'
+import { designThermal, type ThermalPosition } from '#shared/thermal/design'
 import { runInPool } from '../workers/pool'
 import { currentCatalog } from './catalog'
 import { designPositions, matchPolicy } from './parts'
 
-export const defaultCandidates: { topology: TopologyId, levels?: number }[] = [
-  { topology: 'two-level', levels: 2 },
-  { topology: 'diode-clamped', levels: 3 },
-  { topology: 't-type', levels: 3 },
-  { topology: 'anpc', levels: 3 },
-  { topology: 'flying-capacitor', levels: 3 },
-  { topology: 'diode-clamped', levels: 5 },
-  { topology: 'flying-capacitor', levels: 5 },
-  { topology: 'cascaded-h-bridge', levels: 5 },
-  { topology: 'cascaded-h-bridge', levels: 7 },
-  { topology: 'matrix' },
-]
+export { defaultCandidates }
 
 /** The converter a candidate needs for the duty: a cascaded H-bridge gets cells of V_dc/(N−1), so that its devices block what the diode-clamped leg's do. */
 export function candidateConverter(duty: TradeStudyInput, topology: TopologyId, levels?: number): ConverterInput {
@@ -72,10 +62,25 @@ export function tradeStudyRows(duty: TradeStudyInput, parts: PartIndex): { rows:
     const lossesByPosition: { positionName: string, perPoint: { pointName: string, lossW: number }[] }[] = []
     let fixedLossW = 0
     const lossMissing: string[] = []
-    for (const { duty: d } of designPositions(input, result)) {
+    // Why a figure is missing, per position: no part fits, or the best part lacks catalogue fields.
+    const missing: TradeStudyMissing[] = []
+    const thermalPositions: ThermalPosition[] = []
+    for (const { side, duty: d } of designPositions(input, result)) {
       const best = matchPosition(d, parts, policy, { limit: 1 }).candidates[0]
-      if (!best) { unmatched.push(d.positionName); continue }
-      if (best.losses === null) lossMissing.push(`${d.positionName}: ${best.part.partNumber} lacks ${best.missingData?.join(', ') ?? 'loss data'}`)
+      if (!best) {
+        unmatched.push(d.positionName)
+        missing.push({ position: d.positionName, partNumber: null, fields: [], figure: 'losses', reason: `${d.positionName}: no catalogue part fits the duty` })
+        continue
+      }
+      if (d.kind !== 'capacitor') thermalPositions.push({ side, duty: d, choices: [{ part: best.part, seriesCount: best.seriesCount, parallelCount: best.parallelCount }], reference: 0, referenceAssigned: false })
+      if (best.losses === null) {
+        const fields = best.missingData ?? []
+        lossMissing.push(`${d.positionName}: ${best.part.partNumber} lacks ${fields.length ? fields.join(', ') : 'loss data'}`)
+        missing.push({ position: d.positionName, partNumber: best.part.partNumber, fields, figure: 'losses', reason: lossMissing.at(-1)! })
+      }
+      else if (best.missingData?.length) {
+        missing.push({ position: d.positionName, partNumber: best.part.partNumber, fields: best.missingData, figure: 'junction temperature', reason: `${d.positionName}: ${best.part.partNumber} lacks ${best.missingData.join(', ')} (no T_j)` })
+      }
       else if (best.losses.perPoint) lossesByPosition.push({ positionName: d.positionName, perPoint: best.losses.perPoint.map(l => ({ pointName: l.pointName, lossW: l.perConverter })) })
       else fixedLossW += best.losses.perConverter
       cost = cost === null || best.costPerDesign === null ? null : cost + best.costPerDesign
@@ -84,6 +89,18 @@ export function tradeStudyRows(duty: TradeStudyInput, parts: PartIndex): { rows:
     for (const pt of perPoint) pt.lossW += fixedLossW
     const head = headlinePoint(perPoint)
     const lossW = lossMissing.length || !head ? null : head.lossW
+    // T_j over the fundamental period with the best part of every position (shared/thermal/design.ts): the hottest peak of the row.
+    const thermal = designThermal(input, result.converters, thermalPositions, policy.junctionMarginC, policy.heatsinkTemperatureC).results
+    let peak: { c: number, meanC: number, limitC: number, position: string, pointName: string } | null = null
+    for (const [i, pos] of thermalPositions.entries()) {
+      const t = thermal[i]?.[0]
+      if (!t) {
+        if (!missing.some(m => m.position === pos.duty.positionName)) missing.push({ position: pos.duty.positionName, partNumber: pos.choices[0]!.part.partNumber, fields: ['T_j,max'], figure: 'junction temperature', reason: `${pos.duty.positionName}: ${pos.choices[0]!.part.partNumber} lacks T_j,max or R_th (no T_j)` })
+        continue
+      }
+      if (!peak || t.peakC > peak.c) peak = { c: t.peakC, meanC: t.meanC, limitC: t.limitC, position: pos.duty.positionName, pointName: t.worstPointName }
+    }
+    const hottest = peak
     return {
       topology,
       levels: converter.levels ?? null,
@@ -101,6 +118,9 @@ export function tradeStudyRows(duty: TradeStudyInput, parts: PartIndex): { rows:
       semiconductorLossW: unmatched.length ? null : lossW,
       ...(lossW !== null && head && !unmatched.length ? { lossPointName: head.pointName } : {}),
       ...(lossMissing.length ? { lossMissing } : {}),
+      ...(missing.length ? { missing } : {}),
+      peakJunctionC: hottest ? Math.round(hottest.c * 10) / 10 : null,
+      ...(hottest ? { meanJunctionC: Math.round(hottest.meanC * 10) / 10, junctionLimitC: hottest.limitC, peakJunctionPosition: hottest.position, peakJunctionPointName: hottest.pointName } : {}),
       semiconductorCost: unmatched.length ? null : cost,
       unmatched,
       warnings: [...conv.warnings, ...result.warnings],
