@@ -31,9 +31,17 @@ function capture(cmd, args, opts = {}) {
 export function ensureNodeModules() {
   const marker = join(root, 'node_modules', '.package-lock.json')
   const lock = join(root, 'package-lock.json')
-  if (existsSync(marker) && statSync(marker).mtimeMs >= statSync(lock).mtimeMs) return
+  // The lock file's content installed last, so a fresh checkout of the same lock (a new mtime) does not reinstall.
+  const stamp = join(root, 'node_modules', '.stratavolt-lock-sha256')
+  const hash = createHash('sha256').update(readFileSync(lock)).digest('hex')
+  if (existsSync(marker) && existsSync(stamp) && readFileSync(stamp, 'utf8') === hash) return
+  if (existsSync(marker) && statSync(marker).mtimeMs >= statSync(lock).mtimeMs) {
+    writeFileSync(stamp, hash)
+    return
+  }
   log('installing npm packages (npm ci)…')
   run('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root })
+  writeFileSync(stamp, hash)
 }
 
 let aptUpdated = false
