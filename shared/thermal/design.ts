@@ -3,6 +3,7 @@
 // driven by the converter's summed losses, and the mission-profile life per position (lifetime.ts) with the
 // position that limits it.
 import { converterPointInputs } from '../engine/design'
+import { gridInput } from '../engine/link'
 import { lossProfile, type LossProfile } from '../engine/profile'
 import type { ConverterResult, DesignInput } from '../engine/types'
 import type { PositionDuty } from '../catalog/matching'
@@ -84,7 +85,8 @@ export function coolingOf(input: DesignInput, fallbackHeatsinkC: number): Coolin
 export function designProfiles(input: DesignInput): Map<'machine' | 'grid', LossProfile[]> {
   const out = new Map<'machine' | 'grid', LossProfile[]>()
   out.set('machine', converterPointInputs(input.machineSide).map(p => lossProfile(p.input)))
-  if (input.gridSide) out.set('grid', converterPointInputs(input.gridSide).map(p => lossProfile(p.input)))
+  // The grid side as the engine reads it (DC link and levels from the machine side where absent).
+  if (input.gridSide) out.set('grid', converterPointInputs(gridInput(input.machineSide, input.gridSide)).map(p => lossProfile(p.input)))
   return out
 }
 
@@ -166,7 +168,7 @@ function choiceThermal(choice: ThermalChoice, duty: PositionDuty, points: Profil
 }
 
 function designLife(input: DesignInput, converters: readonly ConverterResult[], positions: readonly ThermalPosition[], results: (ChoiceThermal | null)[][], cooling: CoolingSettings): DesignLife | null {
-  const sideInput = (side: ThermalSide) => (side === 'grid' ? input.gridSide : input.machineSide)
+  const sideInput = (side: ThermalSide) => (side === 'grid' && input.gridSide ? gridInput(input.machineSide, input.gridSide) : input.machineSide)
   const hoursShareTotal = input.machineSide.operatingPoints.reduce((s, p) => s + (p.hoursShare ?? 0), 0)
   const anyShare = hoursShareTotal > 0 || (input.gridSide?.operatingPoints.some(p => (p.hoursShare ?? 0) > 0) ?? false)
   if (!anyShare) return null

@@ -36,7 +36,7 @@ const dialogs = { accept: false }
 
 async function assignThroughPage(page: Page, sideLabel: string | null) {
   if (sideLabel) await page.getByRole('tab', { name: sideLabel }).click()
-  const nav = page.locator('nav[aria-label="Positions"] button')
+  const nav = page.locator('nav[aria-label="Positions"] button[data-position]')
   // A module first: the first candidate of S1 whose package covers at least two other positions (a
   // half-bridge: S2 and both diodes), accepting the offer.
   if (sideLabel !== 'Shared DC link') {
