@@ -70,7 +70,7 @@ describe('from design to released BOM in Chromium', () => {
     await screenshot(page, 'matrix-bom-released')
     const positions = bom.snapshot.positions.map((p: { position: string }) => p.position)
     expect(positions).toContain('Cf')
-    const filterLine = bom.snapshot.lines.find((l: { references: string[] }) => l.references.some(r => / Cf$/.test(r)))
+    const filterLine = bom.snapshot.lines.find((l: { references: string[] }) => l.references.some(r => /(^| )Cf( |$)/.test(r)))
     expect(filterLine, 'the filter capacitors have a priced catalogue line').toBeTruthy()
     expect(filterLine.partNumber).not.toBe('')
     const inductor = bom.snapshot.lines.find((l: { key: string }) => /Lf$/.test(l.key))
