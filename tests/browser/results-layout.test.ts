@@ -181,7 +181,8 @@ describe('results beside the inputs (1280 × 800)', () => {
     await first.waitFor()
     expect(await clippedTables(page, 'main')).toEqual([])
 
-    const rows = page.locator('table.table-basic tbody tr')
+    // the candidates table's rows (the position's per-point T_j table is a table of its own)
+    const rows = page.getByRole('table', { name: /Candidates for/ }).locator('tbody tr')
     await rows.first().waitFor()
     expect(await rows.count()).toBeLessThanOrEqual(5)
     const more = page.getByTestId('more-candidates')
