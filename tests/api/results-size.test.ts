@@ -68,7 +68,7 @@ describe('the design results answer', () => {
 })
 
 describe('the parts page', () => {
-  it('is under 150 kB of HTML for every demo design, with the best 5 candidates per position and more on request', async () => {
+  it('is under 150 kB of HTML for every demo design, with the best 4 candidates per position on the page and more on request', async () => {
     const api = await signInAs('design-engineer')
     const list = await api.json('GET', '/api/designs')
     const demo = (list.body as { id: number, name: string }[]).filter(d => /Pump drive|Dynamometer|MV fan|Battery inverter/.test(d.name))
