@@ -29,7 +29,7 @@
 import { describe, expect, it } from 'vitest'
 import { evaluateStress } from '../../../shared/engine'
 import type { StressResult } from '../../../shared/engine'
-import { expectClose, inputAt } from './helpers'
+import { expectClose, inputAt, solve } from './helpers'
 
 const TWO_PI = 2 * Math.PI
 const F1 = 50
@@ -146,23 +146,6 @@ function simulate(net: Network): SimResult {
     return Math.sqrt(record.s2[j]! / N_STEPS - mean * mean)
   })
   return { ripple, currentRms, closure }
-}
-
-/** Gaussian elimination with partial pivoting (n ≤ 5). */
-function solve(a: number[][], b: number[]): number[] {
-  const n = b.length
-  const m = a.map((row, r) => [...row, b[r]!])
-  for (let c = 0; c < n; c++) {
-    let p = c
-    for (let r = c + 1; r < n; r++) if (Math.abs(m[r]![c]!) > Math.abs(m[p]![c]!)) p = r
-    ;[m[c], m[p]] = [m[p]!, m[c]!]
-    for (let r = 0; r < n; r++) {
-      if (r === c) continue
-      const f = m[r]![c]! / m[c]![c]!
-      for (let k = c; k <= n; k++) m[r]![k] = m[r]![k]! - f * m[c]![k]!
-    }
-  }
-  return m.map((row, r) => row[n]! / row[r]!)
 }
 
 const Ih = Math.SQRT2 * 100

@@ -39,3 +39,20 @@ export function device<T extends { name: string }>(list: T[], name: string): T {
   if (!d) throw new Error(`no position ${name}`)
   return d
 }
+
+/** Gaussian elimination with partial pivoting, for the small circuit equations of the switched simulations. */
+export function solve(a: number[][], b: number[]): number[] {
+  const n = b.length
+  const m = a.map((row, r) => [...row, b[r]!])
+  for (let c = 0; c < n; c++) {
+    let p = c
+    for (let r = c + 1; r < n; r++) if (Math.abs(m[r]![c]!) > Math.abs(m[p]![c]!)) p = r
+    ;[m[c], m[p]] = [m[p]!, m[c]!]
+    for (let r = 0; r < n; r++) {
+      if (r === c) continue
+      const f = m[r]![c]! / m[c]![c]!
+      for (let k = c; k <= n; k++) m[r]![k] = m[r]![k]! - f * m[c]![k]!
+    }
+  }
+  return m.map((row, r) => row[n]! / row[r]!)
+}

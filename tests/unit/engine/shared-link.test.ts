@@ -15,7 +15,7 @@
 // grid side's own carrier at 5000 Hz (independent).
 import { describe, expect, it } from 'vitest'
 import { balanceWithLosses, compatibleGridSides, evaluateDesign, EngineInputError, type ConverterInput, type DesignInput, type TopologyId } from '../../../shared/engine'
-import { expectClose, lineVoltageFor } from './helpers'
+import { expectClose, lineVoltageFor, solve } from './helpers'
 
 const TWO_PI = 2 * Math.PI
 const PERIOD = 1 // s, common period of 49 Hz and 50 Hz
@@ -93,23 +93,6 @@ function linkCurrent(m: Side, g: Side, j: number, samples: number) {
   }
   const mean = s / samples
   return { rms: Math.sqrt(s2 / samples - mean * mean), mean, machineDrawn: sm / samples, gridDrawn: sg / samples }
-}
-
-/** Gaussian elimination with partial pivoting (n ≤ 3). */
-function solve(a: number[][], b: number[]): number[] {
-  const n = b.length
-  const m = a.map((row, r) => [...row, b[r]!])
-  for (let c = 0; c < n; c++) {
-    let p = c
-    for (let r = c + 1; r < n; r++) if (Math.abs(m[r]![c]!) > Math.abs(m[p]![c]!)) p = r
-    ;[m[c], m[p]] = [m[p]!, m[c]!]
-    for (let r = 0; r < n; r++) {
-      if (r === c) continue
-      const f = m[r]![c]! / m[c]![c]!
-      for (let k = c; k <= n; k++) m[r]![k] = m[r]![k]! - f * m[c]![k]!
-    }
-  }
-  return m.map((row, r) => row[n]! / row[r]!)
 }
 
 /** Peak-to-peak voltage of each link capacitor over the common period in periodic steady state, with both converters switching. */
