@@ -2,7 +2,6 @@
 import type { Modulation } from './types'
 
 const TWO_PI = 2 * Math.PI
-const SHIFT = TWO_PI / 3
 const HALF_SQRT3 = Math.sqrt(3) / 2
 
 /** Linear-range limit of the reference amplitude: sine 1; third-harmonic (1/6) and space vector 2/√3. */
