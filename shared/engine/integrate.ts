@@ -50,7 +50,6 @@ export function integrateLeg(
   const sumAbs = new Float64Array(P)
   const sumSq = new Float64Array(P)
   const peak = new Float64Array(P)
-  const shares = new Float64Array(L)
   const dTheta = (2 * Math.PI) / points
   let fundamental = 0
   // Kept for the peak search: the reference at each grid point.
@@ -66,13 +65,16 @@ export function integrateLeg(
     const sign = i >= 0 ? 0 : 1
     const ai = Math.abs(i)
     const i2 = i * i
-    const half = levelShares(leg, m, shares)
-    const table = leg.weights[half]!
-    // PD shares sit on two neighbouring levels: visit only those (all of them for an input-averaged leg).
-    const first = averaged ? 0 : Math.max(0, Math.min(Math.floor(((1 + m) * (L - 1)) / 2), L - 2))
+    // PD shares sit on two neighbouring levels (the same as levelShares, inline): visit only those (all of them,
+    // a share 1/L each, for an input-averaged leg).
+    const table = leg.weights[averaged || m >= 0 ? 0 : 1]!
+    const r = ((1 + m) * (L - 1)) / 2
+    const floor = Math.floor(r)
+    const first = averaged ? 0 : floor < 0 ? 0 : floor > L - 2 ? L - 2 : floor
     const last = averaged ? L - 1 : first + 1
+    const f = r - first
     for (let l = first; l <= last; l++) {
-      const share = shares[l]!
+      const share = averaged ? 1 / L : l === first ? 1 - f : f
       if (share <= 0) continue
       const row = table[l]![sign]!
       for (let q = 0; q < row.index.length; q++) {
@@ -103,21 +105,38 @@ const GOLDEN = (Math.sqrt(5) - 1) / 2
  * current's sign, as one number (equal numbers, equal conduction flags). Flags into `flags` when given.
  */
 function conductionKey(leg: CompiledLeg, m: number, phi: number, theta: number, shares: Float64Array, flags?: Uint8Array): number {
+  return conductionKeyOf(leg, m, Math.sin(theta - phi) >= 0 ? 0 : 1, shares, flags)
+}
+
+/** The same with the current's sign (0: i ≥ 0, 1: i < 0) given; without `flags` no table is touched (the level shares inline). */
+function conductionKeyOf(leg: CompiledLeg, m: number, sign: 0 | 1, shares: Float64Array, flags?: Uint8Array): number {
+  if (!flags) {
+    const L = leg.def.modelLevels
+    if (leg.def.carrier === 'input-averaged') return sign + KEY_ALL_LEVELS[L]!
+    const r = ((1 + m) * (L - 1)) / 2
+    const floor = Math.floor(r)
+    const lo = floor < 0 ? 0 : floor > L - 2 ? L - 2 : floor
+    const f = r - lo
+    let key = (m >= 0 ? 0 : 2) + sign
+    if (1 - f > 0) key += 4 << lo
+    if (f > 0) key += 4 << (lo + 1)
+    return key
+  }
   const half = levelShares(leg, m, shares)
-  const sign = Math.sin(theta - phi) >= 0 ? 0 : 1
   let key = half * 2 + sign
   for (let l = 0; l < shares.length; l++) if (shares[l]! > 0) key += 4 << l
-  if (flags) {
-    flags.fill(0)
-    const table = leg.weights[half]!
-    for (let l = 0; l < shares.length; l++) {
-      if (shares[l]! <= 0) continue
-      const row = table[l]![sign]!
-      for (let q = 0; q < row.index.length; q++) if (row.weight[q]! > 0) flags[row.index[q]!] = 1
-    }
+  flags.fill(0)
+  const table = leg.weights[half]!
+  for (let l = 0; l < shares.length; l++) {
+    if (shares[l]! <= 0) continue
+    const row = table[l]![sign]!
+    for (let q = 0; q < row.index.length; q++) if (row.weight[q]! > 0) flags[row.index[q]!] = 1
   }
   return key
 }
+
+/** Key bits of an input-averaged leg of L levels: every level's share (1/L) positive. */
+const KEY_ALL_LEVELS = Array.from({ length: 33 }, (_, L) => { let k = 0; for (let l = 0; l < L; l++) k += 4 << l; return k })
 
 /**
  * Peak current per position, exact: |i| is largest inside a conduction interval either at the current's own
@@ -161,21 +180,28 @@ function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, c
   const flagsOf = new Map<number, { flags: Uint8Array, absMax: number }>()
   const absI = (t: number) => Math.abs(currentPeak * Math.sin(t - phi))
   const absAt = new Float64Array(n)
+  let lastKey = -1
+  let lastEntry: { flags: Uint8Array, absMax: number } | undefined
   for (let k = 0, g = 0, e = 0; k < n; k++) {
     const gridTheta = g < points ? (g + 0.5) * dTheta : Infinity
     const fromGrid = !(e < extra.length && extra[e]! < gridTheta)
     const theta = fromGrid ? gridTheta : extra[e++]!
     const m = fromGrid ? gridM[g++]! : reference(theta)
     sorted[k] = theta
-    absAt[k] = absI(theta)
-    const key = conductionKey(leg, m, phi, theta, shares)
+    const i = currentPeak * Math.sin(theta - phi)
+    const sign = i >= 0 ? 0 : 1
+    absAt[k] = Math.abs(i)
+    const key = conductionKeyOf(leg, m, sign, shares)
     keys[k] = key
-    let entry = flagsOf.get(key)
+    // Neighbouring angles mostly share their key: the last entry is kept at hand.
+    let entry = key === lastKey ? lastEntry! : flagsOf.get(key)
     if (!entry) {
       entry = { flags: new Uint8Array(P), absMax: 0 }
-      conductionKey(leg, m, phi, theta, shares, entry.flags)
+      conductionKeyOf(leg, m, sign, shares, entry.flags)
       flagsOf.set(key, entry)
     }
+    lastKey = key
+    lastEntry = entry
     if (absAt[k]! > entry.absMax) entry.absMax = absAt[k]!
   }
   // Largest |i| on the angles where each position conducts.

@@ -2,7 +2,7 @@
 import type { Modulation } from './types'
 
 const TWO_PI = 2 * Math.PI
-const SHIFT = TWO_PI / 3
+const HALF_SQRT3 = Math.sqrt(3) / 2
 
 /** Linear-range limit of the reference amplitude: sine 1; third-harmonic (1/6) and space vector 2/√3. */
 export const linearLimit: Record<Exclude<Modulation, 'six-step'>, number> = {
@@ -29,12 +29,15 @@ export function makeReference(modulation: Modulation, a: number): (theta: number
       return theta => clamp(a * (Math.sin(theta) + Math.sin(3 * theta) / 6))
     case 'space-vector':
       // Min-max common-mode injection: the same linear range and duties as space-vector modulation.
+      // sin(θ ∓ 2π/3) = −sin θ / 2 ∓ (√3/2)·cos θ: one sine and one cosine per angle instead of three sines.
       return (theta) => {
         const sa = Math.sin(theta)
-        const sb = Math.sin(theta - SHIFT)
-        const sc = Math.sin(theta + SHIFT)
-        const mid = (Math.max(sa, sb, sc) + Math.min(sa, sb, sc)) / 2
-        return clamp(a * (sa - mid))
+        const ca = HALF_SQRT3 * Math.cos(theta)
+        const sb = -0.5 * sa - ca
+        const sc = -0.5 * sa + ca
+        const hi = sa > sb ? (sa > sc ? sa : sc) : (sb > sc ? sb : sc)
+        const lo = sa < sb ? (sa < sc ? sa : sc) : (sb < sc ? sb : sc)
+        return clamp(a * (sa - (hi + lo) / 2))
       }
   }
 }
