@@ -67,23 +67,6 @@ describe('the design results answer', () => {
   })
 })
 
-describe('a saved design\'s page', () => {
-  it('arrives from the server with its results drawn (device rows of every position), so the browser computes nothing first', async () => {
-    const api = await signInAs('design-engineer')
-    const list = await api.json('GET', '/api/designs')
-    const npc = (list.body as { id: number, name: string }[]).find(d => d.name === 'Pump drive 690 V / 400 kW')!
-    const results = await api.json('GET', `/api/designs/${npc.id}/results`)
-    const positions = (results.body.result.converters[0].envelope.devices as { name: string }[]).map(p => p.name)
-    expect(positions.length).toBeGreaterThan(0)
-    const page = await sized(await api.request('GET', `/designs/${npc.id}`))
-    expect(page.status).toBe(200)
-    const html = page.text.slice(0, page.text.indexOf('<script type="application/json"'))
-    expect(html).toContain('data-testid="results"')
-    const rows = html.match(/<tr[^>]*data-position=/g) ?? []
-    expect(rows.length).toBeGreaterThanOrEqual(positions.length)
-  })
-})
-
 describe('the parts page', () => {
   it('is under 150 kB of HTML for every demo design, with the best 4 candidates per position on the page and more on request', async () => {
     const api = await signInAs('design-engineer')
