@@ -8,13 +8,41 @@ import { lossProfile, type LossProfile } from '../engine/profile'
 import type { ConverterResult, DesignInput } from '../engine/types'
 import type { PositionDuty } from '../catalog/matching'
 import type { CatalogPart } from '../catalog/types'
-import { addThreePhases, binLosses, junctionDynamics, type CoolingSettings, type PointDynamics, type ProfiledDuty } from './dynamics'
+import { addThreePhases, binLosses, junctionDynamics, type SharedCase, type CoolingSettings, type PointDynamics, type ProfiledDuty } from './dynamics'
 import { BAYERER_DEFAULTS, CAPACITOR_LIFE_SOURCE, capacitorLife, POWER_CYCLING_SOURCE, powerCyclingLife, type BayererParameters, type PointDamage } from './lifetime'
 import { FOSTER_METHOD } from './network'
+import { deviceLossAtPoint } from './losses'
+import { PACKAGE_CONFIGURATIONS } from '../../catalog/columns'
 
 export type ThermalSide = 'machine' | 'grid' | 'dc-link'
 
-export interface ThermalChoice { part: CatalogPart, seriesCount: number, parallelCount: number }
+export interface ThermalChoice {
+  part: CatalogPart
+  seriesCount: number
+  parallelCount: number
+  /** the other positions of the same side inside this part's package (module coverage): they share its case */
+  caseMates?: string[]
+}
+
+/**
+ * Devices (chips) one package holds: a switch-with-diode slot is two (the switch and its anti-parallel diode), plus a
+ * three-level NPC leg's clamp diodes; a diode part its diode slots.
+ */
+export function packageDevices(part: Pick<CatalogPart, 'kind' | 'packageConfiguration'>): number {
+  const cfg = PACKAGE_CONFIGURATIONS[part.packageConfiguration]
+  if (!cfg) return 1
+  if (part.kind === 'switch-diode') return 2 * cfg.switches + (part.packageConfiguration === 'npc-leg' ? cfg.clampDiodes : 0)
+  if (part.kind === 'switch') return cfg.switches
+  return part.packageConfiguration === 'single' ? 1 : Math.max(cfg.diodes, cfg.clampDiodes)
+}
+
+/**
+ * K/W, case to heatsink of a whole module: the catalogue's R_th,ch is per switch or diode, so the module's is the
+ * per-device paths in parallel, R_th,ch / devices (assumption: equal footprints; common practice). Null without it.
+ */
+export function moduleCaseResistance(part: Pick<CatalogPart, 'kind' | 'packageConfiguration' | 'rthCaseHeatsink'>): number | null {
+  return part.rthCaseHeatsink === undefined ? null : part.rthCaseHeatsink / packageDevices(part)
+}
 
 export interface ThermalPosition {
   side: ThermalSide
@@ -108,7 +136,7 @@ export function designThermal(input: DesignInput, converters: readonly Converter
   const cooling = coolingOf(input, fallbackHeatsinkC)
   const assumptions = [
     input.thermal ? `Ambient or coolant ${cooling.ambientTemperatureC} °C; heatsink ${cooling.heatsinkRth} K/W, τ ${cooling.heatsinkTimeConstantS} s, loaded by the converter's summed losses of the assigned parts (the best candidate where none is assigned), at their data temperature; each converter on its own heatsink.` : `No cooling set for the design: the heatsink is held at the derating's ${fallbackHeatsinkC} °C.`,
-    'Every switch and diode on its own R_th,ch (the catalogue gives it per device); the case-heatsink layer carries the mean loss.',
+    'A device alone in its package on its own R_th,ch (the catalogue gives it per device); the devices of one module share its case: the module\'s R_th,ch (per-device R_th,ch / devices in the package) carries their summed losses, the others\' at their data temperature; the case-heatsink layer carries the mean loss.',
   ]
   // Heatsink power per side and point: Σ positions, three phases 120° apart, reference parts at their data temperature.
   const heatsink = new Map<string, Float64Array[]>()
@@ -131,20 +159,42 @@ export function designThermal(input: DesignInput, converters: readonly Converter
     if (pos.duty.kind === 'capacitor' || pos.side === 'dc-link') return pos.choices.map(() => null)
     const points = profiledPoints(pos.duty, profiles.get(pos.side))
     const hs = heatsink.get(pos.side)
-    return pos.choices.map(choice => choiceThermal(choice, pos.duty, points, cooling, hs, junctionMarginC))
+    return pos.choices.map(choice => choiceThermal(choice, pos.duty, points, cooling, hs, junctionMarginC, sharedCases(choice, pos, positions)))
   })
 
   return { cooling, assumptions, method: FOSTER_METHOD, results, life: designLife(input, converters, positions, results, cooling) }
 }
 
-function choiceThermal(choice: ThermalChoice, duty: PositionDuty, points: ProfiledDuty[], cooling: CoolingSettings, heatsink: Float64Array[] | undefined, marginC: number): ChoiceThermal | null {
+/**
+ * Per point, the case this choice shares with the other devices of its package (null: alone in its package, or the
+ * part lacks R_th,ch). The others' mean losses with the same part at their data temperature; a package over
+ * several phases (six-pack) holds every phase's devices.
+ */
+export function sharedCases(choice: ThermalChoice, pos: ThermalPosition, positions: readonly ThermalPosition[]): SharedCase[] | null {
+  const mates = (choice.caseMates ?? []).map(name => positions.find(p => p.side === pos.side && p.duty.positionName === name)).filter((p): p is ThermalPosition => !!p && p.duty.kind !== 'capacitor')
+  const rth = moduleCaseResistance(choice.part)
+  if (!mates.length || rth === null) return null
+  const phases = Math.max(1, PACKAGE_CONFIGURATIONS[choice.part.packageConfiguration]?.phasesPerPackage ?? 1)
+  const n = pos.duty.points?.length ?? 0
+  return Array.from({ length: n }, (_, k) => {
+    let othersMeanW = 0
+    for (const mate of mates) {
+      const pt = mate.duty.points?.[k]
+      const loss = pt ? deviceLossAtPoint(choice.part, mate.duty.kind as SemiKind, pt, mate.duty.switchingHz, choice.seriesCount, choice.parallelCount) : null
+      if (loss) othersMeanW += loss.total * mate.duty.positionsPerPhase * phases
+    }
+    return { rth, ownDevices: pos.duty.positionsPerPhase * phases, othersMeanW }
+  })
+}
+
+function choiceThermal(choice: ThermalChoice, duty: PositionDuty, points: ProfiledDuty[], cooling: CoolingSettings, heatsink: Float64Array[] | undefined, marginC: number, shared: SharedCase[] | null = null): ChoiceThermal | null {
   const { part } = choice
   if (part.junctionTemperatureMax === undefined) return null
   const perPoint: PointDynamics[] = []
   let fromFoster = true
   const notes = new Set<string>()
   for (let k = 0; k < points.length; k++) {
-    const d = junctionDynamics(part, duty.kind as SemiKind, points[k]!, duty.switchingHz, choice.seriesCount, choice.parallelCount, cooling, heatsink?.[k] ?? null)
+    const d = junctionDynamics(part, duty.kind as SemiKind, points[k]!, duty.switchingHz, choice.seriesCount, choice.parallelCount, cooling, heatsink?.[k] ?? null, shared?.[k])
     if (!d) return null
     fromFoster &&= d.fromFoster
     for (const n of d.note.split('; ')) if (n) notes.add(n)

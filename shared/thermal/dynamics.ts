@@ -47,6 +47,20 @@ export interface PointDynamics {
 export type DynamicsPart = TemperaturePart & Partial<CatalogPart>
 
 /**
+ * The case a device shares with the other devices of its module (one package over several positions):
+ * the module's R_th,ch carries the sum of the module's losses, so
+ *   T_j = T_heatsink + R_th,ch(module)·(n_own·p̄_own + P_others) + Z_th,jc * p_own.
+ */
+export interface SharedCase {
+  /** K/W, case to heatsink of the whole module */
+  rth: number
+  /** devices of this position in one package (each with this device's loss) */
+  ownDevices: number
+  /** W, mean loss of the package's other devices at this point */
+  othersMeanW: number
+}
+
+/**
  * W per device in each angle bin, from the profile and the part's figures (already at the wanted T_j). The
  * loss is linear in the duty (losses.ts): its coefficients come from deviceLossAtPoint at unit duties, so the
  * formula exists once and each bin costs five multiplications.
@@ -81,17 +95,19 @@ export function binLosses(part: DynamicsPart, kind: 'switch' | 'diode' | 'clamp-
  * T_j over one period at one point. `heatsinkPower` (W per bin, the converter's summed loss) drives the
  * heatsink; its mean sets the mean heatsink temperature. Null when the part lacks losses or thermal data.
  */
-export function junctionDynamics(part: DynamicsPart, kind: 'switch' | 'diode' | 'clamp-diode', duty: ProfiledDuty, switchingHz: number, series: number, parallel: number, cooling: CoolingSettings, heatsinkPower: ArrayLike<number> | null): (PointDynamics & { note: string, fromFoster: boolean }) | null {
+export function junctionDynamics(part: DynamicsPart, kind: 'switch' | 'diode' | 'clamp-diode', duty: ProfiledDuty, switchingHz: number, series: number, parallel: number, cooling: CoolingSettings, heatsinkPower: ArrayLike<number> | null, sharedCase?: SharedCase): (PointDynamics & { note: string, fromFoster: boolean }) | null {
   const network = fosterNetwork(part, kind)
   if (!network || !duty.profile || !duty.fundamentalHz) return null
   const B = duty.profile.currentAbs.length
   const dt = 1 / (duty.fundamentalHz * B)
-  const rch = part.rthCaseHeatsink ?? 0
+  // Own share of the case-heatsink layer; a shared case adds the rise of the module's other devices.
+  const rch = sharedCase ? sharedCase.rth * sharedCase.ownDevices : (part.rthCaseHeatsink ?? 0)
+  const caseOffsetK = sharedCase ? sharedCase.rth * sharedCase.othersMeanW : 0
   const hsPairs: FosterPair[] = cooling.heatsinkRth > 0 ? [{ r: cooling.heatsinkRth, tau: cooling.heatsinkTimeConstantS }] : []
   let hsMeanPower = 0
   if (heatsinkPower) for (let b = 0; b < B; b++) hsMeanPower += heatsinkPower[b]! / B
   const heatsinkC = cooling.ambientTemperatureC + cooling.heatsinkRth * hsMeanPower
-  const settled = settleJunction(part, kind, duty, switchingHz, series, parallel, heatsinkC, steadyResistance(network.pairs) + rch)
+  const settled = settleJunction(part, kind, duty, switchingHz, series, parallel, heatsinkC + caseOffsetK, steadyResistance(network.pairs) + rch)
   if (!settled.loss) return null
   const notes = [settled.note, network.fromFoster ? '' : SINGLE_RTH_NOTE].filter(Boolean)
   const base = { pointName: duty.pointName, status: settled.status, heatsinkC, lossW: settled.loss.total, fromFoster: network.fromFoster }
@@ -105,7 +121,7 @@ export function junctionDynamics(part: DynamicsPart, kind: 'switch' | 'diode' | 
   const rise = periodicRise(network.pairs, p, dt)
   // The baseplate and heatsink capacities filter the fundamental ripple: R_th,ch carries the mean loss (assumption).
   const meanLoss = p.reduce((a, x) => a + x, 0) / B
-  for (let b = 0; b < B; b++) rise[b]! += rch * meanLoss
+  for (let b = 0; b < B; b++) rise[b]! += rch * meanLoss + caseOffsetK
   if (hsPairs.length && heatsinkPower) periodicRise(hsPairs, heatsinkPower, dt, rise)
   else if (cooling.heatsinkRth > 0) for (let b = 0; b < B; b++) rise[b]! += cooling.heatsinkRth * hsMeanPower
   let peak = -Infinity
@@ -121,6 +137,7 @@ export function junctionDynamics(part: DynamicsPart, kind: 'switch' | 'diode' | 
   let above = 0
   for (let b = 0; b < B; b++) if (cooling.ambientTemperatureC + rise[b]! > mean) above++
   notes.push('instantaneous losses with the figures at the mean T_j (their change over the swing neglected); R_th,ch carries the mean loss')
+  if (sharedCase) notes.push('one case shared with the module\'s other devices: the module\'s R_th,ch carries their summed mean loss')
   return { ...base, meanC: mean, peakC: peak, minC: min, swingK: peak - min, heatingTimeS: above * dt, note: notes.join('; ') }
 }
 
