@@ -8,15 +8,11 @@ import { junctionDynamics, type DynamicsPart, type ProfiledDuty } from '../../..
 import { moduleCaseResistance, packageDevices } from '../../../shared/thermal/design'
 import { pointDutiesOf } from '../../../shared/thermal/losses'
 import type { StressInput } from '../../../shared/engine/types'
+import { inventedModule, stiffCooling } from './fixtures'
 
 // Invented figures, one temperature only (the losses do not move with T_j, so the hand computation is exact).
-const part: DynamicsPart = {
-  switchThresholdVoltage: 0.9, switchSlopeResistance: 2.6e-3, diodeThresholdVoltage: 0.95, diodeSlopeResistance: 1.9e-3,
-  turnOnEnergy: 38e-3, turnOffEnergy: 52e-3, recoveryEnergy: 24e-3, energyReferenceVoltage: 600, energyReferenceCurrent: 450,
-  rthJunctionCaseSwitch: 0.065, rthJunctionCaseDiode: 0.11, rthCaseHeatsink: 0.02, junctionTemperatureMax: 175, lossDataTemperature: 150,
-  zthSwitchR1: 0.006, zthSwitchTau1: 0.0008, zthSwitchR2: 0.02, zthSwitchTau2: 0.012, zthSwitchR3: 0.03, zthSwitchTau3: 0.06, zthSwitchR4: 0.009, zthSwitchTau4: 0.4,
-}
-const cooling = { ambientTemperatureC: 60, heatsinkRth: 0, heatsinkTimeConstantS: 300 }
+const part: DynamicsPart = inventedModule
+const cooling = stiffCooling
 const input: StressInput = { topology: 'two-level', levels: 2, dcVoltage: 650, lineVoltageRms: (0.1 * 325 * Math.sqrt(3)) / Math.SQRT2, phaseCurrentRms: 220, powerFactor: 0.85, fundamentalHz: 3, switchingHz: 2500, modulation: 'sine' }
 
 function profiled(): ProfiledDuty {
