@@ -8,7 +8,7 @@ import { packGroup, type GroupMember } from '#shared/bom/coverage'
 import type { BomLine, BomPurchase, BomSnapshot } from '#shared/bom/types'
 import { slotsPerPackage } from '#shared/catalog/matching'
 import { sees, type Role } from '#shared/roles'
-import { topologyById, type DesignInput, type DesignResult } from '#shared/engine'
+import { topologyById, topologyName, type DesignInput, type DesignResult } from '#shared/engine'
 import type { BomSettings } from '#shared/schemas/design'
 import { count, formatMoney, formatSi } from '#shared/utils/format'
 import demo from '../db/demo-accounts.json'
@@ -120,10 +120,10 @@ function designSummary(input: DesignInput): BomSnapshot['designSummary'] {
 
 export function topologySummary(input: DesignInput) {
   const m = input.machineSide
-  const one = `${topologyById[m.topology].label}${m.levels && m.topology !== 'two-level' ? ` (N = ${m.levels})` : ''}`
+  const one = topologyName(m.topology, m.levels)
   const g = input.gridSide
   if (!g) return one
-  return g.topology === m.topology ? `${one}, back-to-back` : `${one}, back-to-back with a ${topologyById[g.topology].label}${g.levels && g.topology !== 'two-level' ? ` (N = ${g.levels})` : ''} grid side`
+  return g.topology === m.topology ? `${one}, back-to-back` : `${one}, back-to-back with a ${topologyName(g.topology, g.levels)} grid side`
 }
 
 /** Recorded acknowledgements of gated lines, by line key. */

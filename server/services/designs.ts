@@ -2,7 +2,7 @@
 import { and, desc, eq } from 'drizzle-orm'
 import { z } from 'zod'
 import { PG_INT_MAX } from '#shared/schemas/bounds'
-import { evaluateDesign, evaluateStress, gridInput, legLayout } from '#shared/engine'
+import { effectiveLevels, evaluateDesign, evaluateStress, gridInput, legLayout } from '#shared/engine'
 import type { DesignInput, DesignResult, Waveform } from '#shared/engine/types'
 import { decimationIndices } from '#shared/utils/decimate'
 import type { DesignPreview } from '#shared/types/design'
@@ -14,7 +14,7 @@ export function summarise(input: DesignInput) {
   const powerKw = p ? (Math.sqrt(3) * p.lineVoltageRms * p.phaseCurrentRms * Math.abs(p.powerFactor)) / 1000 : null
   return {
     topology: m.topology,
-    levels: m.topology === 'two-level' ? 2 : m.topology === 'matrix' ? 3 : (m.levels ?? 3),
+    levels: effectiveLevels(m.topology, m.levels ?? 3),
     dcVoltage: m.dcVoltage ?? null,
     powerKw: powerKw === null ? null : Math.round(powerKw * 10) / 10,
     backToBack: !!input.gridSide,

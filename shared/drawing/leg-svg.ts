@@ -1,6 +1,6 @@
 // The leg schematic as a standalone SVG document for print (the design report PDF): the page's geometry and
 // symbols from ./leg, in black and greys, each position labelled with its name and stress. No scripts, no links.
-import { topologyById, type LegLayout } from '../engine'
+import { drawnUnitText, topologyById, type LegLayout } from '../engine'
 import { formatSi } from '../utils/format'
 import { drawLeg, FRAME, insetGeometry, LABEL_GAP, labelBaselines, labelLines, labelWidthOf, SYMBOL, WIRE, type LabelLine, type PlacedPart } from './leg'
 
@@ -161,7 +161,7 @@ export function legSchematicSvg(layout: LegLayout, stresses: LegStresses, option
   const hasCapacitors = layout.items.some(i => i.kind === 'capacitor')
   const key = ['Labels: position, blocking voltage (steady state) · RMS current', ...(hasCapacitors ? ['Capacitors: DC voltage · RMS ripple current'] : [])]
   const kind = topologyById[layout.topology]?.label ?? layout.topology
-  const shape = layout.topology === 'matrix' ? `${kind}, one output phase` : `${kind}, one phase leg, ${layout.levels} levels`
+  const shape = `${kind}, ${drawnUnitText(layout.topology, layout.levels)}`
   const heading = options.title ? `${options.title}: ${shape}` : shape
   const headingHeight = 22
   const keyTop = drawing.minY + drawing.height

@@ -1,6 +1,7 @@
 // Geometry of the leg schematic: turns the engine's layout hints (slots and nodes) into SVG primitives.
 // Pure drawing: no stresses, no engineering; the page component and the printed report add the text.
-import type { LegLayout, LegLayoutItem } from '../engine'
+import { topologyById, type LegLayout, type LegLayoutItem } from '../engine'
+import type { LegDrawingKind } from '../engine/model'
 
 /** Clockwise degrees; the symbol's first node (collector / cathode / +) is at the top at 0. */
 export type Rotation = 0 | 90 | 180 | 270
@@ -263,16 +264,8 @@ function sortParts(items: LegLayoutItem[]): Parts {
 /** Draws one phase leg of any supported topology; unknown shapes fall back to a plain grid of parts. */
 export function drawLeg(layout: LegLayout, options: DrawOptions): LegDrawing {
   const parts = sortParts(layout.items)
-  switch (layout.topology) {
-    case 'flying-capacitor': return drawLadder(layout, parts, options)
-    case 'cascaded-h-bridge': return drawCells(layout, parts, options)
-    case 'matrix': return drawMatrix(layout, parts, options)
-    case 'two-level':
-    case 'diode-clamped':
-    case 't-type':
-    case 'anpc': return drawStack(layout, parts, options)
-    default: return drawGrid(layout, parts, options)
-  }
+  const rule = DRAWING_RULES[topologyById[layout.topology]?.presentation.drawing as LegDrawingKind] ?? drawGrid
+  return rule(layout, parts, options)
 }
 
 const partFor = (p: Parts, item: LegLayoutItem): Pick<PlacedPart, 'shape' | 'name' | 'diodeName'> => ({
@@ -630,4 +623,12 @@ function drawGrid(layout: LegLayout, p: Parts, o: DrawOptions): LegDrawing {
   }
   c.note({ x: 0, y: Math.max(0, ...all.map(i => i.row)) * 90 + 60, text: `Parts of one ${layout.topology} leg on their layout slots (wiring not drawn).`, anchor: 'start', tone: 'caption' })
   return c.finish()
+}
+
+/** The per-shape rules, chosen by the topology's declared drawing kind (its definition's `presentation.drawing`). */
+const DRAWING_RULES: Record<LegDrawingKind, (layout: LegLayout, parts: Parts, options: DrawOptions) => LegDrawing> = {
+  stack: drawStack,
+  ladder: drawLadder,
+  cells: drawCells,
+  matrix: drawMatrix,
 }

@@ -103,6 +103,30 @@ export interface TopologyDefinition {
   /** extra sentence on the assumed switching pattern (shown in provenance) */
   patternNote?: string
   leg: (levels: number) => LegDefinition
+  /** how the UI, the report and the BOM show it; read through the registry, never by switching on the id */
+  presentation: TopologyPresentation
+}
+
+/** Which drawing rule of shared/drawing/leg.ts lays out the leg: a vertical string with side branches, nested cells, H-bridge cells, crosspoints. */
+export type LegDrawingKind = 'stack' | 'ladder' | 'cells' | 'matrix'
+
+/** One mark of a topology's 48 × 48 icon (stroked in the text colour): a path, a rectangle or a filled dot. */
+export type IconMark = { path: string, thin?: boolean } | { rect: [x: number, y: number, w: number, h: number] } | { dot: [x: number, y: number] }
+
+export interface TopologyPresentation {
+  drawing: LegDrawingKind
+  /** what one drawing shows: a phase leg of N levels, or one output phase (no levels) */
+  drawnUnit: 'phase-leg' | 'output-phase'
+  /** the level count belongs in the design's short name (results heading, BOM title) */
+  levelsInName: boolean
+  icon: IconMark[]
+  /** form fields beyond those its supply kind implies */
+  form: {
+    /** the clamp diodes are series strings: ask for the unit diode's voltage */
+    clampDiodeUnitVoltage?: boolean
+    /** the AC input side's displacement factor, frequency and filter resonance (report inputs) */
+    inputSide?: boolean
+  }
 }
 
 /** Sparse list of (position index, weight) pairs. */

@@ -5,14 +5,14 @@ import { EngineInputError } from '../engine/errors'
 import { checkDesignInput, checkStressInput } from '../engine/check'
 import { INPUT_LIMITS, tooLarge, tooSmall, type LimitedField } from '../engine/limits'
 import type { Modulation, TopologyId } from '../engine/types'
+import { topologies } from '../engine/topologies'
 
-export const topologyIds = ['two-level', 'diode-clamped', 't-type', 'anpc', 'flying-capacitor', 'cascaded-h-bridge', 'matrix'] as const satisfies readonly TopologyId[]
+// Read from the registry (one source): the registry's Record<TopologyId, …> fails to compile when an id has no definition.
+export const topologyIds = topologies.map(t => t.id) as [TopologyId, ...TopologyId[]]
 export const modulations = ['sine', 'third-harmonic', 'space-vector', 'six-step'] as const satisfies readonly Modulation[]
 // Both lists must name every member of their union: a missing one fails to compile here.
 type Missing<T, L extends readonly unknown[]> = Exclude<T, L[number]>
-const _allTopologies: Missing<TopologyId, typeof topologyIds> extends never ? true : never = true
 const _allModulations: Missing<Modulation, typeof modulations> extends never ? true : never = true
-void _allTopologies
 void _allModulations
 
 /** A finite number with a message naming the field and its unit. */

@@ -55,4 +55,11 @@ export const anpc: TopologyDefinition = {
       ],
     }
   },
+  presentation: {
+    drawing: 'stack',
+    drawnUnit: 'phase-leg',
+    levelsInName: false,
+    icon: [{ path: 'M8 6h32M8 42h32M8 24h6M30 24h10' }, { rect: [26, 8, 7, 5] }, { rect: [26, 16, 7, 5] }, { rect: [26, 27, 7, 5] }, { rect: [26, 35, 7, 5] }, { rect: [14, 14, 7, 5] }, { rect: [14, 29, 7, 5] }, { path: 'M17 19v10M21 16h5M21 31h5' }],
+    form: {},
+  },
 }

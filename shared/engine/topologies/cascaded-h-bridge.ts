@@ -47,4 +47,11 @@ export const cascadedHBridge: TopologyDefinition = {
       ],
     }
   },
+  presentation: {
+    drawing: 'cells',
+    drawnUnit: 'phase-leg',
+    levelsInName: true,
+    icon: [{ rect: [10, 6, 28, 10] }, { rect: [10, 19, 28, 10] }, { rect: [10, 32, 28, 10] }, { path: 'M24 6v-2M24 42v2M17 11h14M17 24h14M17 37h14', thin: true }],
+    form: {},
+  },
 }

@@ -74,4 +74,11 @@ export const diodeClamped: TopologyDefinition = {
   structureSource: 'J. Rodriguez, J.-S. Lai, F. Z. Peng, IEEE TIE 49(4) 2002; A. Nabae, I. Takahashi, H. Akagi, IEEE TIA 1981',
   currentSource: 'G. I. Orfanoudakis, M. A. Yuratich, S. M. Sharkh, IET PEMD 2010 (NPC outer switch); leg current balance (first principles)',
   leg,
+  presentation: {
+    drawing: 'stack',
+    drawnUnit: 'phase-leg',
+    levelsInName: true,
+    icon: [{ path: 'M8 6h32M8 42h32M8 24h8M28 6v4M28 38v4M28 24h12' }, { rect: [24, 10, 8, 5] }, { rect: [24, 17, 8, 5] }, { rect: [24, 26, 8, 5] }, { rect: [24, 33, 8, 5] }, { path: 'M16 16v16M16 16h8M16 32h8' }, { path: 'M13 19l3 3 3-3M13 29l3-3 3 3', thin: true }],
+    form: { clampDiodeUnitVoltage: true },
+  },
 }

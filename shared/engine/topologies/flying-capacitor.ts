@@ -69,4 +69,11 @@ export const flyingCapacitor: TopologyDefinition = {
   currentSource: 'each cell a two-level leg under phase-shifted carriers: F. Bierhoff, F. W. Fuchs, IEEE PESC 2004 closed forms',
   patternNote: 'Phase-shifted carriers (360°/(N−1) apart); averaged over a switching period every redundant state of a level is used equally.',
   leg,
+  presentation: {
+    drawing: 'ladder',
+    drawnUnit: 'phase-leg',
+    levelsInName: true,
+    icon: [{ path: 'M8 6h32M8 42h32M24 6v4M24 38v4M24 24h16' }, { rect: [20, 10, 8, 5] }, { rect: [20, 17, 8, 5] }, { rect: [20, 26, 8, 5] }, { rect: [20, 33, 8, 5] }, { path: 'M12 15h8M12 33h8M12 15v7M12 26v7M8 22h8M8 26h8', thin: true }],
+    form: {},
+  },
 }

@@ -40,4 +40,11 @@ export const matrix: TopologyDefinition = {
   currentSource: 'P. W. Wheeler et al., IEEE TIE 2002 (structure); equal input-phase shares of an indirect space-vector modulation (assumption)',
   patternNote: 'Indirect space-vector modulation realised on the nine switches: in each carrier period the input phase with the largest input-current reference stays on one rail, the other rail is split between the two other input phases, and each output is connected to the input phase of its rail (the output is made of segments of the input voltages). Linear up to a transfer ratio of 0.75·cos φ_in with a sinusoidal reference, (√3/2)·cos φ_in with third-harmonic or space-vector references.',
   leg,
+  presentation: {
+    drawing: 'matrix',
+    drawnUnit: 'output-phase',
+    levelsInName: false,
+    icon: [{ path: 'M6 10h36M6 24h36M6 38h36M14 6v38M24 6v38M34 6v38', thin: true }, { dot: [14, 10] }, { dot: [24, 24] }, { dot: [34, 38] }],
+    form: { inputSide: true },
+  },
 }

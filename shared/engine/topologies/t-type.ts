@@ -38,4 +38,11 @@ export const tType: TopologyDefinition = {
       { name: 'Cdc2', kind: 'dc-link', role: 'split', nodes: ['dc2', 'dc1'], voltageUnits: 1, countInConverter: 1, splitIndex: 2, row: 0.5, column: 0 },
     ],
   }),
+  presentation: {
+    drawing: 'stack',
+    drawnUnit: 'phase-leg',
+    levelsInName: false,
+    icon: [{ path: 'M8 6h32M8 42h32M28 6v8M28 34v8M8 24h8M26 24h14' }, { rect: [24, 14, 8, 7] }, { rect: [24, 27, 8, 7] }, { rect: [14, 21, 10, 6] }],
+    form: {},
+  },
 }

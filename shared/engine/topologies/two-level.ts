@@ -31,4 +31,11 @@ export const twoLevel: TopologyDefinition = {
       { name: 'Cdc', kind: 'dc-link', role: 'dc-link', nodes: ['dc1', 'dc0'], voltageUnits: 1, countInConverter: 1, splitIndex: 1, row: 0.5, column: 0 },
     ],
   }),
+  presentation: {
+    drawing: 'stack',
+    drawnUnit: 'phase-leg',
+    levelsInName: false,
+    icon: [{ path: 'M8 6h32M8 42h32M24 6v10M24 32v10M24 24h14' }, { rect: [20, 16, 8, 6] }, { rect: [20, 26, 8, 6] }],
+    form: {},
+  },
 }

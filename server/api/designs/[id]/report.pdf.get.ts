@@ -1,5 +1,6 @@
 import { idParam } from '#shared/schemas/auth'
 import { legSchematicSvg } from '#shared/drawing/leg-svg'
+import { topologyById } from '#shared/engine/topologies'
 import type { DesignPreview } from '#shared/types/design'
 import { SAFETY_NOTE, topologySummary } from '~~/server/services/bom'
 import { loadDesign, loadRevision, revisionQuery } from '~~/server/services/designs'
@@ -25,7 +26,7 @@ export default defineEventHandler(async (event) => {
     if (c.levels) inputs.push([`${p}levels`, c.levels, ''])
     if (c.dcVoltage) inputs.push([`${p}DC voltage nominal`, c.dcVoltage, 'V'], [`${p}DC voltage worst case`, c.dcVoltageMax ?? c.dcVoltage, 'V'])
     if (c.inputLineVoltageRms) inputs.push([`${p}input line voltage`, c.inputLineVoltageRms, 'V'])
-    if (c.topology === 'matrix') {
+    if (topologyById[c.topology].presentation.form.inputSide) {
       inputs.push([`${p}input displacement factor`, `${c.inputDisplacementFactor ?? 1} ${c.inputDisplacementSense ?? 'lagging'}`, ''], [`${p}input frequency`, c.inputFrequencyHz ?? 50, 'Hz'])
       if (c.inputFilterResonanceHz) inputs.push([`${p}input filter resonance`, c.inputFilterResonanceHz, 'Hz'])
     }
