@@ -3,8 +3,10 @@
 import { eq, inArray, isNotNull, sql } from 'drizzle-orm'
 import type { CatalogPart, ColumnKey } from '#shared/catalog/types'
 import { canonical, mergeIncoming, storedPart, type ImportedPart } from '#shared/catalog/merge'
-import { openSharedIndex, sharePartIndex, type PartIndex, type SharedPartIndex } from '#shared/catalog/matching'
+import { openSharedIndex, type PartIndex, type SharedPartIndex } from '#shared/catalog/matching'
 import { partKey } from '#shared/catalog/part-key'
+import { perGeneration, type CurrentPart } from '../catalog/current-index'
+import { runInPool } from '../workers/pool'
 
 const BATCH = 2000
 
@@ -123,7 +125,7 @@ export async function commitParts(tx: Tx, incoming: ImportedPart[], meta: { user
   return { catalogVersionId: version!.id, number: next, added, updated, unchanged }
 }
 
-export type CurrentPart = CatalogPart & { partVersionId: number, partId: number, approved: boolean }
+export type { CurrentPart }
 
 /**
  * The catalogue as matching reads it, for one generation: the column index in shared memory (`shared`, sent as
@@ -132,11 +134,6 @@ export type CurrentPart = CatalogPart & { partVersionId: number, partId: number,
  */
 export interface CurrentCatalogue { generation: number, shared: SharedPartIndex, index: PartIndex, places: Map<number, number> }
 
-// Tagged with the catalogue generation it was read at. The generation lives in PostgreSQL (catalog_state, moved
-// on by triggers on every parts / part_versions write, approvals included), so this copy is never trusted
-// without asking for it.
-let cache: CurrentCatalogue | null = null
-
 /** The catalogue generation: one primary-key read, changes with every committed part or part-version write. */
 export async function catalogGeneration(): Promise<number> {
   const [row] = await useDb().select({ generation: tables.catalogState.generation }).from(tables.catalogState).where(eq(tables.catalogState.id, 1))
@@ -144,20 +141,32 @@ export async function catalogGeneration(): Promise<number> {
 }
 
 /**
+ * Reads every current part version as one JSON text (PostgreSQL writes it; this thread only receives the bytes)
+ * and builds the index on a worker thread. Read the generation before the parts: a commit in between leaves
+ * newer parts under an older tag, which only costs one more read — never a stale answer.
+ */
+async function buildCatalogue(generation: number): Promise<CurrentCatalogue> {
+  const [row] = await useDb().execute<{ rows: string }>(sql`
+    select coalesce(json_agg(json_build_array(v.id, v.part_id, p.approved, v.data)), '[]')::text as rows
+    from part_versions v join parts p on p.id = v.part_id
+    where v.is_current`)
+  const shared = await runInPool<SharedPartIndex>({ kind: 'build-index', rows: row?.rows ?? '[]' })
+  const places = new Map<number, number>()
+  for (let i = 0; i < shared.size; i++) places.set(shared.ids[i]!, i)
+  return { generation, shared, index: openSharedIndex(shared), places }
+}
+
+// Tagged with the catalogue generation it was read at. The generation lives in PostgreSQL (catalog_state, moved
+// on by triggers on every parts / part_versions write, approvals included), so this copy is never trusted
+// without asking for it. Requests that find the same new generation wait for one build.
+const catalogueOf = perGeneration(buildCatalogue)
+
+/**
  * The current version of every part as the matching index, kept between requests until the generation moves on
- * (any instance's commit or edit). Read the generation before the parts: a commit in between leaves newer parts
- * under an older tag, which only costs one more read — never a stale answer.
+ * (any instance's commit or edit).
  */
 export async function currentCatalogue(): Promise<CurrentCatalogue> {
-  const generation = await catalogGeneration()
-  if (cache && cache.generation === generation) return cache
-  const rows = await useDb().select({ id: tables.partVersions.id, partId: tables.partVersions.partId, data: tables.partVersions.data, approved: tables.parts.approved })
-    .from(tables.partVersions).innerJoin(tables.parts, eq(tables.parts.id, tables.partVersions.partId))
-    .where(eq(tables.partVersions.isCurrent, true))
-  const parts: CurrentPart[] = rows.map(r => ({ ...(r.data as CatalogPart), partVersionId: r.id, partId: r.partId, approved: r.approved }))
-  const shared = sharePartIndex(parts, p => (p as CurrentPart).partVersionId)
-  cache = { generation, shared, index: openSharedIndex(shared), places: new Map(parts.map((p, i) => [p.partVersionId, i])) }
-  return cache
+  return catalogueOf(await catalogGeneration())
 }
 
 /** Same as currentCatalogue (the name the worker-pool callers use). */

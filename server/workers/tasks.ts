@@ -6,6 +6,7 @@ import { EngineInputError, evaluateDesign, evaluateStress, type DesignInput, typ
 import { openSharedIndex, type PartIndex, type SharedPartIndex } from '#shared/catalog/matching'
 import type { TradeStudyInput } from '#shared/schemas/trade-study'
 import { readCatalogFile, type ReadOptions } from '../catalog/read'
+import { buildCurrentIndex } from '../catalog/current-index'
 import { previewDesign, type PreviewView } from '../services/designs'
 import { matchDesignPositions, type DesignMatchRequest } from '../services/parts'
 import { tradeStudyRows } from '../services/trade-study'
@@ -24,6 +25,7 @@ export type Task
     | { kind: 'preview', input: DesignInput, view?: Partial<PreviewView> }
     | { kind: 'trade-study', generation: number, index: SharedPartIndex, duty: TradeStudyInput }
     | { kind: 'match-design', generation: number, index: SharedPartIndex, request: DesignMatchRequest }
+    | { kind: 'build-index', rows: string }
     | { kind: 'read-catalog', file: Uint8Array, filename: string, limits: ReadOptions }
     | { kind: 'bom-pdf', fonts?: PdfFonts, args: { snapshot: BomSnapshot, purchase: BomPurchase, options?: BomPdfOptions } }
     | { kind: 'design-pdf', fonts?: PdfFonts, report: Parameters<typeof designReportPdf>[0] }
@@ -63,6 +65,8 @@ async function run(task: Task): Promise<TaskResult> {
       return { ok: true, value: tradeStudyRows(task.duty, catalogFor(task)) }
     case 'match-design':
       return { ok: true, value: matchDesignPositions(task.request, catalogFor(task)) }
+    case 'build-index':
+      return { ok: true, value: buildCurrentIndex(task.rows) }
     case 'read-catalog':
       return { ok: true, value: await readCatalogFile(Buffer.from(task.file.buffer, task.file.byteOffset, task.file.byteLength), task.filename, task.limits) }
     case 'bom-pdf':
