@@ -3,7 +3,7 @@
 // the field is refused with a message, never reinterpreted. Numbers and units are read by the catalogue's
 // parser (shared/catalog/units.ts), so a cell and a field understand the same notation.
 import { parseNumberText, prefixFactor, recogniseOtherQuantity, splitQuantityText, UNIT_SPECS, unitFactor, type DecimalSeparator } from '../catalog/units'
-import { formatSi } from './format'
+import { decimalMark, formatSi } from './format'
 
 export interface QuantityField {
   /** SI base unit of the field, a key of UNIT_SPECS: 'V', 'A', 'Hz', 'H', 'A/s', '°C', '%' (a fraction: 85 % → 0.85), '' (a plain number). */
@@ -26,11 +26,8 @@ export type FieldQuantity = { ok: true, value: number | undefined } | { ok: fals
 // Units a bare prefix may stand in front of without the unit ("4k" in a frequency field); not °C, %, plain numbers.
 const PREFIXABLE = new Set(['V', 'A', 'Hz', 'H', 'A/s', 'W', 'Ω', 'F', 'J', 's'])
 
-/** The decimal mark of a locale, from Intl: ',' for de-DE and sv-SE, '.' for en-GB and en-US. */
-export function decimalMarkOf(locale: string): DecimalSeparator {
-  const parts = new Intl.NumberFormat(locale).formatToParts(1.5)
-  return parts.find(p => p.type === 'decimal')?.value === ',' ? ',' : '.'
-}
+/** The decimal mark of a locale (the one helper in ./format): ',' for de-DE and sv-SE, '.' for en-GB and en-US. */
+export const decimalMarkOf: (locale: string) => DecimalSeparator = decimalMark
 
 function localised(text: string, mark: DecimalSeparator): string {
   return mark === ',' ? text.replace(/(\d)\.(\d)/g, '$1,$2') : text

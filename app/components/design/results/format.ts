@@ -1,10 +1,11 @@
 // Display formatting for result numbers: SI prefixes, three significant digits, the active locale's decimal
 // mark. No engineering here.
-import { decimalMark, formatSi } from '#shared/utils/format'
+import { formatNumber as formatPlain, formatSi } from '#shared/utils/format'
 import { activeLocale } from '~/composables/useLocale'
 
-/** The number text with the active locale's decimal mark. */
-const localised = (text: string) => (decimalMark(activeLocale()) === ',' ? text.replace('.', ',') : text)
+/** `digits` significant digits in the active locale, no grouping, a true minus sign. */
+const significant = (value: number, digits: number) =>
+  formatPlain(value, activeLocale(), { significant: digits, grouping: false }).replace('-', '−')
 
 const DASH = '—'
 
@@ -30,13 +31,13 @@ export const formatFrequency = (hertz: number | null | undefined): string => for
 export function formatPercent(fraction: number | null | undefined, digits = 3): string {
   if (fraction === null || fraction === undefined || !Number.isFinite(fraction)) return DASH
   if (fraction === 0) return '0 %'
-  return `${localised(String(Number((fraction * 100).toPrecision(digits))))} %`
+  return `${significant(fraction * 100, digits)} %`
 }
 
 /** plain number (modulation index, ratios) to `digits` significant digits */
 export function formatNumber(value: number | null | undefined, digits = 3): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return DASH
-  return localised(String(Number(value.toPrecision(digits)))).replace('-', '−')
+  return significant(value, digits)
 }
 
 /** whole counts */
