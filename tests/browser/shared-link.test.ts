@@ -32,6 +32,15 @@ describe('mixed-topology back-to-back in Chromium', () => {
     await expect.poll(() => link.locator('tr[data-position="Cdc1"]').count()).toBe(1)
     expect(await link.locator('tr[data-position="Cdc2"]').count()).toBe(1)
     expect(await link.textContent()).toMatch(/independent carriers/)
+    // The counts table: NPC clamp diodes give both column groups a clamp column, and the total row is the sum of
+    // the two sides cell by cell (a misaligned column would break the sum).
+    const counts = page.locator('table.results-counts')
+    expect((await counts.locator('thead th').allTextContents()).filter(t => t.trim() === 'Clamp diodes')).toHaveLength(2)
+    const cells = async (side: string) => (await counts.locator(`tr[data-side="${side}"] td`).allTextContents()).map(t => t.trim())
+    const [machine, grid, total] = [await cells('machine'), await cells('grid'), await cells('total')]
+    expect(machine).toHaveLength(7)
+    expect(Number(machine[2])).toBeGreaterThan(0)
+    expect(total.slice(0, 6)).toEqual(machine.slice(0, 6).map((m, i) => String(Number(m) + Number(grid[i]))))
     await screenshot(page, 'shared-link-results')
 
     await page.getByRole('button', { name: 'Save design' }).click()
