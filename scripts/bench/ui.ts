@@ -3,7 +3,7 @@
 // page → its results on screen, the size of the parts page's HTML and of one edit's answer.
 // `npm run bench -- ui`; STRATAVOLT_BENCH_OUTPUT=.output-test reuses the build of `npm test`.
 import { performance } from 'node:perf_hooks'
-import { chromium, type Page } from 'playwright-core'
+import { chromium, type Browser, type Page } from 'playwright-core'
 import { demoAccounts } from '../lib.mjs'
 import { percentile, signIn, startBuiltServer } from './support'
 
@@ -49,8 +49,9 @@ async function editToRepaint(page: Page, volts: number): Promise<number> {
 
 export async function runUiBench(): Promise<UiFigure[]> {
   const { base, stop } = await startBuiltServer({ database: 'stratavolt_bench_ui', port: PORT, name: 'bench-ui', uploads: 'bench-ui-uploads', seedDemo: true })
-  const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage'] })
+  let browser: Browser | undefined
   try {
+    browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage'] })
     const cookie = await signIn(base, 'engineer@example.com', demoAccounts.password)
     const designs = await (await fetch(`${base}/api/designs`, { headers: { cookie } })).json() as { id: number, name: string }[]
     const npc = designs.find(d => d.name === NPC_DESIGN)
@@ -111,7 +112,7 @@ export async function runUiBench(): Promise<UiFigure[]> {
     ]
   }
   finally {
-    await browser.close()
+    await browser?.close()
     stop()
   }
 }
