@@ -6,7 +6,7 @@ export { evaluateDesign, defaultDerating, STANDARD_VOLTAGE_CLASSES, voltageClass
 export { checkDesignInput, checkStressInput } from './check'
 export { balanceWithLosses, compatibleGridSides, gridInput, linkNodes } from './link'
 export { legLayout, type LegLayout, type LegLayoutItem } from './layout'
-export { drawnUnitText, effectiveLevels, registerTopology, topologies, topologyById, topologyName } from './topologies'
+export { drawnUnitText, effectiveLevels, registerTopology, topologies, topologyById, topologyName, topologyOptions } from './topologies'
 export { linearLimit, SIX_STEP_INDEX } from './modulation'
 export { DEFAULT_INTEGRATION_POINTS } from './integrate'
 export { DEFAULT_RIPPLE_FRACTION } from './capacitors'

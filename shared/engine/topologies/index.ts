@@ -38,6 +38,11 @@ export function registerTopology(definition: TopologyDefinition): () => void {
   }
 }
 
+/** The form's topology choices in registry order, read when a form is built (so a registered topology is offered). */
+export function topologyOptions(): { id: TopologyId, label: string, description: string }[] {
+  return topologies.map(t => ({ id: t.id, label: t.label, description: t.description }))
+}
+
 /** The level count a design of this topology has: its only one, its default where levels are ignored, else the given one. */
 export function effectiveLevels(topology: TopologyId, levels?: number): number {
   const t = topologyById[topology]
