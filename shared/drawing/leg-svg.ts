@@ -1,8 +1,9 @@
-// The leg schematic as a standalone SVG document for print (the design report PDF): the page's geometry and
-// symbols from ./leg, in black and greys, each position labelled with its name and stress. No scripts, no links.
+// The leg schematic as a standalone SVG document for print (the design report PDF): the one renderer of
+// ./leg-render in the report's theme (black and greys), with a heading and the key to the labels. No scripts, no links.
 import { drawnUnitText, topologyById, type LegLayout } from '../engine'
 import { formatSi } from '../utils/format'
-import { drawLeg, FRAME, insetGeometry, LABEL_GAP, labelBaselines, labelLines, labelWidthOf, SYMBOL, WIRE, type LabelLine, type PlacedPart } from './leg'
+import { SYMBOL } from './leg'
+import { renderLeg, type LegTheme, type SvgChild } from './leg-render'
 
 /** Worst-case stresses per position (the engine's DeviceEnvelope and CapacitorEnvelope fit as they are). */
 export interface LegStresses {
@@ -50,37 +51,41 @@ function attrs(a: Record<string, string | number | undefined>): string {
 const el = (name: string, a: Record<string, string | number | undefined>, body?: string) =>
   body === undefined ? `<${name}${attrs(a)}/>` : `<${name}${attrs(a)}>${body}</${name}>`
 
-function symbol(p: PlacedPart): string {
-  const stroke = SYMBOL.stroke
-  if (p.shape === 'switch') {
-    const s = SYMBOL.switch
-    const d = SYMBOL.antiParallelDiode
-    const body = [
-      el('g', { 'fill': 'none', 'stroke': INK, 'stroke-width': stroke, 'stroke-linecap': 'round', 'stroke-linejoin': 'round' }, [
-        el('path', { d: s.collector }),
-        el('path', { 'd': s.channel, 'stroke-width': stroke + 1 }),
-        el('path', { d: s.emitter }),
-        el('path', { d: s.gate }),
-      ].join('')),
-      el('path', { d: s.arrow, fill: INK }),
-    ]
-    if (p.diodeName) {
-      body.push(
-        el('g', { 'fill': 'none', 'stroke': INK, 'stroke-width': stroke, 'stroke-linejoin': 'round' }, el('path', { d: d.leads }) + el('path', { d: d.bar })),
-        el('path', { 'd': d.triangle, 'fill': PAPER, 'stroke': INK, 'stroke-width': stroke, 'stroke-linejoin': 'round' }),
-        ...d.joints.map(j => el('circle', { cx: j.x, cy: j.y, r: d.jointRadius, fill: INK })),
-      )
+/** The renderer's element tree as XML text. */
+export function serialiseSvg(nodes: readonly SvgChild[]): string {
+  return nodes.map(n => (typeof n === 'string' ? escapeXml(n) : el(n.tag, n.attrs, n.children.length ? serialiseSvg(n.children) : undefined))).join('')
+}
+
+/** The report's look: black and greys on white, sizes as attributes, the font's missing glyphs dropped. */
+const PRINT: LegTheme = {
+  ink: () => INK,
+  triangle: () => PAPER,
+  dot: INK,
+  wire: WIRE_INK,
+  paper: PAPER,
+  frame: { 'fill': 'none', 'stroke': SOFT_INK, 'stroke-width': 0.8 },
+  terminal: { 'stroke': INK, 'stroke-width': SYMBOL.stroke },
+  inset: {
+    input: SOFT_INK,
+    output: detailed => ({ 'stroke': detailed ? INK : SOFT_INK, 'stroke-width': detailed ? 2 : 1.2 }),
+    // The detailed output phase is shaded grey: it still reads in black and white.
+    crosspoint: detailed => ({ 'fill': detailed ? '#c8c8c8' : PAPER, 'stroke': detailed ? INK : SOFT_INK, 'stroke-width': 1.2 }),
+  },
+  text: (role) => {
+    switch (role) {
+      case 'name': return { 'font-size': TEXT.name, 'font-weight': 'bold', 'fill': INK }
+      case 'stress': return { 'font-size': TEXT.stress, 'fill': SOFT_INK }
+      case 'frame': return { 'font-size': TEXT.rail, 'fill': SOFT_INK }
+      case 'terminal':
+      case 'rail': return { 'font-size': TEXT.rail, 'fill': INK }
+      case 'caption': return { 'font-size': TEXT.caption, 'font-style': 'italic', 'fill': SOFT_INK }
+      case 'inset-title': return { 'font-size': TEXT.caption, 'fill': SOFT_INK }
+      case 'inset-input': return { 'font-size': TEXT.inset, 'fill': SOFT_INK }
+      case 'inset-output': return { 'font-size': TEXT.inset, 'font-weight': 'normal', 'fill': INK }
+      case 'inset-output-detailed': return { 'font-size': TEXT.inset, 'font-weight': 'bold', 'fill': INK }
     }
-    return body.join('')
-  }
-  if (p.shape === 'diode') {
-    const s = SYMBOL.diode
-    return el('path', { 'd': s.leads, 'fill': 'none', 'stroke': INK, 'stroke-width': stroke })
-      + el('path', { 'd': s.triangle, 'fill': PAPER, 'stroke': INK, 'stroke-width': stroke, 'stroke-linejoin': 'round' })
-  }
-  const s = SYMBOL.capacitor
-  return el('path', { 'd': s.leads, 'fill': 'none', 'stroke': INK, 'stroke-width': stroke })
-    + el('path', { 'd': s.plates, 'fill': 'none', 'stroke': INK, 'stroke-width': stroke + 1.2 })
+  },
+  printable,
 }
 
 /** One line of text at (x, y). */
@@ -106,56 +111,8 @@ export function legSchematicSvg(layout: LegLayout, stresses: LegStresses, option
     if (c) return `${quantity(c.voltage, 'V')} · ${quantity(c.rippleCurrentRms, 'A')}`
     return ''
   }
-  const linesOf = (p: Pick<PlacedPart, 'name' | 'diodeName' | 'namesOnly'>): LabelLine[] => labelLines(p, nameText, stressText)
-  const drawing = drawLeg(layout, { labelWidth: (name, diodeName) => labelWidthOf(linesOf({ name, diodeName })) })
-
-  const out: string[] = []
-  for (const f of drawing.frames) {
-    out.push(el('rect', { 'x': f.x, 'y': f.y, 'width': f.w, 'height': f.h, 'rx': FRAME.radius, 'fill': 'none', 'stroke': SOFT_INK, 'stroke-width': 0.8, 'stroke-dasharray': FRAME.dash }))
-    out.push(textLine(f.x + FRAME.labelDx, f.y + FRAME.labelDy, f.label, { 'font-size': TEXT.rail, 'fill': SOFT_INK }))
-  }
-  for (const w of drawing.wires) {
-    out.push(el('path', { 'd': w.d, 'fill': 'none', 'stroke': WIRE_INK, 'stroke-width': WIRE.stroke, 'stroke-dasharray': w.dashed ? WIRE.dash : undefined, 'stroke-linecap': 'square' }))
-  }
-  for (const d of drawing.dots) out.push(el('circle', { cx: d.x, cy: d.y, r: WIRE.dotRadius, fill: INK }))
-  for (const p of drawing.parts) {
-    out.push(el('g', { transform: `translate(${num(p.x)} ${num(p.y)}) rotate(${p.rotation})` }, symbol(p)))
-  }
-  // Labels after every symbol so no part is drawn over a label.
-  for (const p of drawing.parts) {
-    const lines = linesOf(p)
-    labelBaselines(p.label, lines.length).forEach((y, k) => {
-      const line = lines[k]!
-      const name = el('tspan', { 'font-size': TEXT.name, 'font-weight': 'bold', 'fill': INK }, escapeXml(line.name))
-      const stress = line.stress ? el('tspan', { 'dx': LABEL_GAP, 'font-size': TEXT.stress, 'fill': SOFT_INK }, escapeXml(line.stress)) : ''
-      out.push(el('text', { 'x': p.label.x, y, 'text-anchor': p.label.anchor }, name + stress))
-    })
-  }
-  for (const t of drawing.terminals) {
-    out.push(el('circle', { 'cx': t.x, 'cy': t.y, 'r': WIRE.terminalRadius, 'fill': PAPER, 'stroke': INK, 'stroke-width': SYMBOL.stroke }))
-    out.push(textLine(t.x + t.dx, t.y + t.dy, t.text, { 'text-anchor': t.anchor, 'font-size': TEXT.rail, 'fill': INK }))
-  }
-  for (const n of drawing.notes) {
-    const style = n.tone === 'rail'
-      ? { 'text-anchor': n.anchor, 'font-size': TEXT.rail, 'fill': INK }
-      : { 'text-anchor': n.anchor, 'font-size': TEXT.caption, 'font-style': 'italic', 'fill': SOFT_INK }
-    out.push(textLine(n.x, n.y, n.text, style))
-  }
-  if (drawing.inset) {
-    const g = insetGeometry(drawing.inset)
-    const body = [textLine(g.title.x, g.title.y, g.title.text, { 'font-size': TEXT.caption, 'fill': SOFT_INK })]
-    for (const i of g.inputs) {
-      body.push(el('path', { 'd': i.d, 'stroke': SOFT_INK, 'stroke-width': 1.2 }))
-      body.push(textLine(i.label.x, i.label.y, i.label.text, { 'text-anchor': 'end', 'font-size': TEXT.inset, 'fill': SOFT_INK }))
-    }
-    for (const o of g.outputs) {
-      body.push(el('path', { 'd': o.d, 'stroke': o.detailed ? INK : SOFT_INK, 'stroke-width': o.detailed ? 2 : 1.2 }))
-      body.push(textLine(o.label.x, o.label.y, o.label.text, { 'text-anchor': 'middle', 'font-size': TEXT.inset, 'font-weight': o.detailed ? 'bold' : 'normal', 'fill': INK }))
-      // The detailed output phase is shaded grey: it still reads in black and white.
-      for (const b of o.crosspoints) body.push(el('rect', { 'x': b.x, 'y': b.y, 'width': b.size, 'height': b.size, 'rx': b.radius, 'fill': o.detailed ? '#c8c8c8' : PAPER, 'stroke': o.detailed ? INK : SOFT_INK, 'stroke-width': 1.2 }))
-    }
-    out.push(el('g', { transform: `translate(${num(drawing.inset.x)} ${num(drawing.inset.y)})` }, body.join('')))
-  }
+  const { drawing, nodes } = renderLeg({ layout, nameText, stressText, theme: PRINT })
+  const out = [serialiseSvg(nodes)]
 
   // Heading above and the key to the labels below the drawing, inside the document so it stands alone.
   const hasCapacitors = layout.items.some(i => i.kind === 'capacitor')

@@ -125,7 +125,7 @@ describe('a throw-away topology from one file', () => {
     const part = {
       partNumber: 'TST-SW12-400', manufacturer: 'Throwaway Test Devices', kind: 'switch-diode' as const, packageConfiguration: 'single' as const,
       voltageRating: 1200, currentRating: 400,
-      priceBreaks: [{ minQuantity: 1, unitPrice: 50 }], currency: 'EUR', lifecycle: 'active' as const,
+      priceBreaks: [{ minQuantity: 1, unitPrice: 50 }], currency: 'EUR' as const, lifecycle: 'active' as const,
     }
     const policy = { heatsinkTemperatureC: 80, junctionMarginC: 15, buildQuantity: 1 }
     const fills = env.devices.filter(d => d.kind === 'switch').map((d) => {
