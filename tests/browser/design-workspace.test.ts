@@ -27,6 +27,13 @@ describe('design workspace in Chromium', () => {
     await page.locator('tr[data-position="Dc1+"]').first().waitFor()
     await page.getByTestId('leg-schematic').first().waitFor()
     expect(await page.locator('table.results-devices tr[data-position^="Dc"]').count()).toBeGreaterThanOrEqual(2)
+    // One highlight for the drawing and the tables: pointing at a part marks its row, pointing at a row marks the part.
+    const schematic = page.getByTestId('leg-schematic').first()
+    await schematic.locator('[data-hover="Dc1+"]').first().hover()
+    await expect.poll(() => page.locator('table.results-devices tr[data-position="Dc1+"]').first().getAttribute('aria-current')).toBe('true')
+    await page.locator('table.results-devices tr[data-position="S1"]').first().hover()
+    await expect.poll(() => schematic.locator('[data-hover="S1"] [stroke="#0d9488"]').count()).toBeGreaterThan(0)
+    expect(await schematic.locator('[data-hover="Dc1+"] [stroke="#0d9488"]').count()).toBe(0)
     const before = amps(await rmsOf(page, 'D1'))
     await page.getByRole('button', { name: '+ Regenerative braking' }).click()
     await expect.poll(async () => amps(await rmsOf(page, 'D1')), { timeout: 15000 }).toBeGreaterThan(before * 1.2)
