@@ -5,6 +5,7 @@
 // switching duty (a unit test checks it), so losses from a profile average to the point's losses.
 import { deriveCommutations, integrateSwitching } from './commutations'
 import { levelShares } from './integrate'
+import { matrixSwitching } from './matrix-input'
 import { makeReference, SIX_STEP_INDEX } from './modulation'
 import { scalesFor } from './stress'
 import type { StressInput } from './types'
@@ -68,7 +69,9 @@ export function lossProfile(input: StressInput, bins = PROFILE_BINS): LossProfil
     }
   }
   const binned = { bins, sums: new Float64Array(bins * P * 3) }
-  const switching = integrateSwitching(leg, deriveCommutations(leg), reference, currentPeak, phi, scales.unitNominal, { points, sixStep, binned })
+  const switching = p.matrixInput
+    ? matrixSwitching(leg.positions.map(x => x.name), { phiIn: p.matrixInput.angle, inputPhasePeak: (Math.SQRT2 * p.inputLineVoltageRms) / Math.sqrt(3), inputHz: p.matrixInput.frequencyHz, fundamentalHz: p.fundamentalHz, switchingHz: p.switchingHz, reference }, scales.unitNominal, currentPeak, phi, { points, binned })
+    : integrateSwitching(leg, deriveCommutations(leg), reference, currentPeak, phi, scales.unitNominal, { points, sixStep, binned })
   const positions = leg.positions.map((pos, k): PositionProfile => {
     const out: PositionProfile = { name: pos.name, currentAbs: new Float64Array(bins), currentSquare: new Float64Array(bins), turnOn: null, turnOff: null, recovery: null }
     for (let b = 0; b < bins; b++) {
