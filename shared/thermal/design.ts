@@ -122,7 +122,18 @@ export function designProfiles(input: DesignInput): Map<'machine' | 'grid', Loss
   return out
 }
 
+// Per position duty and profile list, made once per evaluation (the heatsink, the junctions and the case groups read them).
+const profiledCache = new WeakMap<PositionDuty, { profiles: LossProfile[] | undefined, points: ProfiledDuty[] }>()
+
 function profiledPoints(duty: PositionDuty, profiles: LossProfile[] | undefined): ProfiledDuty[] {
+  const hit = profiledCache.get(duty)
+  if (hit && hit.profiles === profiles) return hit.points
+  const points = joinProfiles(duty, profiles)
+  profiledCache.set(duty, { profiles, points })
+  return points
+}
+
+function joinProfiles(duty: PositionDuty, profiles: LossProfile[] | undefined): ProfiledDuty[] {
   return (duty.points ?? []).map((pt, k) => {
     const prof = profiles?.[k]
     const position = prof?.positions.find(p => p.name === duty.positionName)
@@ -248,10 +259,13 @@ function choiceThermal(part: CatalogPart, dynamics: readonly PointDynamicsOf[], 
   const perPoint: PointDynamics[] = []
   let fromFoster = true
   const notes = new Set<string>()
+  let lastNote: string | null = null
   for (const d of dynamics) {
     if (!d) return null
     fromFoster &&= d.fromFoster
-    for (const n of d.note.split('; ')) if (n) notes.add(n)
+    // The points mostly repeat one note: split it once.
+    if (d.note !== lastNote) for (const n of d.note.split('; ')) if (n) notes.add(n)
+    lastNote = d.note
     const { note: _n, fromFoster: _f, ...fig } = d
     perPoint.push(fig)
   }
