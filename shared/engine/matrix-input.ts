@@ -554,7 +554,9 @@ export interface MatrixCommutationWeights {
 
 export function matrixCommutationWeights(positionNames: readonly string[], phiIn: number, unitVoltage: number, inputPhasePeak: number, inputAnglePerCarrier: number): MatrixCommutationWeights {
   const P = positionNames.length
-  const index = (device: 'S' | 'D', X: number, sign: '+' | '-') => positionNames.indexOf(`${device}${INPUTS[X]}${sign}`)
+  // position index of S_X+, D_X+, S_X−, D_X− per input phase X (−1: not in the leg), looked up once
+  const lookup = (device: 'S' | 'D', sign: '+' | '-') => Int32Array.from([0, 1, 2], X => positionNames.indexOf(`${device}${INPUTS[X]}${sign}`))
+  const sPlus = lookup('S', '+'), dPlus = lookup('D', '+'), sMinus = lookup('S', '-'), dMinus = lookup('D', '-')
   const pair = (): [Float64Array, Float64Array] => [new Float64Array(P * 3), new Float64Array(P * 3)]
   const out: MatrixCommutationWeights = { a0: pair(), b0: pair(), a1: pair(), b1: pair() }
   const rect = newRectifier()
@@ -587,11 +589,11 @@ export function matrixCommutationWeights(positionNames: readonly string[], phiIn
           const rise = inputPhasePeak * (Math.sin(th - to * SHIFT) - Math.sin(th - from * SHIFT))
           const volts = Math.abs(rise) / unitVoltage
           // i ≥ 0: the incoming switch S_B+ turns on when v_B > v_A (D_A− recovers), else S_A+ turns off.
-          if (rise > 0) { charge(k, 0, index('S', to, '+'), 'turn-on', volts, delta); charge(k, 0, index('D', from, '-'), 'recovery', volts, delta) }
-          else charge(k, 0, index('S', from, '+'), 'turn-off', volts, delta)
+          if (rise > 0) { charge(k, 0, sPlus[to]!, 'turn-on', volts, delta); charge(k, 0, dMinus[from]!, 'recovery', volts, delta) }
+          else charge(k, 0, sPlus[from]!, 'turn-off', volts, delta)
           // i < 0: S_B− turns on when v_B < v_A (D_A+ recovers), else S_A− turns off.
-          if (rise < 0) { charge(k, 1, index('S', to, '-'), 'turn-on', volts, delta); charge(k, 1, index('D', from, '+'), 'recovery', volts, delta) }
-          else charge(k, 1, index('S', from, '-'), 'turn-off', volts, delta)
+          if (rise < 0) { charge(k, 1, sMinus[to]!, 'turn-on', volts, delta); charge(k, 1, dPlus[from]!, 'recovery', volts, delta) }
+          else charge(k, 1, sMinus[from]!, 'turn-off', volts, delta)
         }
         from = to
       }
@@ -613,6 +615,20 @@ export function matrixCommutationWeights(positionNames: readonly string[], phiIn
   return out
 }
 
+// The weights depend on the input side only: the operating points of a design (and their thermal profiles) share them.
+const weightsCache = new Map<string, MatrixCommutationWeights>()
+
+function commutationWeightsOnce(positionNames: readonly string[], phiIn: number, unitVoltage: number, inputPhasePeak: number, inputAnglePerCarrier: number): MatrixCommutationWeights {
+  const key = [positionNames.join(','), phiIn, unitVoltage, inputPhasePeak, inputAnglePerCarrier].join('|')
+  let w = weightsCache.get(key)
+  if (!w) {
+    w = matrixCommutationWeights(positionNames, phiIn, unitVoltage, inputPhasePeak, inputAnglePerCarrier)
+    if (weightsCache.size >= 32) weightsCache.delete(weightsCache.keys().next().value!)
+    weightsCache.set(key, w)
+  }
+  return w
+}
+
 /**
  * The matrix converter's per-position switching duty (as integrateSwitching gives it for state-table legs): the
  * mean over the fundamental period of Σ |i|·|v_AB| per carrier period, by role, at `points` output angles
@@ -621,7 +637,7 @@ export function matrixCommutationWeights(positionNames: readonly string[], phiIn
  */
 export function matrixSwitching(positionNames: readonly string[], ctx: { phiIn: number, inputPhasePeak: number, inputHz: number, fundamentalHz: number, switchingHz: number, reference: (theta: number) => number }, unitVoltage: number, currentPeak: number, phi: number, options: { points: number, binned?: { bins: number, sums: Float64Array } }): { turnOn: number, turnOff: number, recovery: number }[] {
   const P = positionNames.length
-  const w = matrixCommutationWeights(positionNames, ctx.phiIn, unitVoltage, ctx.inputPhasePeak, (TWO_PI * ctx.inputHz) / ctx.switchingHz)
+  const w = commutationWeightsOnce(positionNames, ctx.phiIn, unitVoltage, ctx.inputPhasePeak, (TWO_PI * ctx.inputHz) / ctx.switchingHz)
   const outputAnglePerCarrier = (TWO_PI * ctx.fundamentalHz) / ctx.switchingHz
   const sum = new Float64Array(P * 3)
   const { points, binned } = options
