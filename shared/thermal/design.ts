@@ -175,7 +175,8 @@ export function designThermal(input: DesignInput, converters: readonly Converter
   const groups = new Map<string, Map<string, PointDynamicsOf[]>>()
   const results = positions.map((pos) => {
     if (pos.duty.kind === 'capacitor' || pos.side === 'dc-link') return pos.choices.map(() => null)
-    const points = profiledPoints(pos.duty, profiles.get(pos.side))
+    const sideProfiles = profiles.get(pos.side)
+    const points = profiledPoints(pos.duty, sideProfiles)
     const hs = heatsink.get(pos.side)
     return pos.choices.map((choice) => {
       const mates = caseMatePositions(choice, pos, positions)
@@ -186,7 +187,7 @@ export function designThermal(input: DesignInput, converters: readonly Converter
       }
       const members = [pos, ...mates]
       const key = groupKey(choice, members)
-      if (!groups.has(key)) groups.set(key, sharedCaseGroup(choice, members, profiles.get(pos.side), cooling, hs, rth))
+      if (!groups.has(key)) groups.set(key, sharedCaseGroup(choice, members, sideProfiles, cooling, hs, rth))
       const mine = groups.get(key)?.get(pos.duty.positionName)
       const out = mine ? choiceThermal(choice.part, mine, junctionMarginC) : null
       return out && { ...out, caseSharedWith: mates.map(m => m.duty.positionName) }

@@ -63,7 +63,7 @@ describe('shared module case', () => {
 // the only difference is the neighbour's heat in the shared case.
 describe('shared case in a design (case mates from module coverage)', () => {
   const rModule = 0.012
-  const chips = { ...inventedModule, manufacturer: 'Test Devices', kind: 'switch' as const, voltageRating: 1200, currentRating: 600, priceBreaks: [], currency: 'EUR', lifecycle: 'active' as const }
+  const chips = { ...inventedModule, manufacturer: 'Test Devices', kind: 'switch' as const, voltageRating: 1200, currentRating: 600, priceBreaks: [], currency: 'EUR' as const, lifecycle: 'active' as const }
   const module: CatalogPart = { ...chips, partNumber: 'T-HB-SW', packageConfiguration: 'half-bridge', rthCaseHeatsink: 2 * rModule }
   const separate: CatalogPart = { ...chips, partNumber: 'T-SG-SW', packageConfiguration: 'single', rthCaseHeatsink: rModule }
   const input: DesignInput = {
