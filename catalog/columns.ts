@@ -79,8 +79,14 @@ export const FOSTER_PAIRS = 4
 export type FosterDevice = 'Switch' | 'Diode'
 export type FosterColumnKey = `zth${FosterDevice}${'R' | 'Tau'}${1 | 2 | 3 | 4}`
 /** The Foster columns of one device, pair by pair: [R_i key, τ_i key]. */
-export function fosterKeys(device: FosterDevice): [FosterColumnKey, FosterColumnKey][] {
-  return Array.from({ length: FOSTER_PAIRS }, (_, i) => [`zth${device}R${i + 1}` as FosterColumnKey, `zth${device}Tau${i + 1}` as FosterColumnKey])
+export function fosterKeys(device: FosterDevice): readonly (readonly [FosterColumnKey, FosterColumnKey])[] {
+  return FOSTER_KEYS[device]
+}
+
+// Built once: the thermal code asks for them per device and operating point.
+const FOSTER_KEYS: Record<FosterDevice, readonly (readonly [FosterColumnKey, FosterColumnKey])[]> = {
+  Switch: Array.from({ length: FOSTER_PAIRS }, (_, i) => [`zthSwitchR${i + 1}` as FosterColumnKey, `zthSwitchTau${i + 1}` as FosterColumnKey] as const),
+  Diode: Array.from({ length: FOSTER_PAIRS }, (_, i) => [`zthDiodeR${i + 1}` as FosterColumnKey, `zthDiodeTau${i + 1}` as FosterColumnKey] as const),
 }
 
 export type ExampleValue = string | number

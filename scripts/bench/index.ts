@@ -5,12 +5,14 @@ import { runEngineBench } from './engine'
 import { runImportApiBench } from './import-api'
 import { runLoadBench } from './load'
 import { runScaleBench } from './scale'
+import { runTradeBench } from './trade'
 import { runUiBench } from './ui'
 
 interface Figure { name: string, p50Ms: number, p99Ms: number, runs: number, target?: string }
 
 const suites: [string, () => Promise<Figure[]>][] = [
   ['engine', runEngineBench],
+  ['trade', runTradeBench],
   ['catalogue', runCatalogBench],
   ['bom', runBomBench],
   ['import-api', runImportApiBench],

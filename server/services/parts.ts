@@ -9,7 +9,7 @@ import { moduleCoverage, type LegPosition } from '#shared/bom/coverage'
 import type { CatalogPart } from '#shared/catalog/types'
 import type { BomSettings } from '#shared/schemas/design'
 import { efficiencyAt, headlinePoint, pointDutiesOf, totalsPerPoint } from '#shared/thermal/losses'
-import { designThermal, type ChoiceThermal, type DesignThermal, type ThermalPosition } from '#shared/thermal/design'
+import { caseMatesByCoverage, designThermal, type ChoiceThermal, type DesignThermal, type ThermalPosition } from '#shared/thermal/design'
 import type { ReportEvaluation } from '../exports/design-pdf'
 import { formatNumber } from '#shared/utils/format'
 import { currentCatalogue, partVersionsById } from './catalog'
@@ -218,9 +218,12 @@ export const THERMAL_CANDIDATES = 10
  * and makes the part thermally not fine.
  */
 export function attachThermal(input: DesignInput, result: DesignResult, positions: PositionMatch[], policy: MatchPolicy): Omit<DesignThermal, 'results'> {
+  const mates = assignedCaseMates(input, positions)
   const list: ThermalPosition[] = positions.map((p) => {
-    const assigned = p.assigned?.evaluation ? [{ part: p.assigned.part, seriesCount: p.assigned.seriesCount, parallelCount: p.assigned.parallelCount }] : []
-    const shown = p.candidates.slice(0, THERMAL_CANDIDATES).map(c => ({ part: c.part, seriesCount: c.seriesCount, parallelCount: c.parallelCount }))
+    const own = mates.get(p.side)?.get(p.position)
+    const assigned = p.assigned?.evaluation ? [{ part: p.assigned.part, seriesCount: p.assigned.seriesCount, parallelCount: p.assigned.parallelCount, ...(own ? { caseMates: own } : {}) }] : []
+    // A candidate module fills the positions it covers when chosen: they would share its case.
+    const shown = p.candidates.slice(0, THERMAL_CANDIDATES).map(c => ({ part: c.part, seriesCount: c.seriesCount, parallelCount: c.parallelCount, ...(c.covers.length ? { caseMates: c.covers } : {}) }))
     const choices = [...assigned, ...shown]
     return { side: p.side, duty: p.duty, choices, reference: choices.length ? 0 : -1, referenceAssigned: assigned.length > 0 }
   })
@@ -244,6 +247,22 @@ export function attachThermal(input: DesignInput, result: DesignResult, position
   })
   const { results: _r, ...rest } = out
   return rest
+}
+
+/**
+ * Per side, the case mates of each assigned part: positions assigned the same part version that one package of it
+ * fills (module coverage from the recorded module host first, then in leg order), as the BOM packs them.
+ */
+export function assignedCaseMates(input: DesignInput, positions: readonly PositionMatch[]): Map<Side, Map<string, string[]>> {
+  const out = new Map<Side, Map<string, string[]>>()
+  for (const side of ['machine', 'grid'] as const) {
+    const own = positions.filter(p => p.side === side && p.assigned && p.duty.kind !== 'capacitor')
+    if (own.length < 2) continue
+    const at = new Map(own.map(p => [p.position, { key: String(p.assigned!.partVersionId), part: p.assigned!.part }]))
+    const hosts = own.map(p => p.assigned!.coveredBy).filter((h): h is string => !!h)
+    out.set(side, caseMatesByCoverage(legPositions(input, side), name => at.get(name) ?? null, hosts))
+  }
+  return out
 }
 
 /**

@@ -4,10 +4,11 @@ import { matchPosition, type PartIndex } from '#shared/catalog/matching'
 import { defaultCandidates, type TradeStudyInput } from '#shared/schemas/trade-study'
 import type { TradeStudyMissing, TradeStudyRow } from '#shared/types/trade-study'
 import { headlinePoint, totalsPerPoint } from '#shared/thermal/losses'
-import { designThermal, type ThermalPosition } from '#shared/thermal/design'
+import { caseMatesByCoverage, designThermal, type ThermalPosition } from '#shared/thermal/design'
+import { partKey } from '#shared/catalog/part-key'
 import { runInPool } from '../workers/pool'
 import { currentCatalog } from './catalog'
-import { designPositions, matchPolicy } from './parts'
+import { designPositions, legPositions, matchPolicy } from './parts'
 
 export { defaultCandidates }
 
@@ -84,6 +85,13 @@ export function tradeStudyRows(duty: TradeStudyInput, parts: PartIndex): { rows:
       else if (best.losses.perPoint) lossesByPosition.push({ positionName: d.positionName, perPoint: best.losses.perPoint.map(l => ({ pointName: l.pointName, lossW: l.perConverter })) })
       else fixedLossW += best.losses.perConverter
       cost = cost === null || best.costPerDesign === null ? null : cost + best.costPerDesign
+    }
+    // Positions whose best part is one module (the same part, filling them by its coverage) share its case.
+    const bestAt = new Map(thermalPositions.map(t => [t.duty.positionName, { key: partKey(t.choices[0]!.part.manufacturer, t.choices[0]!.part.partNumber), part: t.choices[0]!.part }]))
+    const mates = caseMatesByCoverage(legPositions(input, 'machine'), name => bestAt.get(name) ?? null)
+    for (const t of thermalPositions) {
+      const own = mates.get(t.duty.positionName)
+      if (own) t.choices[0]!.caseMates = own
     }
     const perPoint = totalsPerPoint(duty.operatingPoints.map((op, i) => ({ ...op, pointName: conv.points[i]!.pointName })), lossesByPosition)
     for (const pt of perPoint) pt.lossW += fixedLossW

@@ -55,6 +55,9 @@ export function moduleCoverage(part: { kind: PartKind, packageConfiguration: Pac
       return true
     }
     if (hostPosition.kind === kind && !take(hostPosition)) return
+    // A diode host served through its anti-parallel switch: that switch takes the first slot (its own chip).
+    const viaSwitch = kind === 'switch' && hostPosition.kind !== 'switch' ? leg.find(p => p.name === hostPosition.antiParallelTo) : undefined
+    if (viaSwitch && !take(viaSwitch)) return
     const rest = leg.filter(p => p.kind === kind && p.name !== host && !p.antiParallelTo)
     // Prefer positions sharing a node with those already taken (a half-bridge's midpoint), then leg order.
     while (used < slotsPerPhase) {

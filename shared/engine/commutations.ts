@@ -213,7 +213,7 @@ export function integrateSwitching(
   currentPeak: number,
   phi: number,
   unitVoltage: number,
-  options: { points: number, sixStep?: boolean, binned?: SwitchingBins },
+  options: { points: number, sixStep?: boolean, binned?: SwitchingBins, sampled?: Float64Array },
 ): SwitchingDuty[] | null {
   if (!table.available) return null
   const P = leg.positions.length
@@ -248,7 +248,8 @@ export function integrateSwitching(
   }
   for (let k = 0; k < points; k++) {
     const theta = (k + 0.5) * dTheta
-    const m = reference(theta)
+    // `sampled`: the caller's reference at these same angles (θ_k = (k + ½)·2π/points), computed once for both loops
+    const m = options.sampled ? options.sampled[k]! : reference(theta)
     const half: 0 | 1 = m >= 0 ? 0 : 1
     const { lo, f } = levelAt(m)
     if (options.sixStep) {

@@ -517,3 +517,150 @@ export function evaluateMatrixInput(p: ResolvedInput, reference: (theta: number)
   }
   return { inputSide, capacitor, warnings }
 }
+
+// ── Switching losses: the commutations of the carrier pattern ───────────────────────────────────────────────
+//
+// Each change of an output's input phase in carrierPattern is one commutation of the output current between two
+// input phases A → B, made by the four-step current-based sequence; the voltage commutated is the instantaneous
+// input line-to-line voltage v_AB (P. W. Wheeler, J. Rodríguez, J. C. Clare et al., "Matrix converters: a technology
+// review", IEEE Trans. Ind. Electron. 49(2), 2002, section III). With the current's sign s known, the step either
+// turns the incoming path's switch on against v_AB (s·(v_B − v_A) > 0: turn-on of S_B, the outgoing path's diode
+// D_A recovers) or the outgoing path's switch off (otherwise: turn-off of S_A, D_B takes the current lossless), as
+// in a hard-switched half-bridge cell at |v_AB|. For i ≥ 0 the path of input X is S_X+ with D_X−, for i < 0 S_X−
+// with D_X+ (topologies/matrix.ts).
+
+const ROLE_INDEX = { 'turn-on': 0, 'turn-off': 1, 'recovery': 2 } as const
+const COMMUTATION_GRID = 192
+const INPUTS = ['R', 'S', 'T'] as const
+/** output duties at which the pattern is made; the sums are linear in d between them (the edges move linearly) */
+const D_LOW = 0.25
+const D_HIGH = 0.75
+
+/**
+ * Output phase a's commutations, summed per position and role (`[3·position + role]`), as means over the input
+ * angle, for one current sign (0: i ≥ 0, 1: i < 0), written so that the duty at an output angle with reference m
+ * and current i (slope i' per carrier period) is
+ *   Σ |i(t_e)|·|v_AB(t_e)| = |i|·(a0 + m·b0) + sign(i)·i'·(a1 + m·b1),
+ * v_AB at each commutation's own instant t_e (the input angle moved by ω_i·(t_e − t_centre)) and the current
+ * linearised about the period's centre. The edges of output a sit at centred fractions (1 ∓ d)/2 of each segment,
+ * d = (1 + m·|c_X*|)/2, so the sums are linear in d; they are taken at d = 1/4 and 3/4. Units of `unitVoltage`.
+ */
+export interface MatrixCommutationWeights {
+  a0: [Float64Array, Float64Array]
+  b0: [Float64Array, Float64Array]
+  a1: [Float64Array, Float64Array]
+  b1: [Float64Array, Float64Array]
+}
+
+export function matrixCommutationWeights(positionNames: readonly string[], phiIn: number, unitVoltage: number, inputPhasePeak: number, inputAnglePerCarrier: number): MatrixCommutationWeights {
+  const P = positionNames.length
+  // position index of S_X+, D_X+, S_X−, D_X− per input phase X (−1: not in the leg), looked up once
+  const lookup = (device: 'S' | 'D', sign: '+' | '-') => Int32Array.from([0, 1, 2], X => positionNames.indexOf(`${device}${INPUTS[X]}${sign}`))
+  const sPlus = lookup('S', '+'), dPlus = lookup('D', '+'), sMinus = lookup('S', '-'), dMinus = lookup('D', '-')
+  const pair = (): [Float64Array, Float64Array] => [new Float64Array(P * 3), new Float64Array(P * 3)]
+  const out: MatrixCommutationWeights = { a0: pair(), b0: pair(), a1: pair(), b1: pair() }
+  const rect = newRectifier()
+  const pattern = newPattern()
+  const d = new Float64Array(3)
+  // per duty sample: Σ|v| and Σ|v|·Δ (Δ = t_e − t_centre in carrier periods), per sign
+  const at = [0, 1].map(() => ({ v: pair(), vd: pair() }))
+  const charge = (k: number, sign: 0 | 1, position: number, role: keyof typeof ROLE_INDEX, v: number, delta: number) => {
+    if (position < 0) return
+    at[k]!.v[sign][3 * position + ROLE_INDEX[role]]! += v
+    at[k]!.vd[sign][3 * position + ROLE_INDEX[role]]! += v * delta
+  }
+  for (let g = 0; g < COMMUTATION_GRID; g++) {
+    const thetaI = ((g + 0.5) * TWO_PI) / COMMUTATION_GRID
+    rectifier(thetaI, phiIn, rect)
+    for (const sample of at) for (const arr of [sample.v, sample.vd]) { arr[0].fill(0); arr[1].fill(0) }
+    for (const [k, duty] of [D_LOW, D_HIGH].entries()) {
+      d.fill(duty)
+      carrierPattern(rect, d, pattern)
+      let prevEnd = 0
+      let from = -1
+      for (let j = 0; j < pattern.n; j++) {
+        const start = prevEnd
+        prevEnd = pattern.end[j]!
+        if (prevEnd - start <= 1e-12) continue
+        const to = pattern.conn[3 * j]!
+        if (from >= 0 && to !== from) {
+          const delta = start - 0.5
+          const th = thetaI + inputAnglePerCarrier * delta
+          const rise = inputPhasePeak * (Math.sin(th - to * SHIFT) - Math.sin(th - from * SHIFT))
+          const volts = Math.abs(rise) / unitVoltage
+          // i ≥ 0: the incoming switch S_B+ turns on when v_B > v_A (D_A− recovers), else S_A+ turns off.
+          if (rise > 0) { charge(k, 0, sPlus[to]!, 'turn-on', volts, delta); charge(k, 0, dMinus[from]!, 'recovery', volts, delta) }
+          else charge(k, 0, sPlus[from]!, 'turn-off', volts, delta)
+          // i < 0: S_B− turns on when v_B < v_A (D_A+ recovers), else S_A− turns off.
+          if (rise < 0) { charge(k, 1, sMinus[to]!, 'turn-on', volts, delta); charge(k, 1, dPlus[from]!, 'recovery', volts, delta) }
+          else charge(k, 1, sMinus[from]!, 'turn-off', volts, delta)
+        }
+        from = to
+      }
+    }
+    // Linear in d: value(d) = low + (d − D_LOW)/(D_HIGH − D_LOW)·(high − low), d = 1/2 + m·|c|/2.
+    const toHalf = (0.5 - D_LOW) / (D_HIGH - D_LOW)
+    const perM = (rect.a / 2) / (D_HIGH - D_LOW)
+    for (const sign of [0, 1] as const) {
+      for (let q = 0; q < P * 3; q++) {
+        const lo = at[0]!.v[sign][q]!, hi = at[1]!.v[sign][q]!
+        const lo1 = at[0]!.vd[sign][q]!, hi1 = at[1]!.vd[sign][q]!
+        out.a0[sign][q]! += (lo + toHalf * (hi - lo)) / COMMUTATION_GRID
+        out.b0[sign][q]! += (perM * (hi - lo)) / COMMUTATION_GRID
+        out.a1[sign][q]! += (lo1 + toHalf * (hi1 - lo1)) / COMMUTATION_GRID
+        out.b1[sign][q]! += (perM * (hi1 - lo1)) / COMMUTATION_GRID
+      }
+    }
+  }
+  return out
+}
+
+// The weights depend on the input side only: the operating points of a design (and their thermal profiles) share them.
+const weightsCache = new Map<string, MatrixCommutationWeights>()
+
+function commutationWeightsOnce(positionNames: readonly string[], phiIn: number, unitVoltage: number, inputPhasePeak: number, inputAnglePerCarrier: number): MatrixCommutationWeights {
+  const key = [positionNames.join(','), phiIn, unitVoltage, inputPhasePeak, inputAnglePerCarrier].join('|')
+  let w = weightsCache.get(key)
+  if (!w) {
+    w = matrixCommutationWeights(positionNames, phiIn, unitVoltage, inputPhasePeak, inputAnglePerCarrier)
+    if (weightsCache.size >= 32) weightsCache.delete(weightsCache.keys().next().value!)
+    weightsCache.set(key, w)
+  }
+  return w
+}
+
+/**
+ * The matrix converter's per-position switching duty (as integrateSwitching gives it for state-table legs): the
+ * mean over the fundamental period of Σ |i|·|v_AB| per carrier period, by role, at `points` output angles
+ * (i = Î·sin(θ − φ), m = reference(θ)); `binned` records the same sums per angle bin (in units of `unitVoltage`,
+ * for the thermal profile).
+ */
+export function matrixSwitching(positionNames: readonly string[], ctx: { phiIn: number, inputPhasePeak: number, inputHz: number, fundamentalHz: number, switchingHz: number, reference: (theta: number) => number }, unitVoltage: number, currentPeak: number, phi: number, options: { points: number, binned?: { bins: number, sums: Float64Array } }): { turnOn: number, turnOff: number, recovery: number }[] {
+  const P = positionNames.length
+  const w = commutationWeightsOnce(positionNames, ctx.phiIn, unitVoltage, ctx.inputPhasePeak, (TWO_PI * ctx.inputHz) / ctx.switchingHz)
+  const outputAnglePerCarrier = (TWO_PI * ctx.fundamentalHz) / ctx.switchingHz
+  const sum = new Float64Array(P * 3)
+  const { points, binned } = options
+  for (let k = 0; k < points; k++) {
+    const theta = ((k + 0.5) * TWO_PI) / points
+    const i = currentPeak * Math.sin(theta - phi)
+    const sign = i >= 0 ? 0 : 1
+    // slope of |i| per carrier period about the centre
+    const slope = (i >= 0 ? 1 : -1) * currentPeak * Math.cos(theta - phi) * outputAnglePerCarrier
+    const m = ctx.reference(theta)
+    const ai = Math.abs(i)
+    const a0 = w.a0[sign], b0 = w.b0[sign], a1 = w.a1[sign], b1 = w.b1[sign]
+    const base = binned ? Math.min(binned.bins - 1, Math.floor((theta / TWO_PI) * binned.bins)) * P * 3 : -1
+    for (let q = 0; q < P * 3; q++) {
+      if (a0[q] === 0 && b0[q] === 0) continue
+      const x = ai * (a0[q]! + m * b0[q]!) + slope * (a1[q]! + m * b1[q]!)
+      sum[q]! += x
+      if (base >= 0) binned!.sums[base + q]! += x
+    }
+  }
+  return positionNames.map((_, p) => ({
+    turnOn: (sum[3 * p]! / points) * unitVoltage,
+    turnOff: (sum[3 * p + 1]! / points) * unitVoltage,
+    recovery: (sum[3 * p + 2]! / points) * unitVoltage,
+  }))
+}

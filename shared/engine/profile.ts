@@ -5,6 +5,7 @@
 // switching duty (a unit test checks it), so losses from a profile average to the point's losses.
 import { deriveCommutations, integrateSwitching } from './commutations'
 import { levelShares } from './integrate'
+import { matrixSwitching } from './matrix-input'
 import { makeReference, SIX_STEP_INDEX } from './modulation'
 import { scalesFor } from './stress'
 import type { StressInput } from './types'
@@ -41,34 +42,45 @@ export function lossProfile(input: StressInput, bins = PROFILE_BINS): LossProfil
   const scales = scalesFor(p)
   const sixStep = p.modulation === 'six-step'
   const amplitude = sixStep ? SIX_STEP_INDEX : ((Math.SQRT2 * p.lineVoltageRms) / Math.sqrt(3)) / scales.halfLink
+  const points = bins * SAMPLES_PER_BIN
+  const dTheta = (2 * Math.PI) / points
   const reference = makeReference(p.modulation, amplitude)
+  // The reference at the sample angles, once: the conduction loop and integrateSwitching read the same values.
+  const sampled = new Float64Array(points)
+  for (let k = 0; k < points; k++) sampled[k] = reference((k + 0.5) * dTheta)
   const phi = p.currentPhaseAngle
   const currentPeak = Math.SQRT2 * p.phaseCurrentRms
   const P = leg.positions.length
   const L = leg.def.modelLevels
-  const points = bins * SAMPLES_PER_BIN
   const abs = new Float64Array(bins * P)
   const sq = new Float64Array(bins * P)
   const shares = new Float64Array(L)
-  const dTheta = (2 * Math.PI) / points
   for (let k = 0; k < points; k++) {
     const theta = (k + 0.5) * dTheta
     const b = Math.floor(k / SAMPLES_PER_BIN)
     const i = currentPeak * Math.sin(theta - phi)
-    const table = leg.weights[levelShares(leg, reference(theta), shares)]!
+    const ai = Math.abs(i)
+    const sign = i >= 0 ? 0 : 1
+    const base = b * P
+    const table = leg.weights[levelShares(leg, sampled[k]!, shares)]!
     for (let l = 0; l < L; l++) {
       const share = shares[l]!
       if (share <= 0) continue
-      const row = table[l]![i >= 0 ? 0 : 1]!
-      for (let q = 0; q < row.index.length; q++) {
-        const d = share * row.weight[q]!
-        abs[b * P + row.index[q]!]! += d * Math.abs(i)
-        sq[b * P + row.index[q]!]! += d * i * i
+      const row = table[l]![sign]!
+      const index = row.index
+      const weight = row.weight
+      for (let q = 0; q < index.length; q++) {
+        const d = share * weight[q]!
+        const at = base + index[q]!
+        abs[at]! += d * ai
+        sq[at]! += d * i * i
       }
     }
   }
   const binned = { bins, sums: new Float64Array(bins * P * 3) }
-  const switching = integrateSwitching(leg, deriveCommutations(leg), reference, currentPeak, phi, scales.unitNominal, { points, sixStep, binned })
+  const switching = p.matrixInput
+    ? matrixSwitching(leg.positions.map(x => x.name), { phiIn: p.matrixInput.angle, inputPhasePeak: (Math.SQRT2 * p.inputLineVoltageRms) / Math.sqrt(3), inputHz: p.matrixInput.frequencyHz, fundamentalHz: p.fundamentalHz, switchingHz: p.switchingHz, reference }, scales.unitNominal, currentPeak, phi, { points, binned })
+    : integrateSwitching(leg, deriveCommutations(leg), reference, currentPeak, phi, scales.unitNominal, { points, sixStep, binned, sampled })
   const positions = leg.positions.map((pos, k): PositionProfile => {
     const out: PositionProfile = { name: pos.name, currentAbs: new Float64Array(bins), currentSquare: new Float64Array(bins), turnOn: null, turnOff: null, recovery: null }
     for (let b = 0; b < bins; b++) {

@@ -4,7 +4,7 @@ import { deriveCommutations, integrateSwitching } from './commutations'
 import { clampStack, defaultDerating } from './derating'
 import { EngineInputError } from './errors'
 import { DEFAULT_INTEGRATION_POINTS, integrateLeg } from './integrate'
-import { evaluateMatrixInput, synthesiseMatrix } from './matrix-input'
+import { evaluateMatrixInput, matrixSwitching, synthesiseMatrix } from './matrix-input'
 import { linearLimit, makeReference, rememberOnGrid, SIX_STEP_INDEX } from './modulation'
 import { harmonicAmplitudes, synthesise, totalHarmonicDistortion } from './synth'
 import type { CompiledLeg } from './model'
@@ -113,7 +113,10 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
 
   const devices = deviceStresses(p, leg, currents, scales, points, options.derating ?? defaultDerating, warnings)
   // Supply 'cell': the table's unit is the cell voltage; otherwise one level step of the nominal link.
-  const switching = integrateSwitching(leg, deriveCommutations(leg), reference, currentPeak, phi, scales.unitNominal, { points, sixStep })
+  // The matrix converter's commutations come from its carrier pattern (matrix-input.ts), not from a state table.
+  const switching = p.matrixInput
+    ? matrixSwitching(leg.positions.map(x => x.name), { phiIn: p.matrixInput.angle, inputPhasePeak: (Math.SQRT2 * p.inputLineVoltageRms) / Math.sqrt(3), inputHz: p.matrixInput.frequencyHz, fundamentalHz: p.fundamentalHz, switchingHz: p.switchingHz, reference }, scales.unitNominal, currentPeak, phi, { points })
+    : integrateSwitching(leg, deriveCommutations(leg), reference, currentPeak, phi, scales.unitNominal, { points, sixStep })
   if (switching) devices.forEach((d, k) => { d.switchingDuty = switching[k]! })
   const caps = capacitorStresses({
     leg,

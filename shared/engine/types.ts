@@ -111,7 +111,8 @@ export interface DeviceStress {
    * V·A, this operating point only: mean over the fundamental period of Σ |i|·v over the device's
    * commutations in one carrier period, by role (derived from the state table, shared/engine/commutations.ts).
    * Switching loss = f_sw · Σ_role E_ref,role · duty_role / (I_ref · V_ref) with linear E(I, V) scaling.
-   * Absent when the state table has no commutation model (matrix converter).
+   * The matrix converter's from its carrier pattern at the instantaneous input line voltage (matrix-input.ts).
+   * Absent when the topology has no commutation model.
    */
   switchingDuty?: { turnOn: number, turnOff: number, recovery: number }
   provenance: Provenance

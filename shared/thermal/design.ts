@@ -8,11 +8,13 @@ import { lossProfile, type LossProfile } from '../engine/profile'
 import type { ConverterResult, DesignInput } from '../engine/types'
 import type { PositionDuty } from '../catalog/matching'
 import type { CatalogPart } from '../catalog/types'
-import { addThreePhases, binLosses, junctionDynamics, type SharedCase, type CoolingSettings, type PointDynamics, type ProfiledDuty } from './dynamics'
+import { addThreePhases, binLosses, junctionDynamics, type CoolingSettings, type PointDynamics, type ProfiledDuty } from './dynamics'
 import { BAYERER_DEFAULTS, CAPACITOR_LIFE_SOURCE, capacitorLife, POWER_CYCLING_SOURCE, powerCyclingLife, type BayererParameters, type PointDamage } from './lifetime'
 import { FOSTER_METHOD } from './network'
 import { deviceLossAtPoint } from './losses'
+import { SETTLE_K } from './temperature'
 import { PACKAGE_CONFIGURATIONS } from '../../catalog/columns'
+import { moduleCoverage, type LegPosition } from '../bom/coverage'
 
 export type ThermalSide = 'machine' | 'grid' | 'dc-link'
 
@@ -67,6 +69,8 @@ export interface ChoiceThermal {
   peakOk: boolean
   fromFoster: boolean
   notes: string[]
+  /** the other positions whose devices sit in the same package (their losses heat the shared case); absent: alone */
+  caseSharedWith?: string[]
 }
 
 export interface PositionLife {
@@ -118,7 +122,18 @@ export function designProfiles(input: DesignInput): Map<'machine' | 'grid', Loss
   return out
 }
 
+// Per position duty and profile list, made once per evaluation (the heatsink, the junctions and the case groups read them).
+const profiledCache = new WeakMap<PositionDuty, { profiles: LossProfile[] | undefined, points: ProfiledDuty[] }>()
+
 function profiledPoints(duty: PositionDuty, profiles: LossProfile[] | undefined): ProfiledDuty[] {
+  const hit = profiledCache.get(duty)
+  if (hit && hit.profiles === profiles) return hit.points
+  const points = joinProfiles(duty, profiles)
+  profiledCache.set(duty, { profiles, points })
+  return points
+}
+
+function joinProfiles(duty: PositionDuty, profiles: LossProfile[] | undefined): ProfiledDuty[] {
   return (duty.points ?? []).map((pt, k) => {
     const prof = profiles?.[k]
     const position = prof?.positions.find(p => p.name === duty.positionName)
@@ -136,7 +151,7 @@ export function designThermal(input: DesignInput, converters: readonly Converter
   const cooling = coolingOf(input, fallbackHeatsinkC)
   const assumptions = [
     input.thermal ? `Ambient or coolant ${cooling.ambientTemperatureC} °C; heatsink ${cooling.heatsinkRth} K/W, τ ${cooling.heatsinkTimeConstantS} s, loaded by the converter's summed losses of the assigned parts (the best candidate where none is assigned), at their data temperature; each converter on its own heatsink.` : `No cooling set for the design: the heatsink is held at the derating's ${fallbackHeatsinkC} °C.`,
-    'A device alone in its package on its own R_th,ch (the catalogue gives it per device); the devices of one module share its case: the module\'s R_th,ch (per-device R_th,ch / devices in the package) carries their summed losses, the others\' at their data temperature; the case-heatsink layer carries the mean loss.',
+    'A device alone in its package on its own R_th,ch (the catalogue gives it per device); the devices of one module share its case: the module\'s R_th,ch (per-device R_th,ch / devices in the package) carries their summed losses, each device\'s at its own T_j, settled together; the case-heatsink layer carries the mean loss.',
   ]
   // Heatsink power per side and point: Σ positions, three phases 120° apart, reference parts at their data temperature.
   const heatsink = new Map<string, Float64Array[]>()
@@ -155,49 +170,103 @@ export function designThermal(input: DesignInput, converters: readonly Converter
     heatsink.set(side, perPoint)
   }
 
+  // A choice whose package holds other positions settles with them (one case, losses iterated together); the
+  // group is computed once per part and member set and read by every member.
+  const groups = new Map<string, Map<string, PointDynamicsOf[]>>()
   const results = positions.map((pos) => {
     if (pos.duty.kind === 'capacitor' || pos.side === 'dc-link') return pos.choices.map(() => null)
-    const points = profiledPoints(pos.duty, profiles.get(pos.side))
+    const sideProfiles = profiles.get(pos.side)
+    const points = profiledPoints(pos.duty, sideProfiles)
     const hs = heatsink.get(pos.side)
-    return pos.choices.map(choice => choiceThermal(choice, pos.duty, points, cooling, hs, junctionMarginC, sharedCases(choice, pos, positions)))
+    return pos.choices.map((choice) => {
+      const mates = caseMatePositions(choice, pos, positions)
+      const rth = moduleCaseResistance(choice.part)
+      if (!mates.length || rth === null) {
+        const own = points.map((pt, k) => junctionDynamics(choice.part, pos.duty.kind as SemiKind, pt, pos.duty.switchingHz, choice.seriesCount, choice.parallelCount, cooling, hs?.[k] ?? null))
+        return choiceThermal(choice.part, own, junctionMarginC)
+      }
+      const members = [pos, ...mates]
+      const key = groupKey(choice, members)
+      if (!groups.has(key)) groups.set(key, sharedCaseGroup(choice, members, sideProfiles, cooling, hs, rth))
+      const mine = groups.get(key)?.get(pos.duty.positionName)
+      const out = mine ? choiceThermal(choice.part, mine, junctionMarginC) : null
+      return out && { ...out, caseSharedWith: mates.map(m => m.duty.positionName) }
+    })
   })
 
   return { cooling, assumptions, method: FOSTER_METHOD, results, life: designLife(input, converters, positions, results, cooling) }
 }
 
-/**
- * Per point, the case this choice shares with the other devices of its package (null: alone in its package, or the
- * part lacks R_th,ch). The others' mean losses with the same part at their data temperature; a package over
- * several phases (six-pack) holds every phase's devices.
- */
-export function sharedCases(choice: ThermalChoice, pos: ThermalPosition, positions: readonly ThermalPosition[]): SharedCase[] | null {
-  const mates = (choice.caseMates ?? []).map(name => positions.find(p => p.side === pos.side && p.duty.positionName === name)).filter((p): p is ThermalPosition => !!p && p.duty.kind !== 'capacitor')
-  const rth = moduleCaseResistance(choice.part)
-  if (!mates.length || rth === null) return null
-  const phases = Math.max(1, PACKAGE_CONFIGURATIONS[choice.part.packageConfiguration]?.phasesPerPackage ?? 1)
-  const n = pos.duty.points?.length ?? 0
-  return Array.from({ length: n }, (_, k) => {
-    let othersMeanW = 0
-    for (const mate of mates) {
-      const pt = mate.duty.points?.[k]
-      const loss = pt ? deviceLossAtPoint(choice.part, mate.duty.kind as SemiKind, pt, mate.duty.switchingHz, choice.seriesCount, choice.parallelCount) : null
-      if (loss) othersMeanW += loss.total * mate.duty.positionsPerPhase * phases
-    }
-    return { rth, ownDevices: pos.duty.positionsPerPhase * phases, othersMeanW }
-  })
+type PointDynamicsOf = ReturnType<typeof junctionDynamics>
+
+/** The device positions of the same side named as a choice's case mates. */
+function caseMatePositions(choice: ThermalChoice, pos: ThermalPosition, positions: readonly ThermalPosition[]): ThermalPosition[] {
+  const out: ThermalPosition[] = []
+  for (const name of choice.caseMates ?? []) {
+    if (name === pos.duty.positionName) continue
+    const mate = positions.find(p => p.side === pos.side && p.duty.positionName === name)
+    if (mate && mate.duty.kind !== 'capacitor' && !out.includes(mate)) out.push(mate)
+  }
+  return out
 }
 
-function choiceThermal(choice: ThermalChoice, duty: PositionDuty, points: ProfiledDuty[], cooling: CoolingSettings, heatsink: Float64Array[] | undefined, marginC: number, shared: SharedCase[] | null = null): ChoiceThermal | null {
+function groupKey(choice: ThermalChoice, members: readonly ThermalPosition[]): string {
   const { part } = choice
+  const id = (part as { partVersionId?: number }).partVersionId ?? ''
+  return [part.manufacturer, part.partNumber, id, choice.seriesCount, choice.parallelCount, members[0]!.side, ...members.map(m => m.duty.positionName).sort()].join('|')
+}
+
+const JOINT_ITERATIONS = 60
+const JOINT_RUNAWAY_NOTE = 'the devices of the shared case did not settle together: treated as thermal runaway'
+
+/**
+ * T_j over the period of every device of one package (members: the positions it fills), settled jointly per point:
+ * each member's junction sees the module's R_th,ch carrying its own loss and the others' mean losses at their own
+ * settled T_j; the losses are re-evaluated for all members together until no member's mean T_j moves by SETTLE_K
+ * (Jacobi fixed point; a group that does not settle is reported as runaway). Modules are paralleled and stacked
+ * as whole modules (coverage.ts), so every member carries the choice's series and parallel counts. A package over
+ * several phases (six-pack) holds every phase's devices. A member without T_j (data missing) gets null.
+ */
+function sharedCaseGroup(choice: ThermalChoice, members: readonly ThermalPosition[], sideProfiles: LossProfile[] | undefined, cooling: CoolingSettings, heatsink: Float64Array[] | undefined, rth: number): Map<string, PointDynamicsOf[]> {
+  const { part, seriesCount: s, parallelCount: par } = choice
+  const phases = Math.max(1, PACKAGE_CONFIGURATIONS[part.packageConfiguration]?.phasesPerPackage ?? 1)
+  const devices = members.map(m => m.duty.positionsPerPhase * phases)
+  const pointsOf = members.map(m => profiledPoints(m.duty, sideProfiles))
+  const n = pointsOf[0]!.length
+  const out = members.map((): PointDynamicsOf[] => [])
+  for (let k = 0; k < n; k++) {
+    const run = (i: number, othersMeanW: number) => junctionDynamics(part, members[i]!.duty.kind as SemiKind, pointsOf[i]![k]!, members[i]!.duty.switchingHz, s, par, cooling, heatsink?.[k] ?? null, { rth, ownDevices: devices[i]!, othersMeanW })
+    // Start from the losses at the data temperature; a member without a loss figure adds nothing to the case.
+    let loss = members.map((m, i) => { const pt = pointsOf[i]![k]; return (pt && deviceLossAtPoint(part, m.duty.kind as SemiKind, pt, m.duty.switchingHz, s, par)?.total) || 0 })
+    let means = members.map(() => NaN)
+    let dyn: PointDynamicsOf[] = []
+    let settled = false
+    for (let it = 0; it < JOINT_ITERATIONS && !settled; it++) {
+      const total = loss.reduce((sum, l, i) => sum + l * devices[i]!, 0)
+      dyn = members.map((_, i) => run(i, total - loss[i]! * devices[i]!))
+      settled = dyn.every((d, i) => !d || d.status !== 'settled' || Math.abs(d.meanC - means[i]!) < SETTLE_K)
+      means = dyn.map(d => d?.meanC ?? NaN)
+      loss = dyn.map((d, i) => d?.lossW ?? loss[i]!)
+    }
+    dyn.forEach((d, i) => {
+      out[i]!.push(d && !settled && d.status === 'settled' ? { ...d, status: 'runaway', note: [d.note, JOINT_RUNAWAY_NOTE].join('; ') } : d)
+    })
+  }
+  return new Map(members.map((m, i) => [m.duty.positionName, out[i]!]))
+}
+
+function choiceThermal(part: CatalogPart, dynamics: readonly PointDynamicsOf[], marginC: number): ChoiceThermal | null {
   if (part.junctionTemperatureMax === undefined) return null
   const perPoint: PointDynamics[] = []
   let fromFoster = true
   const notes = new Set<string>()
-  for (let k = 0; k < points.length; k++) {
-    const d = junctionDynamics(part, duty.kind as SemiKind, points[k]!, duty.switchingHz, choice.seriesCount, choice.parallelCount, cooling, heatsink?.[k] ?? null, shared?.[k])
+  let lastNote: string | null = null
+  for (const d of dynamics) {
     if (!d) return null
     fromFoster &&= d.fromFoster
-    for (const n of d.note.split('; ')) if (n) notes.add(n)
+    // The points mostly repeat one note: split it once.
+    if (d.note !== lastNote) for (const n of d.note.split('; ')) if (n) notes.add(n)
+    lastNote = d.note
     const { note: _n, fromFoster: _f, ...fig } = d
     perPoint.push(fig)
   }
@@ -215,6 +284,30 @@ function choiceThermal(choice: ThermalChoice, duty: PositionDuty, points: Profil
     fromFoster,
     notes: [...notes],
   }
+}
+
+/**
+ * Which positions of one side share a package: hosts in the given order (explicit module hosts first, then leg
+ * order), each position not yet placed hosts a package of its part, and the package takes the positions its
+ * coverage fills (shared/bom/coverage.ts) that carry the same part (`partKey`). Returns, per position, the other
+ * members of its package (its case mates); a position alone in its package is absent.
+ */
+export function caseMatesByCoverage(leg: readonly LegPosition[], partAt: (position: string) => { key: string, part: Pick<CatalogPart, 'kind' | 'packageConfiguration'> } | null, hostsFirst: readonly string[] = []): Map<string, string[]> {
+  const placed = new Set<string>()
+  const out = new Map<string, string[]>()
+  const order = [...hostsFirst.filter(h => leg.some(p => p.name === h)), ...leg.map(p => p.name)]
+  for (const host of order) {
+    if (placed.has(host)) continue
+    const own = partAt(host)
+    if (!own) continue
+    // The package fills only positions still free that carry the same part.
+    const free = leg.filter(p => p.name === host || (!placed.has(p.name) && partAt(p.name)?.key === own.key))
+    const members = [host, ...(moduleCoverage(own.part, host, free)?.covers ?? [])]
+    for (const m of members) placed.add(m)
+    if (members.length < 2) continue
+    for (const m of members) out.set(m, members.filter(x => x !== m))
+  }
+  return out
 }
 
 function designLife(input: DesignInput, converters: readonly ConverterResult[], positions: readonly ThermalPosition[], results: (ChoiceThermal | null)[][], cooling: CoolingSettings): DesignLife | null {

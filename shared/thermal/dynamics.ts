@@ -11,7 +11,7 @@
 import type { PositionProfile } from '../engine/profile'
 import { fosterNetwork, periodicRise, SINGLE_RTH_NOTE, steadyResistance, type FosterPair } from './network'
 import { deviceLossAtPoint, type PointDuty } from './losses'
-import { partAtTemperature, settleJunction, type JunctionStatus, type TemperaturePart } from './temperature'
+import { lossFiguresAt, settleJunction, type JunctionStatus, type TemperaturePart } from './temperature'
 import type { CatalogPart } from '../catalog/types'
 
 /** The design's cooling: ambient or coolant temperature and the heatsink to it. */
@@ -69,19 +69,26 @@ export function binLosses(part: DynamicsPart, kind: 'switch' | 'diode' | 'clamp-
   const profile = duty.profile
   if (!profile) return null
   const withSwitching = !!(profile.turnOn && profile.turnOff && profile.recovery)
-  const at = (avg: number, sq: number, on: number, off: number, rr: number) => deviceLossAtPoint(part, kind, {
-    pointName: duty.pointName, currentAvg: avg, currentRms: Math.sqrt(sq), currentPeak: duty.currentPeak, commutatedVoltage: duty.commutatedVoltage,
-    ...(withSwitching ? { switchingDuty: { turnOn: on, turnOff: off, recovery: rr } } : {}),
-  }, switchingHz, series, parallel)
-  const zero = at(0, 0, 0, 0, 0)
-  if (!zero) return null
-  // Without a commutation model the fallback switching loss is constant over the period (in `zero`).
-  const c0 = zero.total
-  const cAvg = at(1, 0, 0, 0, 0)!.total - c0
-  const cSq = at(0, 1, 0, 0, 0)!.total - c0
-  const cOn = withSwitching ? at(0, 0, 1, 0, 0)!.total - c0 : 0
-  const cOff = withSwitching ? at(0, 0, 0, 1, 0)!.total - c0 : 0
-  const cRr = withSwitching ? at(0, 0, 0, 0, 1)!.total - c0 : 0
+  // One duty object, its figures set per unit case (no object per call: this runs per position, point and bin set).
+  const sw = { turnOn: 0, turnOff: 0, recovery: 0 }
+  const unit: PointDuty = { pointName: duty.pointName, currentAvg: 0, currentRms: 0, currentPeak: duty.currentPeak, commutatedVoltage: duty.commutatedVoltage }
+  if (withSwitching) unit.switchingDuty = sw
+  const total = (avg: number, sq: number, on: number, off: number, rr: number) => {
+    unit.currentAvg = avg
+    unit.currentRms = Math.sqrt(sq)
+    sw.turnOn = on
+    sw.turnOff = off
+    sw.recovery = rr
+    return deviceLossAtPoint(part, kind, unit, switchingHz, series, parallel)?.total
+  }
+  const c0 = total(0, 0, 0, 0, 0)
+  if (c0 === undefined) return null
+  // Without a commutation model the fallback switching loss is constant over the period (in `c0`).
+  const cAvg = total(1, 0, 0, 0, 0)! - c0
+  const cSq = total(0, 1, 0, 0, 0)! - c0
+  const cOn = withSwitching ? total(0, 0, 1, 0, 0)! - c0 : 0
+  const cOff = withSwitching ? total(0, 0, 0, 1, 0)! - c0 : 0
+  const cRr = withSwitching ? total(0, 0, 0, 0, 1)! - c0 : 0
   const B = profile.currentAbs.length
   const out = new Float64Array(B)
   for (let b = 0; b < B; b++) {
@@ -115,12 +122,14 @@ export function junctionDynamics(part: DynamicsPart, kind: 'switch' | 'diode' | 
     const t = settled.junctionTemperatureC
     return { ...base, meanC: t, peakC: t, minC: t, swingK: 0, heatingTimeS: 0, note: notes.join('; ') }
   }
-  const atMean = partAtTemperature(part, settled.junctionTemperatureC) as DynamicsPart
+  const atMean = lossFiguresAt(part, settled.junctionTemperatureC)
   const p = binLosses(atMean, kind, duty, switchingHz, series, parallel)
   if (!p) return null
   const rise = periodicRise(network.pairs, p, dt)
   // The baseplate and heatsink capacities filter the fundamental ripple: R_th,ch carries the mean loss (assumption).
-  const meanLoss = p.reduce((a, x) => a + x, 0) / B
+  let lossSum = 0
+  for (let b = 0; b < B; b++) lossSum += p[b]!
+  const meanLoss = lossSum / B
   for (let b = 0; b < B; b++) rise[b]! += rch * meanLoss + caseOffsetK
   if (hsPairs.length && heatsinkPower) periodicRise(hsPairs, heatsinkPower, dt, rise)
   else if (cooling.heatsinkRth > 0) for (let b = 0; b < B; b++) rise[b]! += cooling.heatsinkRth * hsMeanPower

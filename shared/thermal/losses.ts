@@ -4,7 +4,8 @@
 //   switching   every commutation of a carrier period charges E(i, v) = E_ref·(|i|/I_ref)·(v/V_ref) to the
 //               device that commutates (linear scaling in current and voltage: common practice), with the
 //               current at that instant and the voltage that device commutates (one level step; the whole
-//               link in a two-level leg). The engine gives per point the mean over the fundamental period of
+//               link in a two-level leg; in the matrix converter the input line-to-line voltage between the two
+//               input phases at that instant, from its carrier pattern). The engine gives per point the mean over the fundamental period of
 //               Σ |i|·v per carrier period (DeviceStress.switchingDuty, shared/engine/commutations.ts), so
 //               P_sw = f_sw · Σ_role E_ref,role · duty_role / (I_ref · V_ref).
 //   series / parallel parts: each carries 1/parallel of the current and 1/series of the voltage.

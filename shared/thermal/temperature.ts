@@ -59,6 +59,29 @@ export function partAtTemperature<T extends TemperaturePart>(part: T, tj: number
   return out
 }
 
+/** The loss figures alone at `tj` (what deviceLossAtPoint reads), the same numbers as partAtTemperature without copying the whole part. */
+export function lossFiguresAt(part: TemperaturePart, tj: number): LossPart {
+  if (part.junctionTemperatureMax !== undefined && tj > part.junctionTemperatureMax + 1e-9) return partAtTemperature(part, tj)
+  if (!hasTwoTemperatures(part)) return part
+  const x = (tj - REFERENCE_TEMPERATURE_C) / (part.lossDataTemperature! - REFERENCE_TEMPERATURE_C)
+  return {
+    switchThresholdVoltage: between(part.switchThresholdVoltage, part.switchThresholdVoltage25, x),
+    switchSlopeResistance: between(part.switchSlopeResistance, part.switchSlopeResistance25, x),
+    diodeThresholdVoltage: between(part.diodeThresholdVoltage, part.diodeThresholdVoltage25, x),
+    diodeSlopeResistance: between(part.diodeSlopeResistance, part.diodeSlopeResistance25, x),
+    turnOnEnergy: between(part.turnOnEnergy, part.turnOnEnergy25, x),
+    turnOffEnergy: between(part.turnOffEnergy, part.turnOffEnergy25, x),
+    recoveryEnergy: between(part.recoveryEnergy, part.recoveryEnergy25, x),
+    energyReferenceVoltage: part.energyReferenceVoltage,
+    energyReferenceCurrent: part.energyReferenceCurrent,
+  }
+}
+
+/** partAtTemperature's rule for one figure: the hot value where the 25 °C one is missing. */
+function between(hot: number | undefined, cold: number | undefined, x: number): number | undefined {
+  return hot === undefined || cold === undefined ? hot : Math.max(0, cold + (hot - cold) * x)
+}
+
 export type JunctionStatus = 'settled' | 'above-limit' | 'runaway'
 
 export interface SettledJunction {
@@ -79,7 +102,7 @@ export interface SettledJunction {
 export function settleJunction(part: TemperaturePart, kind: DeviceKind, duty: PointDuty, switchingHz: number, series: number, parallel: number, heatsinkC: number, rth: number): SettledJunction {
   const two = hasTwoTemperatures(part)
   const tjMax = part.junctionTemperatureMax ?? Infinity
-  const lossAt = (tj: number) => deviceLossAtPoint(partAtTemperature(part, Math.min(tj, tjMax)), kind, duty, switchingHz, series, parallel)
+  const lossAt = (tj: number) => deviceLossAtPoint(lossFiguresAt(part, Math.min(tj, tjMax)), kind, duty, switchingHz, series, parallel)
   let tj = two ? heatsinkC : (part.lossDataTemperature ?? heatsinkC)
   let loss = lossAt(tj)
   if (!loss) return { status: 'settled', junctionTemperatureC: NaN, loss: null, iterations: 0, note: 'loss figures missing' }

@@ -153,6 +153,38 @@ describe('designs', () => {
     }
   })
 
+  it('the parts answer reports a shared module case: candidates and assigned parts name the positions in the same package', async () => {
+    const a = await signInAs('design-engineer')
+    const twoLevel = {
+      machineSide: {
+        topology: 'two-level', levels: 2, dcVoltage: 650, dcVoltageMax: 750, switchingHz: 4000, modulation: 'space-vector', overshootVoltage: 60,
+        operatingPoints: [{ name: 'Rated', lineVoltageRms: 400, phaseCurrentRms: 150, powerFactor: 0.88, fundamentalHz: 50 }],
+      },
+      thermal: { ambientTemperatureC: 40, heatsinkRth: 0.01, heatsinkTimeConstantS: 300 },
+    }
+    const { body: design } = await a.json('POST', '/api/designs', { name: unique('shared case'), input: twoLevel })
+    const r = await a.json('GET', `/api/designs/${design.id}/parts`)
+    expect(r.status).toBe(200)
+    const s1 = r.body.positions.find((p: { position: string }) => p.position === 'S1')
+    // A switch with its diode in one package (single co-pack or a half-bridge) covers other positions: their case is shared.
+    const modules = s1.candidates.filter((c: any) => c.thermal && c.covers.length)
+    expect(modules.length).toBeGreaterThan(0)
+    for (const c of modules) expect(c.thermal.caseSharedWith).toEqual(c.covers)
+    for (const c of s1.candidates.filter((x: any) => x.thermal && !x.covers.length)) expect(c.thermal.caseSharedWith).toBeUndefined()
+    const c = modules[0]
+    const put = await a.json('PUT', `/api/designs/${design.id}/parts`, { side: 'machine', position: 'S1', partVersionId: c.partVersionId, seriesCount: c.seriesCount, parallelCount: c.parallelCount, fillCovered: true })
+    expect(put.status).toBe(200)
+    expect(put.body.filled).toEqual(c.covers)
+    const after = (await a.json('GET', `/api/designs/${design.id}/parts`)).body
+    const at = (name: string) => after.positions.find((p: { position: string }) => p.position === name).assigned
+    expect(at('S1').thermal.caseSharedWith).toEqual(c.covers)
+    for (const covered of c.covers) {
+      expect(at(covered).coveredBy).toBe('S1')
+      expect(at(covered).thermal.caseSharedWith).toContain('S1')
+    }
+    expect(after.thermal.assumptions.join(' ')).toMatch(/share its case/)
+  })
+
   it('makes a design report PDF', async () => {
     const a = await signInAs('viewer')
     const r = await a.request('GET', '/api/designs/1/report.pdf')

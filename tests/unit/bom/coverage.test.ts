@@ -21,6 +21,13 @@ describe('moduleCoverage: positions one package fills', () => {
     expect(moduleCoverage(part('switch-diode', 'single'), 'S1', twoLevel)).toMatchObject({ covers: ['D1'], unusedSlots: [] })
   })
 
+  it('switch with diode (single) at a diode position: its own anti-parallel switch, not another leg position', () => {
+    // D2 is anti-parallel to S2: the one switch slot holds S2 (with D2 in its chip), nothing else.
+    expect(moduleCoverage(part('switch-diode', 'single'), 'D2', twoLevel)).toMatchObject({ covers: ['S2'], unusedSlots: [] })
+    // A half-bridge at D2: S2, then S1 sharing the output node, with both diodes.
+    expect(moduleCoverage(part('switch-diode', 'half-bridge'), 'D2', twoLevel)?.covers.sort()).toEqual(['D1', 'S1', 'S2'])
+  })
+
   it('half-bridge at S1: S2 shares the output node, both diodes in the chips', () => {
     expect(moduleCoverage(part('switch-diode', 'half-bridge'), 'S1', twoLevel)?.covers.sort()).toEqual(['D1', 'D2', 'S2'])
   })

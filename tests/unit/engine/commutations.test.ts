@@ -66,7 +66,7 @@ describe('other legs (first principles of each commutation cell)', () => {
       for (const share of byCell.values()) expect(share).toBeCloseTo(1 / 3, 12)
     }
   })
-  it('matrix converter: no node potentials, so no commutation model (the loss falls back, stated)', () => {
+  it('matrix converter: no node potentials, so no commutation model from the state table (its carrier pattern gives the commutations, matrix-input.ts)', () => {
     expect(deriveCommutations(legFor(topologyById.matrix, 3)).available).toBe(false)
   })
 })

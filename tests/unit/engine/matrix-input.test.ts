@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest'
 import { EngineInputError, evaluateDesign, evaluateStress, type StressInput } from '../../../shared/engine'
 import { carrierPattern, matrixInputFigures, newPattern, newRectifier, rectifier } from '../../../shared/engine/matrix-input'
 import { makeReference } from '../../../shared/engine/modulation'
+import { lossProfile } from '../../../shared/engine/profile'
 import { designInputSchema } from '../../../shared/schemas/stress'
 import { expectClose } from './helpers'
 
@@ -58,12 +59,12 @@ function reference(modulation: Case['modulation'], A: number, theta: number): nu
  * split between the other two phases in the sequence r₁/2, r₂/2, r₂/2, r₁/2; inside each segment output Y
  * on the positive rail while a centred window of width d_Y = (1 + m_Y·|c|)/2 is open).
  */
-function connections(c: Case, t: number, out: number[]): void {
+function connections(c: Case, t: number, out: number[], inputPhase = 0): void {
   const k = Math.floor(t * FSW)
   const tau = t * FSW - k
   const tc = (k + 0.5) / FSW
   const phiIn = (c.inSense === 'leading' ? -1 : 1) * Math.acos(c.cosIn)
-  const cur = [0, 1, 2].map(x => Math.sin(TWO_PI * FI * tc - phiIn - x * SHIFT))
+  const cur = [0, 1, 2].map(x => Math.sin(TWO_PI * FI * tc + inputPhase - phiIn - x * SHIFT))
   let X = 0
   for (let x = 1; x < 3; x++) if (Math.abs(cur[x]!) > Math.abs(cur[X]!)) X = x
   const o1 = (X + 1) % 3
@@ -313,6 +314,84 @@ describe('matrix converter input side: brute-force switched simulation', () => {
     expect(Math.max(...w.lineVoltage.map(Math.abs))).toBeGreaterThan(1.6 * Vph)
     expect(Math.max(...w.lineVoltage.map(Math.abs))).toBeLessThanOrEqual(Math.sqrt(3) * Vph * (1 + 1e-9))
   })
+})
+
+// Switching losses: every change of output a's input phase in the time-stepped run is one commutation A → B of the
+// output current; the voltage commutated is the instantaneous input line-to-line voltage v_AB, and with the
+// current's sign known the four-step sequence makes it a turn-on of the incoming switch with recovery of the
+// outgoing path's diode when the current's sign and v_B − v_A agree, else a turn-off of the outgoing switch
+// (P. W. Wheeler, J. Rodríguez, J. C. Clare et al., "Matrix converters: a technology review", IEEE Trans. Ind.
+// Electron. 49(2), 2002, section III: four-step commutation). The run uses this file's own connections(), the
+// current and voltage at the sample where the change is seen, and classifies on its own.
+describe('matrix converter switching duty: brute-force run of the commutations', () => {
+  /**
+   * V·A per carrier period by position and role, mean over one output period; the input and output are unrelated,
+   * so the run is repeated with the input voltages starting at `offsets` phases spread over a period.
+   */
+  function bruteForce(c: Case, stepsPerCarrier: number, offsets: number) {
+    const Vph = (Math.SQRT2 * VLL) / Math.sqrt(3)
+    const Io = Math.SQRT2 * IO
+    const phiOut = Math.acos(c.pf)
+    const carriers = Math.round(FSW / c.fo)
+    const dt = 1 / (FSW * stepsPerCarrier)
+    const sums = new Map<string, number>()
+    const add = (name: string, role: 'turnOn' | 'turnOff' | 'recovery', x: number) => sums.set(`${name} ${role}`, (sums.get(`${name} ${role}`) ?? 0) + x)
+    const conn = [0, 0, 0]
+    const phase = ['R', 'S', 'T']
+    for (let o = 0; o < offsets; o++) {
+      const start = (TWO_PI * o) / offsets
+      connections(c, -0.5 * dt, conn, start)
+      let from = conn[0]!
+      for (let s = 0; s < carriers * stepsPerCarrier; s++) {
+        const t = (s + 0.5) * dt
+        connections(c, t, conn, start)
+        const to = conn[0]!
+        if (to === from) continue
+        const i = Io * Math.sin(TWO_PI * c.fo * t - phiOut)
+        const vA = Vph * Math.sin(TWO_PI * FI * t + start - from * SHIFT)
+        const vB = Vph * Math.sin(TWO_PI * FI * t + start - to * SHIFT)
+        const x = Math.abs(i) * Math.abs(vB - vA)
+        const [A, B, sw, dio] = [phase[from], phase[to], i >= 0 ? '+' : '-', i >= 0 ? '-' : '+']
+        if ((i >= 0) === (vB > vA)) { add(`S${B}${sw}`, 'turnOn', x); add(`D${A}${dio}`, 'recovery', x) }
+        else add(`S${A}${sw}`, 'turnOff', x)
+        from = to
+      }
+    }
+    for (const [k, v] of sums) sums.set(k, v / (carriers * offsets))
+    return sums
+  }
+
+  it.each([
+    { name: 'sine, unity input, pf 0.85', q: 0.5, cosIn: 1, inSense: 'lagging' as const, pf: 0.85, modulation: 'sine' as const, fo: 10 },
+    { name: 'space vector, input 0.9 leading, regenerating', q: 0.6, cosIn: 0.9, inSense: 'leading' as const, pf: -0.7, modulation: 'space-vector' as const, fo: 10 },
+  ])('$name: Σ |i|·|v_AB| per carrier period by position and role within 1 % of the time-stepped run', (c) => {
+    const r = evaluateStress(input(c))
+    const brute = bruteForce(c, 1000, 6)
+    let total = 0
+    for (const d of r.devices) {
+      for (const role of ['turnOn', 'turnOff', 'recovery'] as const) {
+        const engine = d.switchingDuty![role]
+        const run = brute.get(`${d.name} ${role}`) ?? 0
+        total += run
+        if (run === 0) expect(engine, `${d.name} ${role}`).toBe(0)
+        else expectClose(engine, run, 1e-2, `${d.name} ${role}`)
+      }
+    }
+    // The thermal profile's bins average to the same duty (shared/engine/profile.ts uses the same sums per angle bin).
+    const profile = lossProfile(input(c))
+    for (const d of r.devices.slice(0, 4)) {
+      const bins = profile.positions.find(p => p.name === d.name)!
+      const mean = (a: Float64Array) => a.reduce((x, y) => x + y, 0) / a.length
+      const role = d.kind === 'switch' ? 'turnOn' : 'recovery'
+      expectClose(mean(bins[role]!), d.switchingDuty![role], 2e-3, `${d.name} profile ${role}`)
+    }
+    // Something was switched, and every switch both turns on and off; diodes only recover.
+    expect(total).toBeGreaterThan(0)
+    for (const d of r.devices) {
+      if (d.kind === 'switch') expect(d.switchingDuty!.turnOn * d.switchingDuty!.turnOff).toBeGreaterThan(0)
+      else expect(d.switchingDuty!.turnOn + d.switchingDuty!.turnOff).toBe(0)
+    }
+  }, 60_000)
 })
 
 describe('matrix converter input side: the ripple-charge search', () => {
