@@ -140,6 +140,13 @@ describe('results beside the inputs (1280 × 800)', () => {
     const select = page.getByTestId('waveform-point')
     await select.waitFor()
     await expect.poll(() => page.locator('h2', { hasText: 'Output voltage' }).textContent()).toContain('at Rated motoring')
+    // the charts sit below the fold of the results column: drawn once scrolled to, a same-size placeholder until then
+    expect(await page.locator('.waveform-chart canvas').count()).toBe(0)
+    const placeholder = (await page.locator('.waveform-chart > div').first().boundingBox())!
+    await page.locator('.waveform-chart').scrollIntoViewIfNeeded()
+    await page.locator('.waveform-chart canvas').waitFor()
+    await page.locator('.spectrum-chart canvas').waitFor()
+    expect((await page.locator('.waveform-chart > div').first().boundingBox())!.height).toBeCloseTo(placeholder.height, 0)
     const answer = page.waitForResponse(r => r.url().includes('/api/designs/preview') && r.url().includes('machinePoint=2'))
     await select.selectOption('2')
     const response = await answer
