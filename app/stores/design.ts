@@ -42,7 +42,9 @@ export const useDesignStore = defineStore('design', () => {
   const name = ref('')
   const description = ref('')
   const input = ref<DesignInput>(blankDesign().input)
-  const preview = ref<DesignPreview | null>(null)
+  // Replaced whole by every answer, never changed inside: shallow, so the browser does not wrap the answer's
+  // thousands of figures in reactive proxies while the page hydrates and on every edit.
+  const preview = shallowRef<DesignPreview | null>(null)
   const evaluating = ref(false)
   const evaluationError = ref('')
   const fieldErrors = ref<Record<string, string>>({})

@@ -2,7 +2,7 @@
 // ./leg-render in the report's theme (black and greys), with a heading and the key to the labels. No scripts, no links.
 import { drawnUnitText, topologyById, type LegLayout } from '../engine'
 import { formatSi } from '../utils/format'
-import { SYMBOL } from './leg'
+import { capacitorStressText, SYMBOL } from './leg'
 import { renderLeg, type LegTheme, type SvgChild } from './leg-render'
 
 /** Worst-case stresses per position (the engine's DeviceEnvelope and CapacitorEnvelope fit as they are). */
@@ -100,6 +100,7 @@ function textLine(x: number, y: number, text: string, style: Record<string, stri
 export function legSchematicSvg(layout: LegLayout, stresses: LegStresses, options: LegSvgOptions = {}): string {
   const devices = new Map(stresses.devices.map(d => [d.name, d]))
   const capacitors = new Map((stresses.capacitors ?? []).map(c => [c.name, c]))
+  const seriesUnits = new Map(layout.items.map(i => [i.name, i.seriesUnits]))
   const nameText = (name: string) => {
     const series = devices.get(name)?.seriesCount ?? 1
     return series > 1 ? `${name} ×${series}` : name
@@ -108,7 +109,7 @@ export function legSchematicSvg(layout: LegLayout, stresses: LegStresses, option
     const d = devices.get(name)
     if (d) return `${quantity(d.blockingVoltage, 'V')} · ${quantity(d.currentRms, 'A')}`
     const c = capacitors.get(name)
-    if (c) return `${quantity(c.voltage, 'V')} · ${quantity(c.rippleCurrentRms, 'A')}`
+    if (c) return capacitorStressText(c, seriesUnits.get(name), v => quantity(v, 'V'), a => quantity(a, 'A'))
     return ''
   }
   const { drawing, nodes } = renderLeg({ layout, nameText, stressText, theme: PRINT })

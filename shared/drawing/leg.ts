@@ -121,6 +121,20 @@ export function labelLines(
   return names.map(n => ({ name: nameText(n), stress: p.namesOnly ? '' : stressText(n) }))
 }
 
+/**
+ * A capacitor symbol's stress: its voltage and ripple current, as the capacitor table gives them; a DC-link string
+ * drawn as one symbol (`seriesUnits`) shows the voltage across it and its units, "1.20 kV = 3 × 400 V · 31 A".
+ */
+export function capacitorStressText(
+  c: { voltage: number, rippleCurrentRms: number },
+  seriesUnits: number | undefined,
+  voltage: (volts: number) => string,
+  current: (amperes: number) => string,
+): string {
+  const across = seriesUnits && seriesUnits > 1 ? `${voltage(seriesUnits * c.voltage)} = ${seriesUnits} × ${voltage(c.voltage)}` : voltage(c.voltage)
+  return `${across} · ${current(c.rippleCurrentRms)}`
+}
+
 /** px, the gap between a label's name and its stress */
 export const LABEL_GAP = 5
 

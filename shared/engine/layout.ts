@@ -17,6 +17,11 @@ export interface LegLayoutItem {
   antiParallelTo?: string
   /** devices per phase at the position; capacitors: how many the drawn one stands for (cells per phase, or the whole shared DC-link string) */
   countPerPhase: number
+  /**
+   * capacitors drawn once across several level steps of the DC link: how many units (each rated as the capacitor
+   * table's row, one level step) the symbol stands for in series, e.g. the flying-capacitor leg's Cdc, N − 1
+   */
+  seriesUnits?: number
 }
 
 export interface LegLayout {
@@ -37,6 +42,17 @@ function capacitorsDrawn(supply: string, c: CapacitorDef, cells = 1): number {
   return c.kind === 'flying' ? 1 : c.countInConverter
 }
 
+/** DC node dcK sits K level steps above dc0. */
+const dcStep = (node: string) => (/^dc\d+$/.test(node) ? Number(node.slice(2)) : undefined)
+
+/** Units in series one drawn DC-link capacitor stands for: the level steps it spans over the steps one unit holds. */
+function seriesUnitsDrawn(c: CapacitorDef): number | undefined {
+  const [a, b] = c.nodes.map(dcStep)
+  if (a === undefined || b === undefined || c.voltageUnits <= 0) return undefined
+  const units = Math.abs(a - b) / c.voltageUnits
+  return units > 1 ? units : undefined
+}
+
 /** Ordered device (and capacitor) positions of one phase leg for a level count. */
 export function legLayout(topology: TopologyId, levels?: number): LegLayout {
   const t = topologyById[topology]
@@ -48,7 +64,7 @@ export function legLayout(topology: TopologyId, levels?: number): LegLayout {
   const leg = legFor(t, n)
   const items: LegLayoutItem[] = [
     ...leg.positions.map(p => ({ name: p.name, kind: p.kind, row: p.row, column: p.column, nodes: p.nodes, ...(p.antiParallelTo ? { antiParallelTo: p.antiParallelTo } : {}), countPerPhase: p.countPerPhase })),
-    ...leg.def.capacitors.map(c => ({ name: c.name, kind: 'capacitor' as const, row: c.row, column: c.column, nodes: c.nodes, countPerPhase: capacitorsDrawn(t.supply, c, leg.def.cellsPerPhase) })),
+    ...leg.def.capacitors.map(c => ({ name: c.name, kind: 'capacitor' as const, row: c.row, column: c.column, nodes: c.nodes, countPerPhase: capacitorsDrawn(t.supply, c, leg.def.cellsPerPhase), ...(seriesUnitsDrawn(c) ? { seriesUnits: seriesUnitsDrawn(c) } : {}) })),
   ]
   const dcNodes = t.supply === 'dc-link'
     ? Array.from(new Set(leg.def.capacitors.flatMap(c => c.nodes))).filter(x => x.startsWith('dc')).sort((a, b) => Number(a.slice(2)) - Number(b.slice(2)))

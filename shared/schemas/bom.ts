@@ -8,7 +8,7 @@ const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date as yyyy-mm-d
 
 export const purchaseLineSchema = z.object({
   supplier: z.string().trim().max(120).nullable().optional(),
-  // A number, never text: the page reads what the user typed in their locale (shared/bom/number.ts).
+  // A number, never text: the page's quantity field reads what the user typed in their locale (shared/utils/quantity.ts).
   quotedUnitPrice: z.number({ error: 'Enter a price per piece' }).min(0, 'Must not be negative').max(1e7).nullable().optional(),
   quoteCurrency: z.string().trim().regex(/^[A-Z]{3}$/, 'Use a three-letter currency code such as EUR').nullable().optional(),
   orderReference: z.string().trim().max(80).nullable().optional(),

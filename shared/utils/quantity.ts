@@ -6,7 +6,10 @@ import { parseNumberText, prefixFactor, recogniseOtherQuantity, splitQuantityTex
 import { decimalMark, formatSi } from './format'
 
 export interface QuantityField {
-  /** SI base unit of the field, a key of UNIT_SPECS: 'V', 'A', 'Hz', 'H', 'A/s', '°C', '%' (a fraction: 85 % → 0.85), '' (a plain number). */
+  /**
+   * SI base unit of the field, a key of UNIT_SPECS: 'V', 'A', 'Hz', 'H', 'A/s', '°C', '%' (a fraction: 85 % → 0.85),
+   * '' (a plain number); or a price in a currency, its ISO 4217 code ('EUR'): "1,5k" or "2 k€".
+   */
   unit: string
   /** The user's locale (BCP 47, e.g. 'de-DE'): decides the decimal mark. */
   locale: string
@@ -26,6 +29,26 @@ export type FieldQuantity = { ok: true, value: number | undefined } | { ok: fals
 // Units a bare prefix may stand in front of without the unit ("4k" in a frequency field); not °C, %, plain numbers.
 const PREFIXABLE = new Set(['V', 'A', 'Hz', 'H', 'A/s', 'W', 'Ω', 'F', 'J', 's'])
 
+// Prices: the currency's code or symbol, with k or M in front ("2 k€", "1.5 MSEK") or k / M alone ("1,5k").
+const MONEY_PREFIXES: Readonly<Record<string, number>> = { k: 1e3, K: 1e3, M: 1e6 }
+const CURRENCY_SYMBOLS: Readonly<Record<string, readonly string[]>> = { EUR: ['€'], USD: ['$', 'US$'], GBP: ['£'], SEK: ['kr'], NOK: ['kr'], DKK: ['kr'], CHF: ['Fr.', 'Fr'], JPY: ['¥'], CNY: ['¥'] }
+
+/** A price field's unit: a three-letter currency code. */
+export const isCurrencyUnit = (unit: string) => /^[A-Z]{3}$/.test(unit)
+
+/** Scale of the unit text typed after a price in `currency` ("k€" → 1000), or null when it names no such price. */
+function moneyFactor(unitText: string, currency: string): number | null {
+  const compact = unitText.replace(/\s+/g, '')
+  if (compact === '') return 1
+  for (const spelling of [currency, ...(CURRENCY_SYMBOLS[currency] ?? [])]) {
+    if (!compact.toLowerCase().endsWith(spelling.toLowerCase())) continue
+    const prefix = compact.slice(0, compact.length - spelling.length)
+    if (prefix === '') return 1
+    if (Object.hasOwn(MONEY_PREFIXES, prefix)) return MONEY_PREFIXES[prefix]!
+  }
+  return Object.hasOwn(MONEY_PREFIXES, compact) ? MONEY_PREFIXES[compact]! : null
+}
+
 /** The decimal mark of a locale (the one helper in ./format): ',' for de-DE and sv-SE, '.' for en-GB and en-US. */
 export const decimalMarkOf: (locale: string) => DecimalSeparator = decimalMark
 
@@ -44,6 +67,8 @@ export function formatQuantity(value: number | undefined | null, unit: string, l
   const mark = decimalMarkOf(locale)
   const plain = (v: number) => localised(String(Number(v.toPrecision(6))), mark)
   if (unit === '') return plain(value)
+  // a price keeps its cents: 12 significant digits, never a prefix
+  if (isCurrencyUnit(unit)) return `${localised(String(Number(value.toPrecision(12))), mark)} ${unit}`
   if (unit === '%') return `${plain(value * 100)} %`
   if (!PREFIXABLE.has(unit)) return `${plain(value)} ${unit}`
   if (unit === 'A/s') return localised(formatSi(value / 1e6, 'A/µs', 6), mark)
@@ -51,13 +76,26 @@ export function formatQuantity(value: number | undefined | null, unit: string, l
 }
 
 function examples(unit: string, mark: DecimalSeparator): string {
+  if (isCurrencyUnit(unit)) return `"${localised('1250.5', mark)}", "${localised('1.5k', mark)}" or "2 k${CURRENCY_SYMBOLS[unit]?.[0] ?? unit}"`
   const spec = UNIT_SPECS[unit] ?? UNIT_SPECS['']!
   const [a, b] = spec.examples.map(e => localised(e, mark))
   return unit === 'A/s' ? `"${localised('2 kA/µs', mark)}" or "2000 A/µs"` : `"${a}" or "${b}"`
 }
 
 function noun(unit: string): string {
+  if (isCurrencyUnit(unit)) return `a price in ${unit}`
   return (UNIT_SPECS[unit] ?? UNIT_SPECS['']!).noun
+}
+
+/** "a price in USD" when the unit text names another currency than the field's. */
+function otherCurrency(unitText: string): string | null {
+  const compact = unitText.replace(/\s+/g, '')
+  for (const text of [compact, compact.replace(/^[kKM]/, '')]) {
+    const codes = Object.entries(CURRENCY_SYMBOLS).filter(([c, symbols]) => c === text.toUpperCase() || symbols.includes(text)).map(([c]) => c)
+    // "kr" is the Swedish, Norwegian and Danish crown alike
+    if (codes.length) return codes.length === 1 ? `a price in ${codes[0]}` : 'a price in another currency'
+  }
+  return null
 }
 
 /** Reads what was typed into a field; refusals name the field and say what to type instead. */
@@ -81,11 +119,12 @@ export function parseFieldQuantity(raw: string, field: QuantityField): FieldQuan
   }
   let factor: number | null
   if (split.unitText === '') factor = unit === '%' ? 0.01 : 1
+  else if (isCurrencyUnit(unit)) factor = moneyFactor(split.unitText, unit)
   else factor = unitFactor(split.unitText, unit) ?? (PREFIXABLE.has(unit) ? prefixFactor(split.unitText) : null)
   if (factor === null) {
-    const other = recogniseOtherQuantity(split.unitText, unit)
+    const other = isCurrencyUnit(unit) ? otherCurrency(split.unitText) ?? recogniseOtherQuantity(split.unitText, unit) : recogniseOtherQuantity(split.unitText, unit)
     const what = other ? `is ${other}, not ${noun(unit)}` : `has a unit "${split.unitText}" that does not fit`
-    return { ok: false, message: `${label}: "${text}" ${what}. Type ${noun(unit)}${unit && unit !== '%' ? ` in ${shownUnit(unit)}` : ''}, e.g. ${examples(unit, mark)}.` }
+    return { ok: false, message: `${label}: "${text}" ${what}. Type ${noun(unit)}${unit && unit !== '%' && !isCurrencyUnit(unit) ? ` in ${shownUnit(unit)}` : ''}, e.g. ${examples(unit, mark)}.` }
   }
   // 12 significant digits drop binary noise such as 0.69 × 1000 = 690.0000000000001.
   const value = factor === 1 ? number.value : Number((number.value * factor).toPrecision(12))

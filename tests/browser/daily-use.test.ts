@@ -111,6 +111,47 @@ describe('daily use in Chromium', () => {
     })
   }
 
+  it('purchasing quote (de-DE): "0,9k"-style and "k€" prices read by the shared quantity field, shown back, a voltage or another currency refused', async () => {
+    const { email, password } = await newPerson('purchasing')
+    const api = await signIn(email, password)
+    expect((await api.json('PUT', '/api/settings/locale', { locale: 'de-DE' })).status).toBe(200)
+    // the demo's released BOM (server/db/seed.ts), found through the engineer who released it
+    const engineer = await signInAs('design-engineer')
+    const designs = (await engineer.json('GET', '/api/designs')).body as { id: number, name: string }[]
+    const pump = designs.find(d => d.name === 'Pump drive 690 V / 400 kW')!
+    const bomId = ((await engineer.json('GET', `/api/designs/${pump.id}/bom`)).body.releases as { id: number }[])[0]!.id
+    const lines = (await api.json('GET', `/api/boms/${bomId}`)).body.snapshot.lines as { key: string, partNumber: string, unitPrice: number | null, currency: string }[]
+    const line = lines.find(l => (l.unitPrice ?? 0) > 10 && l.currency === 'EUR')!
+    // within the 3× band of the catalogue price, so no confirmation is asked
+    const quote = Math.round(line.unitPrice! * 0.9)
+    const kilo = String(quote / 1000).replace('.', ',')
+    const stored = async () => ((await api.json('GET', `/api/boms/${bomId}`)).body.purchase[line.key] ?? {}).quotedUnitPrice
+
+    const page = await newPage(browser, 1600, 'en-GB')
+    await signInWith(page, email, password)
+    await page.goto(`/boms/${bomId}`)
+    const field = page.locator(`tbody tr[data-line="${line.partNumber}"]`).first().getByLabel(/Quoted unit price for/)
+    await field.fill(`${kilo}k`)
+    await field.press('Enter')
+    await expect.poll(() => field.inputValue()).toBe(`${quote} EUR`)
+    await expect.poll(stored).toBe(quote)
+
+    await field.fill(`${kilo} k€`)
+    await field.press('Enter')
+    await expect.poll(() => field.inputValue()).toBe(`${quote} EUR`)
+
+    await field.fill('2 kV')
+    await field.press('Enter')
+    await page.getByText('"2 kV" is a voltage, not a price in EUR').waitFor()
+    await field.fill('2 k$')
+    await field.press('Enter')
+    await page.getByText('"2 k$" is a price in USD, not a price in EUR').waitFor()
+    expect(await stored()).toBe(quote)
+    await screenshot(page, 'daily-use-quote-field')
+    await page.context().close()
+    expect((await api.json('PUT', `/api/boms/${bomId}/lines/${encodeURIComponent(line.key)}`, { quotedUnitPrice: null })).status).toBe(200)
+  })
+
   it('People asks before a role change or disabling; the audit log filters as you type and shows details as fields', async () => {
     const { email } = await newPerson('viewer')
     const admin = await signInAs('admin')

@@ -114,3 +114,47 @@ for (const locale of locales) {
     })
   })
 }
+
+// Prices (the purchasing quote): k and M as in the SI prefixes above, typed alone or before the currency's code or
+// symbol (common practice in quotes: "2 k€", "1,5k"); cents are kept, never rounded to a prefix.
+for (const locale of locales) {
+  describe(`prices in ${locale}`, () => {
+    const accepted: [string, string, number][] = [
+      [mark('1.5k', locale), 'EUR', 1500],
+      ['2 k€', 'EUR', 2000],
+      ['2k €', 'EUR', 2000],
+      [mark('12.50', locale), 'EUR', 12.5],
+      ['310 EUR', 'EUR', 310],
+      ['310 eur', 'EUR', 310],
+      [mark('0.279 kEUR', locale), 'EUR', 279],
+      ['1 M€', 'EUR', 1e6],
+      ['300 kr', 'SEK', 300],
+      ['2 kkr', 'SEK', 2000],
+      [mark('1.5 MSEK', locale), 'SEK', 1.5e6],
+      ['45 $', 'USD', 45],
+    ]
+    for (const [text, unit, v] of accepted) {
+      it(`"${text}" in a ${unit} field is ${v}`, () => { expect(value(text, unit, locale)).toBe(v) })
+    }
+    it('refuses a unit of another quantity or currency, naming what it is', () => {
+      expect(refusal('2 kV', 'EUR', locale)).toContain('"2 kV" is a voltage, not a price in EUR')
+      expect(refusal('2 k$', 'EUR', locale)).toContain('"2 k$" is a price in USD, not a price in EUR')
+      expect(refusal('2 kr', 'EUR', locale)).toContain('is a price in another currency, not a price in EUR')
+      expect(refusal('4 pcs', 'EUR', locale)).toContain('has a unit "pcs" that does not fit')
+      expect(refusal('2 m€', 'EUR', locale)).toContain('does not fit')
+      expect(refusal('-3', 'EUR', locale, { min: 0 })).toContain('must be at least 0 EUR')
+    })
+    it('refuses what it would otherwise have to guess: the other decimal mark is never read as digit grouping', () => {
+      expect(refusal(comma(locale) ? '12.50' : '12,50', 'EUR', locale)).toMatch(/decimal mark|not a number/)
+      expect(value(comma(locale) ? '1.234,5' : '1,234.5', 'EUR', locale)).toBe(1234.5)
+    })
+    it('shows a price back with its cents and currency, read back to the same value', () => {
+      for (const [v, shown] of [[1500, '1500 EUR'], [12.5, '12.5 EUR'], [1234.56, '1234.56 EUR'], [0.3, '0.3 EUR']] as const) {
+        const text = formatQuantity(v, 'EUR', locale)
+        expect(text).toBe(mark(shown, locale))
+        expect(value(text, 'EUR', locale)).toBe(v)
+      }
+      expect(formatQuantity(0.1 + 0.2, 'EUR', locale)).toBe(mark('0.3 EUR', locale))
+    })
+  })
+}

@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest'
 import { buildBomLines } from '../../../shared/bom/build'
 import { gateMark, gateReasons, unacknowledgedLines } from '../../../shared/bom/gates'
-import { parseLocaleNumber, quoteNeedsConfirmation } from '../../../shared/bom/number'
+import { quoteNeedsConfirmation } from '../../../shared/bom/number'
 import { groupBySupplier, isOpen, openLinesBySupplier, stockShortfall } from '../../../shared/bom/purchase'
 import { capacitorFill, positionFill } from './fixtures'
 
@@ -37,23 +37,7 @@ describe('capacitor banks carry series × parallel', () => {
   })
 })
 
-describe('parseLocaleNumber', () => {
-  it('a decimal comma is a decimal comma (de-DE, fr-FR), a decimal point in en-US', () => {
-    expect(parseLocaleNumber('12,50', 'de-DE').value).toBe(12.5)
-    expect(parseLocaleNumber('1.234,5', 'de-DE').value).toBe(1234.5)
-    expect(parseLocaleNumber('1\u202f234,5', 'fr-FR').value).toBe(1234.5)
-    expect(parseLocaleNumber('1 234,5', 'fr-FR').value).toBe(1234.5)
-    expect(parseLocaleNumber('12.50', 'en-US').value).toBe(12.5)
-    expect(parseLocaleNumber('1,234.5', 'en-US').value).toBe(1234.5)
-  })
-
-  it('refuses what it would otherwise have to guess ("12,50" in en-US is not 1250)', () => {
-    expect(parseLocaleNumber('12,50', 'en-US')).toMatchObject({ value: null, error: expect.stringMatching(/not a number/) })
-    expect(parseLocaleNumber('12.5.0', 'en-US').value).toBeNull()
-    expect(parseLocaleNumber('abc', 'de-DE').value).toBeNull()
-    expect(parseLocaleNumber('  ', 'de-DE')).toEqual({ value: null, error: null })
-  })
-
+describe('quoteNeedsConfirmation', () => {
   it('a quote more than 3× off the catalogue price asks for confirmation, either way', () => {
     expect(quoteNeedsConfirmation(1250, 12.5)).toBe(true)
     expect(quoteNeedsConfirmation(4, 12.5)).toBe(true)
