@@ -6,7 +6,7 @@ import { EngineInputError, evaluateDesign, evaluateStress, type DesignInput, typ
 import { openSharedIndex, type PartIndex, type SharedPartIndex } from '#shared/catalog/matching'
 import type { TradeStudyInput } from '#shared/schemas/trade-study'
 import { readCatalogFile, type ReadOptions } from '../catalog/read'
-import { buildCurrentIndex } from '../catalog/current-index'
+import { buildCurrentIndex, indexDigest } from '../catalog/current-index'
 import { previewDesign, type PreviewView } from '../services/designs'
 import { matchDesignPositions, type DesignMatchRequest } from '../services/parts'
 import { tradeStudyRows } from '../services/trade-study'
@@ -65,8 +65,10 @@ async function run(task: Task): Promise<TaskResult> {
       return { ok: true, value: tradeStudyRows(task.duty, catalogFor(task)) }
     case 'match-design':
       return { ok: true, value: matchDesignPositions(task.request, catalogFor(task)) }
-    case 'build-index':
-      return { ok: true, value: buildCurrentIndex(task.rows) }
+    case 'build-index': {
+      const index = buildCurrentIndex(task.rows)
+      return { ok: true, value: { index, digest: indexDigest(index) } }
+    }
     case 'read-catalog':
       return { ok: true, value: await readCatalogFile(Buffer.from(task.file.buffer, task.file.byteOffset, task.file.byteLength), task.filename, task.limits) }
     case 'bom-pdf':

@@ -153,6 +153,39 @@ describe('two instances on one database', () => {
     expect((await member.json('GET', '/api/auth/me')).status).toBe(401)
   })
 
+  it('both instances build the same matching index from one catalogue generation, once per generation however many requests ask', async () => {
+    const components = await signIn(demoEmail['component-engineer'], undefined, A)
+    const onA = await signIn(demoEmail['design-engineer'], undefined, A)
+    const onB = await signIn(demoEmail['design-engineer'], undefined, B)
+    const designs = (await onB.json('GET', '/api/designs')).body
+    const designId = (designs.rows ?? designs)[0].id as number
+    const held = async (base: string) => (await (await fetch(`${base}/api/health`)).json()).catalogue as { generation: number, digest: string, builds: number } | null
+    // eight concurrent matchings per instance: each builds (at most) the one generation they all read
+    const burst = (c: Client) => Promise.all(Array.from({ length: 8 }, () => c.json('GET', `/api/designs/${designId}/parts?limit=5`)))
+    const settle = async () => {
+      // other test files may commit to the catalogue meanwhile: retry until both hold the same generation
+      for (let attempt = 0; attempt < 5; attempt++) {
+        const answers = await Promise.all([burst(onA), burst(onB)])
+        for (const r of answers.flat()) expect(r.status).toBe(200)
+        const [a, b] = await Promise.all([held(A), held(B)])
+        expect(a?.builds).toBe(1)
+        expect(b?.builds).toBe(1)
+        if (a!.generation === b!.generation) return [a!, b!] as const
+      }
+      throw new Error('the two instances never held the same generation')
+    }
+    const [a1, b1] = await settle()
+    expect(a1.digest).toBe(b1.digest)
+    // a catalogue commit on A (a part edit): matching on B sees the new generation, built once there too
+    const [found] = (await components.json('GET', '/api/catalog/parts?pageSize=1')).body.rows
+    const edit = await components.json('PATCH', `/api/catalog/parts/${found.id}`, { stock: (found.stock ?? 0) + 3 })
+    expect(edit.status, JSON.stringify(edit.body)).toBe(200)
+    const [a2, b2] = await settle()
+    expect(b2.generation).toBeGreaterThan(b1.generation)
+    expect(a2.digest).toBe(b2.digest)
+    expect(a2.digest).not.toBe(a1.digest)
+  })
+
   it('sign-in throttling counts failures on both instances together', async () => {
     const email = `${unique('nobody')}@example.com`
     const statuses: number[] = []
