@@ -14,10 +14,14 @@ import { bomToPdf } from '../exports/bom-pdf'
 import { designReportPdf } from '../exports/design-pdf'
 import type { PdfFonts } from '../exports/pdf'
 import { compactProvenance } from './provenance'
+import { encodeAnswer, type EncodeRequest } from './encode'
 import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
 
 /** what the BOM PDF takes besides the snapshot and purchasing's entries */
 export interface BomPdfOptions { openOnly?: boolean, locale?: string }
+
+/** A task whose answer goes straight to the client: `encode` asks the thread for the JSON bytes (encode.ts). */
+export type EncodedTask = Task & { encode: EncodeRequest }
 
 export type Task
   = | { kind: 'stress', input: StressInput, options: EvaluateOptions, provenance?: 'compact' | 'full' }
@@ -83,9 +87,10 @@ async function run(task: Task): Promise<TaskResult> {
 }
 
 /** Runs one task; errors the route would answer with come back as data (a thread boundary drops their class). */
-export async function runTask(task: Task): Promise<TaskResult> {
+export async function runTask(task: Task | EncodedTask): Promise<TaskResult> {
   try {
-    return await run(task)
+    const result = await run(task)
+    return 'encode' in task && task.encode && result.ok ? { ok: true, value: encodeAnswer(result.value, task.encode) } : result
   }
   catch (err) {
     if (err instanceof EngineInputError) return { ok: false, error: { kind: 'engine', field: err.field, message: err.message } }

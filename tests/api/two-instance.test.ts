@@ -153,6 +153,37 @@ describe('two instances on one database', () => {
     expect((await member.json('GET', '/api/auth/me')).status).toBe(401)
   })
 
+  it('an API token revoked on one instance is refused on the other at once, though the other had just accepted it', async () => {
+    const owner = await signIn(demoEmail['design-engineer'], undefined, A)
+    const created = await owner.json('POST', '/api/tokens', { name: 'fleet cache' })
+    expect(created.status).toBe(201)
+    const stress = { topology: 'two-level', levels: 2, dcVoltage: 650, lineVoltageRms: 400, phaseCurrentRms: 100, powerFactor: 0.9, fundamentalHz: 50, switchingHz: 6000, modulation: 'sine' }
+    const call = (base: string) => fetch(`${base}/api/v1/stress`, { method: 'POST', headers: { 'content-type': 'application/json', 'authorization': `Bearer ${created.body.token}` }, body: JSON.stringify(stress) })
+    // B finds the owner once and may keep them for a few seconds: the revocation must still reach it
+    expect((await call(B)).status).toBe(200)
+    expect((await call(B)).status).toBe(200)
+    expect((await owner.json('DELETE', `/api/tokens/${created.body.id}`)).status).toBe(200)
+    expect((await call(B)).status).toBe(401)
+    expect((await call(A)).status).toBe(401)
+  })
+
+  it('disabling an account on one instance refuses its API token on the other at once', async () => {
+    const admin = await signIn(demoEmail.admin, undefined, A)
+    const email = `${unique('fleet-token')}@example.com`
+    const invite = await admin.json('POST', '/api/admin/users', { email, name: 'Fleet Token', role: 'design-engineer' })
+    expect(invite.status).toBe(201)
+    const linkToken = new URL(linkIn((await waitForMail(email, 'invited')).text)).searchParams.get('token')
+    expect((await client('', A).json('POST', '/api/auth/set-password', { token: linkToken, password: 'fleet-password-2' })).status).toBe(200)
+    const member = await signIn(email, 'fleet-password-2', A)
+    const created = await member.json('POST', '/api/tokens', { name: 'fleet disable' })
+    expect(created.status).toBe(201)
+    const stress = { topology: 'two-level', levels: 2, dcVoltage: 650, lineVoltageRms: 400, phaseCurrentRms: 100, powerFactor: 0.9, fundamentalHz: 50, switchingHz: 6000, modulation: 'sine' }
+    const call = () => fetch(`${B}/api/v1/stress`, { method: 'POST', headers: { 'content-type': 'application/json', 'authorization': `Bearer ${created.body.token}` }, body: JSON.stringify(stress) })
+    expect((await call()).status).toBe(200)
+    expect((await admin.json('PATCH', `/api/admin/users/${invite.body.id}`, { disabled: true })).status).toBe(200)
+    expect((await call()).status).toBe(401)
+  })
+
   it('both instances build the same matching index from one catalogue generation, once per generation however many requests ask', async () => {
     const components = await signIn(demoEmail['component-engineer'], undefined, A)
     const onA = await signIn(demoEmail['design-engineer'], undefined, A)
