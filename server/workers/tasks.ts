@@ -9,6 +9,7 @@ import { readCatalogFile, type ReadOptions } from '../catalog/read'
 import { buildCurrentIndex, indexDigest } from '../catalog/current-index'
 import { previewDesign, type PreviewView } from '../services/designs'
 import { matchDesignPositions, type DesignMatchRequest } from '../services/parts'
+import { partsAnswer, type DesignHead } from '../services/parts-answer'
 import { tradeStudyRows } from '../services/trade-study'
 import { bomToPdf } from '../exports/bom-pdf'
 import { designReportPdf } from '../exports/design-pdf'
@@ -29,6 +30,7 @@ export type Task
     | { kind: 'preview', input: DesignInput, view?: Partial<PreviewView> }
     | { kind: 'trade-study', generation: number, index: SharedPartIndex, duty: TradeStudyInput }
     | { kind: 'match-design', generation: number, index: SharedPartIndex, request: DesignMatchRequest }
+    | { kind: 'parts-answer', generation: number, index: SharedPartIndex, request: DesignMatchRequest, design: DesignHead, seesCatalogue: boolean }
     | { kind: 'build-index', rows: string }
     | { kind: 'read-catalog', file: Uint8Array, filename: string, limits: ReadOptions }
     | { kind: 'bom-pdf', fonts?: PdfFonts, args: { snapshot: BomSnapshot, purchase: BomPurchase, options?: BomPdfOptions } }
@@ -69,6 +71,8 @@ async function run(task: Task): Promise<TaskResult> {
       return { ok: true, value: tradeStudyRows(task.duty, catalogFor(task)) }
     case 'match-design':
       return { ok: true, value: matchDesignPositions(task.request, catalogFor(task)) }
+    case 'parts-answer':
+      return { ok: true, value: partsAnswer(task.design, matchDesignPositions(task.request, catalogFor(task)), task.seesCatalogue) }
     case 'build-index': {
       const index = buildCurrentIndex(task.rows)
       return { ok: true, value: { index, digest: indexDigest(index) } }
