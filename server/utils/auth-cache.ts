@@ -9,8 +9,10 @@ import { sql } from 'drizzle-orm'
 import type { CurrentUser } from './auth'
 
 const CHANNEL = 'stratavolt_auth'
-/** ms an owner found for a token is trusted without asking PostgreSQL again */
-export const TOKEN_CACHE_MS = 5000
+/** ms an owner found for a token is trusted without asking PostgreSQL again (STRATAVOLT_TOKEN_CACHE_MS=0: never) */
+export const TOKEN_CACHE_MS = Math.max(0, Number(process.env.STRATAVOLT_TOKEN_CACHE_MS ?? 5000) || 0)
+/** ms between attempts to LISTEN after one failed */
+const RETRY_LISTEN_MS = 10_000
 const MAX_ENTRIES = 1000
 
 interface Entry { user: CurrentUser, at: number }
@@ -20,6 +22,7 @@ const entries = new Map<string, Entry>()
 let epoch = 0
 let listening: Promise<unknown> | null = null
 let live = false
+let failedAt = 0
 
 function forget(userId: string) {
   epoch++
@@ -29,7 +32,7 @@ function forget(userId: string) {
 
 /** Starts listening once; until the listener is connected nothing is cached. */
 function ensureListening() {
-  if (listening) return
+  if (listening || TOKEN_CACHE_MS === 0 || Date.now() - failedAt < RETRY_LISTEN_MS) return
   listening = useDb().$client.listen(CHANNEL, payload => forget(payload), () => {
     // (re)connected: whatever was sent while we were away is unknown
     forget('*')
@@ -37,6 +40,7 @@ function ensureListening() {
   }).catch(() => {
     live = false
     listening = null
+    failedAt = Date.now()
   })
 }
 

@@ -8,7 +8,12 @@ import { gzipSync } from 'node:zlib'
 export const COMPRESS_MIN_BYTES = 1024
 
 export interface EncodeRequest { gzip: boolean }
-export interface EncodedAnswer { body: Uint8Array, gzip: boolean }
+export interface EncodedAnswer {
+  body: Uint8Array
+  gzip: boolean
+  /** ms the thread spent computing the value and encoding it (sent as Server-Timing, so a client can tell overhead from work) */
+  timing?: { computeMs: number, encodeMs: number }
+}
 
 export function encodeAnswer(value: unknown, request: EncodeRequest): EncodedAnswer {
   const json = Buffer.from(JSON.stringify(value) ?? 'null')

@@ -92,8 +92,10 @@ export async function runInPool<T>(task: Task | EncodedTask, supply?: { fonts?: 
  */
 export async function answerFromPool<T = unknown>(event: H3Event, task: Task): Promise<T> {
   const gzip = !!getRequestHeader(event, 'accept-encoding')?.includes('gzip')
-  const { body, gzip: zipped } = await runInPool<EncodedAnswer>({ ...task, encode: { gzip } } as EncodedTask)
+  const { body, gzip: zipped, timing } = await runInPool<EncodedAnswer>({ ...task, encode: { gzip } } as EncodedTask)
   setResponseHeader(event, 'Content-Type', 'application/json')
+  // W3C Server-Timing: the thread's own work, so the load bench (or any client) can tell the per-request overhead
+  if (timing) setResponseHeader(event, 'Server-Timing', `compute;dur=${timing.computeMs.toFixed(3)}, encode;dur=${timing.encodeMs.toFixed(3)}`)
   if (zipped) {
     setResponseHeader(event, 'Content-Encoding', 'gzip')
     appendResponseHeader(event, 'Vary', 'Accept-Encoding')

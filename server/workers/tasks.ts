@@ -93,8 +93,12 @@ async function run(task: Task): Promise<TaskResult> {
 /** Runs one task; errors the route would answer with come back as data (a thread boundary drops their class). */
 export async function runTask(task: Task | EncodedTask): Promise<TaskResult> {
   try {
+    const t0 = performance.now()
     const result = await run(task)
-    return 'encode' in task && task.encode && result.ok ? { ok: true, value: encodeAnswer(result.value, task.encode) } : result
+    if (!('encode' in task && task.encode && result.ok)) return result
+    const t1 = performance.now()
+    const encoded = encodeAnswer(result.value, task.encode)
+    return { ok: true, value: { ...encoded, timing: { computeMs: t1 - t0, encodeMs: performance.now() - t1 } } }
   }
   catch (err) {
     if (err instanceof EngineInputError) return { ok: false, error: { kind: 'engine', field: err.field, message: err.message } }
