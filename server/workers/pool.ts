@@ -87,8 +87,9 @@ export async function runInPool<T>(task: Task | EncodedTask, supply?: { fonts?: 
 
 /**
  * Runs a task whose value is the route's whole answer and sends it as the thread encoded it (JSON, gzipped when
- * the client accepts gzip and it is at least COMPRESS_MIN_BYTES): the route returns what this returns. The
- * compression plugin leaves a body with Content-Encoding alone and passes the small ones, as for any answer.
+ * the client accepts gzip and it is at least THREAD_GZIP_MIN_BYTES): the route returns what this returns. The
+ * compression plugin leaves a body with Content-Encoding alone, and a plain one from the thread too (marked
+ * below), so a small answer the thread chose not to gzip is not gzipped after all on the event loop.
  */
 export async function answerFromPool<T = unknown>(event: H3Event, task: Task): Promise<T> {
   const gzip = !!getRequestHeader(event, 'accept-encoding')?.includes('gzip')
@@ -96,10 +97,9 @@ export async function answerFromPool<T = unknown>(event: H3Event, task: Task): P
   setResponseHeader(event, 'Content-Type', 'application/json')
   // W3C Server-Timing: the thread's own work, so the load bench (or any client) can tell the per-request overhead
   if (timing) setResponseHeader(event, 'Server-Timing', `compute;dur=${timing.computeMs.toFixed(3)}, encode;dur=${timing.encodeMs.toFixed(3)}`)
-  if (zipped) {
-    setResponseHeader(event, 'Content-Encoding', 'gzip')
-    appendResponseHeader(event, 'Vary', 'Accept-Encoding')
-  }
+  appendResponseHeader(event, 'Vary', 'Accept-Encoding')
+  if (zipped) setResponseHeader(event, 'Content-Encoding', 'gzip')
+  else event.context.encodedOnThread = true
   // typed as the answer these bytes encode, so the route's callers ($fetch, useFetch) keep their types
   return Buffer.from(body.buffer, body.byteOffset, body.byteLength) as unknown as T
 }
@@ -123,4 +123,11 @@ export async function renderBomPdf(snapshot: BomSnapshot, purchase: BomPurchase 
 /** The design report as PDF, rendered on a worker thread. */
 export async function renderDesignReport(report: Extract<Task, { kind: 'design-pdf' }>['report']): Promise<Buffer> {
   return pdfResult(await runInPool<Uint8Array>({ kind: 'design-pdf', report }, { fonts: pdfFontsOnce }))
+}
+
+declare module 'h3' {
+  interface H3EventContext {
+    /** the answer was encoded on a worker thread (as it should go out): the compression plugin leaves it alone */
+    encodedOnThread?: boolean
+  }
 }
