@@ -28,7 +28,7 @@ for (const [suite, run] of suites) {
   process.stderr.write(`running ${suite}…\n`)
   for (const f of await run()) rows.push({ suite, ...f })
 }
-const fmt = (ms: number) => (ms >= 100 ? ms.toFixed(0) : ms >= 10 ? ms.toFixed(1) : ms.toFixed(2))
+const fmt = (ms: number) => (Number.isNaN(ms) ? '—' : ms >= 100 ? ms.toFixed(0) : ms >= 10 ? ms.toFixed(1) : ms.toFixed(2))
 const header = ['suite', 'what', 'p50 [ms]', 'p99 [ms]', 'runs', 'target']
 const table = rows.map(r => [r.suite, r.name, fmt(r.p50Ms), fmt(r.p99Ms), String(r.runs), r.target ?? ''])
 const widths = header.map((h, i) => Math.max(h.length, ...table.map(r => r[i]!.length)))

@@ -34,7 +34,7 @@ function logTail(log: string): string {
  * under the old server, its first query fails with "relation … does not exist". The server is stopped when the
  * benchmark process exits, however it exits.
  */
-export async function startBuiltServer(options: { database: string, port: number, name: string, uploads: string, seedDemo: boolean }): Promise<{ base: string, stop: () => void }> {
+export async function startBuiltServer(options: { database: string, port: number, name: string, uploads: string, seedDemo: boolean }): Promise<{ base: string, pid: number | undefined, stop: () => void }> {
   await ensurePortFree(options.port, 'STRATAVOLT_BENCH_PORT', `the ${options.name} server`)
   const url = ensurePostgres([{ name: options.database, recreate: true }])(options.database)
   // STRATAVOLT_BENCH_OUTPUT=.output-test reuses the build `npm test` made (built again when out of date)
@@ -73,7 +73,7 @@ export async function startBuiltServer(options: { database: string, port: number
     if (err instanceof Error && !err.message.includes(log)) err.message += `; ${log}:\n${logTail(log)}`
     throw err
   }
-  return { base, stop }
+  return { base, pid: server.pid, stop }
 }
 
 /** Polls until `url` answers 200 (health answers 503 while the database is down). */

@@ -1,4 +1,5 @@
 import { sql } from 'drizzle-orm'
+import { heldCatalogue } from '~~/server/services/catalog'
 
 /** ms: a dependency that does not answer within this counts as down. */
 const CHECK_TIMEOUT_MS = 2000
@@ -35,5 +36,7 @@ export default defineEventHandler(async (event) => {
     status: db ? 'down' : mail ? 'degraded' : 'up',
     db: db ? { status: 'down', message: db } : { status: 'up' },
     mail: mail ? { status: 'down', message: mail } : { status: 'up' },
+    // the matching index this instance holds: instances on one generation report one digest, built once
+    catalogue: heldCatalogue(),
   }
 })

@@ -1,6 +1,7 @@
 // The matching index built from the rows PostgreSQL sends as one JSON text (part version id, part id, approval,
 // the version's data), on a worker thread: parsing 100 000 parts and filling the columns takes seconds, and the
 // event loop must keep answering meanwhile. Pure: no database here.
+import { createHash } from 'node:crypto'
 import { sharePartIndex, type SharedPartIndex } from '#shared/catalog/matching'
 import type { CatalogPart } from '#shared/catalog/types'
 
@@ -18,6 +19,15 @@ export function currentParts(rows: readonly CurrentRow[]): CurrentPart[] {
 export function buildCurrentIndex(rowsText: string): SharedPartIndex {
   const parts = currentParts(JSON.parse(rowsText) as CurrentRow[])
   return sharePartIndex(parts, p => (p as CurrentPart).partVersionId)
+}
+
+/**
+ * A fingerprint of an index (its parts in index order and their texts): two instances that read the same
+ * generation build byte-identical indices, so they report the same digest.
+ */
+export function indexDigest(index: SharedPartIndex): string {
+  // hash.update takes copies: views of shared memory are refused
+  return createHash('sha256').update(new Uint8Array(index.ids.buffer.slice(0))).update(index.text.slice()).digest('hex').slice(0, 16)
 }
 
 /**

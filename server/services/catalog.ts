@@ -146,14 +146,32 @@ export async function catalogGeneration(): Promise<number> {
  * newer parts under an older tag, which only costs one more read — never a stale answer.
  */
 async function buildCatalogue(generation: number): Promise<CurrentCatalogue> {
+  countBuild(generation)
+  // ordered by part version id: equal voltage ratings keep this order in the index, so every instance
+  // builds the same index from the same generation (json_agg alone follows whatever plan PostgreSQL chose)
   const [row] = await useDb().execute<{ rows: string }>(sql`
-    select coalesce(json_agg(json_build_array(v.id, v.part_id, p.approved, v.data)), '[]')::text as rows
+    select coalesce(json_agg(json_build_array(v.id, v.part_id, p.approved, v.data) order by v.id), '[]')::text as rows
     from part_versions v join parts p on p.id = v.part_id
     where v.is_current`)
-  const shared = await runInPool<SharedPartIndex>({ kind: 'build-index', rows: row?.rows ?? '[]' })
+  const { index: shared, digest } = await runInPool<{ index: SharedPartIndex, digest: string }>({ kind: 'build-index', rows: row?.rows ?? '[]' })
   const places = new Map<number, number>()
   for (let i = 0; i < shared.size; i++) places.set(shared.ids[i]!, i)
+  if (!held || held.generation <= generation) held = { generation, digest }
   return { generation, shared, index: openSharedIndex(shared), places }
+}
+
+/** builds started on this instance per generation (the latest few): health shows the held one's, which must be 1 */
+const buildsOf = new Map<number, number>()
+let held: { generation: number, digest: string } | null = null
+
+function countBuild(generation: number) {
+  buildsOf.set(generation, (buildsOf.get(generation) ?? 0) + 1)
+  if (buildsOf.size > 16) buildsOf.delete(Math.min(...buildsOf.keys()))
+}
+
+/** The matching index this instance holds (null before the first match): generation, digest, builds of it. */
+export function heldCatalogue(): { generation: number, digest: string, builds: number } | null {
+  return held && { ...held, builds: buildsOf.get(held.generation) ?? 0 }
 }
 
 // Tagged with the catalogue generation it was read at. The generation lives in PostgreSQL (catalog_state, moved

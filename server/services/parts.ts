@@ -145,6 +145,13 @@ export interface DesignMatchRequest {
  * (matchDesignPositions); this thread reads the design, its assignments and the catalogue generation.
  */
 export async function matchDesign(designId: number, limit = 40, options: { showAll?: boolean, summaryOnly?: boolean } = {}) {
+  const { design, input, task } = await designMatchTask(designId, limit, options)
+  const matched = await runInPool<ReturnType<typeof matchDesignPositions>>({ kind: 'match-design', ...task })
+  return { design, input, ...matched }
+}
+
+/** What a worker thread needs to match a design: read here (design, assignments, catalogue generation), sent there. */
+export async function designMatchTask(designId: number, limit: number, options: { showAll?: boolean, summaryOnly?: boolean }) {
   const design = await loadDesign(designId)
   const input = design.input as DesignInput
   // The part index is kept between requests until the catalogue generation changes.
@@ -158,8 +165,7 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
     pinned: [...pinned], approval: [...approval], current: assignments.map(a => a.partVersionId).filter(id => catalogue.places.has(id)),
     hosts: hostIds.map(place => catalogue.index.part(place) as Part), limit, options,
   }
-  const matched = await runInPool<ReturnType<typeof matchDesignPositions>>({ kind: 'match-design', generation: catalogue.generation, index: catalogue.shared, request })
-  return { design, input, ...matched }
+  return { design, input, task: { generation: catalogue.generation, index: catalogue.shared, request } }
 }
 
 /** Every position of a design matched against the index (pure: runs on a worker thread). */

@@ -2,6 +2,7 @@ import { createHash, randomBytes } from 'node:crypto'
 import type { H3Event, SessionConfig } from 'h3'
 import { eq, lt, sql } from 'drizzle-orm'
 import { can, isRole, type Permission, type Role } from '#shared/roles'
+import { cachedTokenUser, rememberTokenUser, tokenLookupStarted } from './auth-cache'
 
 type CookieSerializeOptions = Exclude<NonNullable<SessionConfig['cookie']>, false>
 
@@ -51,13 +52,20 @@ export function sessionCookie(event: H3Event): { cookie: CookieSerializeOptions 
 }
 
 async function userFromBearer(event: H3Event, token: string): Promise<CurrentUser | null> {
+  const hash = sha256(token)
+  const cached = cachedTokenUser(hash)
+  if (cached) {
+    event.context.viaToken = true
+    return cached
+  }
+  const startedAt = tokenLookupStarted()
   // One round trip: the token's owner as the database knows them now (role changes apply at once), and
   // last_used_at moved on at most once a minute, so a busy token does not write (and lock its row) per request.
   const [row] = await useDb().execute<{ id: number, email: string, name: string, role: string, disabled: boolean, locale: string | null }>(sql`
     with hit as (
       select t.id as token_id, t.last_used_at, u.id, u.email, u.name, u.role, u.disabled, u.locale
       from api_tokens t join users u on u.id = t.user_id
-      where t.token_hash = ${sha256(token)} and t.revoked_at is null
+      where t.token_hash = ${hash} and t.revoked_at is null
     ), touched as (
       update api_tokens set last_used_at = now() from hit
       where api_tokens.id = hit.token_id and (hit.last_used_at is null or hit.last_used_at < now() - interval '1 minute')
@@ -65,10 +73,15 @@ async function userFromBearer(event: H3Event, token: string): Promise<CurrentUse
     select id, email, name, role, disabled, locale from hit`)
   if (!row || row.disabled || !isRole(row.role)) return null
   event.context.viaToken = true
-  return { id: row.id, email: row.email, name: row.name, role: row.role, locale: row.locale ?? null }
+  const user: CurrentUser = { id: row.id, email: row.email, name: row.name, role: row.role, locale: row.locale ?? null }
+  rememberTokenUser(hash, user, startedAt)
+  return user
 }
 
-/** The signed-in person (session cookie, or a Bearer token on /api/v1), checked against the database on every request. */
+/**
+ * The signed-in person (session cookie, or a Bearer token on /api/v1), checked against the database on every
+ * request; a token's owner may come from the few-second cache of auth-cache.ts, which every change drops.
+ */
 export async function currentUser(event: H3Event): Promise<CurrentUser | null> {
   if (event.context.user !== undefined) return event.context.user
   let user: CurrentUser | null = null

@@ -1,4 +1,5 @@
 import { and, eq, gt, isNull } from 'drizzle-orm'
+import { authChanged } from './auth-cache'
 
 const LIFETIME_MS = { invite: 7 * 24 * 3600 * 1000, reset: 60 * 60 * 1000 } as const
 export type LinkPurpose = keyof typeof LIFETIME_MS
@@ -34,6 +35,7 @@ export async function setPasswordWithLink(token: string, password: string) {
       .set({ passwordHash, sessionVersion: user.sessionVersion + 1 })
       .where(eq(tables.users.id, user.id))
       .returning()
+    await authChanged(user.id, tx)
     return { user: updated!, purpose: link.purpose }
   })
 }

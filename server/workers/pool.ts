@@ -10,7 +10,9 @@ import { Piscina } from 'piscina'
 import { EngineInputError } from '#shared/engine'
 import { loadFonts, type PdfFonts } from '../exports/pdf'
 import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
-import { runTask, type BomPdfOptions, type Task, type TaskResult } from './tasks'
+import type { H3Event } from 'h3'
+import { runTask, type BomPdfOptions, type EncodedTask, type Task, type TaskResult } from './tasks'
+import type { EncodedAnswer } from './encode'
 
 export const WORKER_FILE = join('workers', 'engine.mjs')
 
@@ -64,7 +66,7 @@ function rethrow(result: Exclude<TaskResult, { ok: true } | { needs: unknown }>)
   throw createError({ statusCode: e.statusCode, message: e.message, data: e.data })
 }
 
-async function dispatch(task: Task): Promise<TaskResult> {
+async function dispatch(task: Task | EncodedTask): Promise<TaskResult> {
   const p = usePool()
   return p ? p.run(task) as Promise<TaskResult> : runTask(task)
 }
@@ -73,7 +75,7 @@ async function dispatch(task: Task): Promise<TaskResult> {
  * Runs a task on a worker thread and returns its value; engine and HTTP errors are raised here as the
  * route would raise them. `supply` answers a thread whose fonts copy is missing.
  */
-export async function runInPool<T>(task: Task, supply?: { fonts?: () => Promise<PdfFonts> }): Promise<T> {
+export async function runInPool<T>(task: Task | EncodedTask, supply?: { fonts?: () => Promise<PdfFonts> }): Promise<T> {
   let result = await dispatch(task)
   if (!result.ok && 'needs' in result) {
     if (result.needs === 'fonts' && supply?.fonts && (task.kind === 'bom-pdf' || task.kind === 'design-pdf')) result = await dispatch({ ...task, fonts: await supply.fonts() })
@@ -81,6 +83,25 @@ export async function runInPool<T>(task: Task, supply?: { fonts?: () => Promise<
   }
   if (!result.ok) return rethrow(result)
   return result.value as T
+}
+
+/**
+ * Runs a task whose value is the route's whole answer and sends it as the thread encoded it (JSON, gzipped when
+ * the client accepts gzip and it is at least THREAD_GZIP_MIN_BYTES): the route returns what this returns. The
+ * compression plugin leaves a body with Content-Encoding alone, and a plain one from the thread too (marked
+ * below), so a small answer the thread chose not to gzip is not gzipped after all on the event loop.
+ */
+export async function answerFromPool<T = unknown>(event: H3Event, task: Task): Promise<T> {
+  const gzip = !!getRequestHeader(event, 'accept-encoding')?.includes('gzip')
+  const { body, gzip: zipped, timing } = await runInPool<EncodedAnswer>({ ...task, encode: { gzip } } as EncodedTask)
+  setResponseHeader(event, 'Content-Type', 'application/json')
+  // W3C Server-Timing: the thread's own work, so the load bench (or any client) can tell the per-request overhead
+  if (timing) setResponseHeader(event, 'Server-Timing', `compute;dur=${timing.computeMs.toFixed(3)}, encode;dur=${timing.encodeMs.toFixed(3)}`)
+  appendResponseHeader(event, 'Vary', 'Accept-Encoding')
+  if (zipped) setResponseHeader(event, 'Content-Encoding', 'gzip')
+  else event.context.encodedOnThread = true
+  // typed as the answer these bytes encode, so the route's callers ($fetch, useFetch) keep their types
+  return Buffer.from(body.buffer, body.byteOffset, body.byteLength) as unknown as T
 }
 
 /** pdfmake's Roboto files from the `fonts` server asset, read once per process (sent once to each thread). */
@@ -102,4 +123,11 @@ export async function renderBomPdf(snapshot: BomSnapshot, purchase: BomPurchase 
 /** The design report as PDF, rendered on a worker thread. */
 export async function renderDesignReport(report: Extract<Task, { kind: 'design-pdf' }>['report']): Promise<Buffer> {
   return pdfResult(await runInPool<Uint8Array>({ kind: 'design-pdf', report }, { fonts: pdfFontsOnce }))
+}
+
+declare module 'h3' {
+  interface H3EventContext {
+    /** the answer was encoded on a worker thread (as it should go out): the compression plugin leaves it alone */
+    encodedOnThread?: boolean
+  }
 }

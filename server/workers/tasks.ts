@@ -6,18 +6,23 @@ import { EngineInputError, evaluateDesign, evaluateStress, type DesignInput, typ
 import { openSharedIndex, type PartIndex, type SharedPartIndex } from '#shared/catalog/matching'
 import type { TradeStudyInput } from '#shared/schemas/trade-study'
 import { readCatalogFile, type ReadOptions } from '../catalog/read'
-import { buildCurrentIndex } from '../catalog/current-index'
+import { buildCurrentIndex, indexDigest } from '../catalog/current-index'
 import { previewDesign, type PreviewView } from '../services/designs'
 import { matchDesignPositions, type DesignMatchRequest } from '../services/parts'
+import { partsAnswer, type DesignHead } from '../services/parts-answer'
 import { tradeStudyRows } from '../services/trade-study'
 import { bomToPdf } from '../exports/bom-pdf'
 import { designReportPdf } from '../exports/design-pdf'
 import type { PdfFonts } from '../exports/pdf'
 import { compactProvenance } from './provenance'
+import { encodeAnswer, type EncodeRequest } from './encode'
 import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
 
 /** what the BOM PDF takes besides the snapshot and purchasing's entries */
 export interface BomPdfOptions { openOnly?: boolean, locale?: string }
+
+/** A task whose answer goes straight to the client: `encode` asks the thread for the JSON bytes (encode.ts). */
+export type EncodedTask = Task & { encode: EncodeRequest }
 
 export type Task
   = | { kind: 'stress', input: StressInput, options: EvaluateOptions, provenance?: 'compact' | 'full' }
@@ -25,6 +30,7 @@ export type Task
     | { kind: 'preview', input: DesignInput, view?: Partial<PreviewView> }
     | { kind: 'trade-study', generation: number, index: SharedPartIndex, duty: TradeStudyInput }
     | { kind: 'match-design', generation: number, index: SharedPartIndex, request: DesignMatchRequest }
+    | { kind: 'parts-answer', generation: number, index: SharedPartIndex, request: DesignMatchRequest, design: DesignHead, seesCatalogue: boolean }
     | { kind: 'build-index', rows: string }
     | { kind: 'read-catalog', file: Uint8Array, filename: string, limits: ReadOptions }
     | { kind: 'bom-pdf', fonts?: PdfFonts, args: { snapshot: BomSnapshot, purchase: BomPurchase, options?: BomPdfOptions } }
@@ -65,8 +71,12 @@ async function run(task: Task): Promise<TaskResult> {
       return { ok: true, value: tradeStudyRows(task.duty, catalogFor(task)) }
     case 'match-design':
       return { ok: true, value: matchDesignPositions(task.request, catalogFor(task)) }
-    case 'build-index':
-      return { ok: true, value: buildCurrentIndex(task.rows) }
+    case 'parts-answer':
+      return { ok: true, value: partsAnswer(task.design, matchDesignPositions(task.request, catalogFor(task)), task.seesCatalogue) }
+    case 'build-index': {
+      const index = buildCurrentIndex(task.rows)
+      return { ok: true, value: { index, digest: indexDigest(index) } }
+    }
     case 'read-catalog':
       return { ok: true, value: await readCatalogFile(Buffer.from(task.file.buffer, task.file.byteOffset, task.file.byteLength), task.filename, task.limits) }
     case 'bom-pdf':
@@ -81,9 +91,14 @@ async function run(task: Task): Promise<TaskResult> {
 }
 
 /** Runs one task; errors the route would answer with come back as data (a thread boundary drops their class). */
-export async function runTask(task: Task): Promise<TaskResult> {
+export async function runTask(task: Task | EncodedTask): Promise<TaskResult> {
   try {
-    return await run(task)
+    const t0 = performance.now()
+    const result = await run(task)
+    if (!('encode' in task && task.encode && result.ok)) return result
+    const t1 = performance.now()
+    const encoded = encodeAnswer(result.value, task.encode)
+    return { ok: true, value: { ...encoded, timing: { computeMs: t1 - t0, encodeMs: performance.now() - t1 } } }
   }
   catch (err) {
     if (err instanceof EngineInputError) return { ok: false, error: { kind: 'engine', field: err.field, message: err.message } }

@@ -176,6 +176,17 @@ describe('public API answers', () => {
     expect((await c.json('POST', '/api/v1/stress?provenance=verbose', npc)).status).toBe(400)
   })
 
+  it('answers computed on a worker thread say how long the thread worked (Server-Timing), so overhead can be told from work', async () => {
+    const c = await signInAs('viewer')
+    const r = await c.request('POST', '/api/v1/stress', npc)
+    expect(r.status).toBe(200)
+    const timing = /compute;dur=([\d.]+), encode;dur=([\d.]+)/.exec(r.headers.get('server-timing') ?? '')
+    expect(timing, r.headers.get('server-timing') ?? 'no Server-Timing').toBeTruthy()
+    expect(Number(timing![1])).toBeGreaterThan(0)
+    expect(Number(timing![2])).toBeGreaterThanOrEqual(0)
+    expect((await r.json()).devices.length).toBeGreaterThan(0)
+  })
+
   it('compresses a results answer and a matching answer (gzip), and leaves them alone when not asked', async () => {
     const engineer = await signInAs('design-engineer')
     const [design] = (await engineer.json('GET', '/api/designs')).body

@@ -153,6 +153,70 @@ describe('two instances on one database', () => {
     expect((await member.json('GET', '/api/auth/me')).status).toBe(401)
   })
 
+  it('an API token revoked on one instance is refused on the other at once, though the other had just accepted it', async () => {
+    const owner = await signIn(demoEmail['design-engineer'], undefined, A)
+    const created = await owner.json('POST', '/api/tokens', { name: 'fleet cache' })
+    expect(created.status).toBe(201)
+    const stress = { topology: 'two-level', levels: 2, dcVoltage: 650, lineVoltageRms: 400, phaseCurrentRms: 100, powerFactor: 0.9, fundamentalHz: 50, switchingHz: 6000, modulation: 'sine' }
+    const call = (base: string) => fetch(`${base}/api/v1/stress`, { method: 'POST', headers: { 'content-type': 'application/json', 'authorization': `Bearer ${created.body.token}` }, body: JSON.stringify(stress) })
+    // B finds the owner once and may keep them for a few seconds: the revocation must still reach it
+    expect((await call(B)).status).toBe(200)
+    expect((await call(B)).status).toBe(200)
+    expect((await owner.json('DELETE', `/api/tokens/${created.body.id}`)).status).toBe(200)
+    expect((await call(B)).status).toBe(401)
+    expect((await call(A)).status).toBe(401)
+  })
+
+  it('disabling an account on one instance refuses its API token on the other at once', async () => {
+    const admin = await signIn(demoEmail.admin, undefined, A)
+    const email = `${unique('fleet-token')}@example.com`
+    const invite = await admin.json('POST', '/api/admin/users', { email, name: 'Fleet Token', role: 'design-engineer' })
+    expect(invite.status).toBe(201)
+    const linkToken = new URL(linkIn((await waitForMail(email, 'invited')).text)).searchParams.get('token')
+    expect((await client('', A).json('POST', '/api/auth/set-password', { token: linkToken, password: 'fleet-password-2' })).status).toBe(200)
+    const member = await signIn(email, 'fleet-password-2', A)
+    const created = await member.json('POST', '/api/tokens', { name: 'fleet disable' })
+    expect(created.status).toBe(201)
+    const stress = { topology: 'two-level', levels: 2, dcVoltage: 650, lineVoltageRms: 400, phaseCurrentRms: 100, powerFactor: 0.9, fundamentalHz: 50, switchingHz: 6000, modulation: 'sine' }
+    const call = () => fetch(`${B}/api/v1/stress`, { method: 'POST', headers: { 'content-type': 'application/json', 'authorization': `Bearer ${created.body.token}` }, body: JSON.stringify(stress) })
+    expect((await call()).status).toBe(200)
+    expect((await admin.json('PATCH', `/api/admin/users/${invite.body.id}`, { disabled: true })).status).toBe(200)
+    expect((await call()).status).toBe(401)
+  })
+
+  it('both instances build the same matching index from one catalogue generation, once per generation however many requests ask', async () => {
+    const components = await signIn(demoEmail['component-engineer'], undefined, A)
+    const onA = await signIn(demoEmail['design-engineer'], undefined, A)
+    const onB = await signIn(demoEmail['design-engineer'], undefined, B)
+    const designs = (await onB.json('GET', '/api/designs')).body
+    const designId = (designs.rows ?? designs)[0].id as number
+    const held = async (base: string) => (await (await fetch(`${base}/api/health`)).json()).catalogue as { generation: number, digest: string, builds: number } | null
+    // eight concurrent matchings per instance: each builds (at most) the one generation they all read
+    const burst = (c: Client) => Promise.all(Array.from({ length: 8 }, () => c.json('GET', `/api/designs/${designId}/parts?limit=5`)))
+    const settle = async () => {
+      // other test files may commit to the catalogue meanwhile: retry until both hold the same generation
+      for (let attempt = 0; attempt < 5; attempt++) {
+        const answers = await Promise.all([burst(onA), burst(onB)])
+        for (const r of answers.flat()) expect(r.status).toBe(200)
+        const [a, b] = await Promise.all([held(A), held(B)])
+        expect(a?.builds).toBe(1)
+        expect(b?.builds).toBe(1)
+        if (a!.generation === b!.generation) return [a!, b!] as const
+      }
+      throw new Error('the two instances never held the same generation')
+    }
+    const [a1, b1] = await settle()
+    expect(a1.digest).toBe(b1.digest)
+    // a catalogue commit on A (a part edit): matching on B sees the new generation, built once there too
+    const [found] = (await components.json('GET', '/api/catalog/parts?pageSize=1')).body.rows
+    const edit = await components.json('PATCH', `/api/catalog/parts/${found.id}`, { stock: (found.stock ?? 0) + 3 })
+    expect(edit.status, JSON.stringify(edit.body)).toBe(200)
+    const [a2, b2] = await settle()
+    expect(b2.generation).toBeGreaterThan(b1.generation)
+    expect(a2.digest).toBe(b2.digest)
+    expect(a2.digest).not.toBe(a1.digest)
+  })
+
   it('sign-in throttling counts failures on both instances together', async () => {
     const email = `${unique('nobody')}@example.com`
     const statuses: number[] = []

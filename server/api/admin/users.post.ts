@@ -1,6 +1,7 @@
 import { eq, sql } from 'drizzle-orm'
 import { inviteSchema } from '#shared/schemas/auth'
 import { roleLabels } from '#shared/roles'
+import { authChanged } from '~~/server/utils/auth-cache'
 
 // Invites a colleague: creates the account without a password and mails a one-time link
 // (a newer invitation or reset link revokes the older ones).
@@ -17,6 +18,7 @@ export default defineEventHandler(async (event) => {
   // ones (audited), and the new link replaces the old link, so what the mail says is what signs in.
   if (existing && (existing.role !== body.role || existing.name !== body.name)) {
     user = (await db.update(tables.users).set({ role: body.role, name: body.name }).where(eq(tables.users.id, existing.id)).returning())[0]!
+    await authChanged(existing.id)
     if (existing.role !== body.role) await audit(event, 'role changed', { subject: user.email, details: { from: existing.role, to: body.role, reason: 'invited again' } })
   }
   const link = await issueOneTimeLink(user.id, 'invite')

@@ -1,5 +1,5 @@
 import type { DesignPreview } from '#shared/types/design'
-import { runInPool } from '~~/server/workers/pool'
+import { answerFromPool } from '~~/server/workers/pool'
 import { designInputSchema } from '#shared/schemas/stress'
 import { previewQuery } from '~~/server/services/designs'
 
@@ -8,5 +8,6 @@ export default defineEventHandler(async (event) => {
   await requireRole(event, 'designs:read')
   const view = queryValid(event, previewQuery)
   const input = await readValid(event, designInputSchema)
-  return runInPool<DesignPreview>({ kind: 'preview', input, view: { ...view, compact: true } })
+  // computed, serialised and (for gzip clients) compressed on a worker thread
+  return answerFromPool<DesignPreview>(event, { kind: 'preview', input, view: { ...view, compact: true } })
 })

@@ -1,5 +1,5 @@
 import { provenanceQuery } from '#shared/schemas/provenance'
-import { runInPool } from '~~/server/workers/pool'
+import { answerFromPool } from '~~/server/workers/pool'
 import { stressInputSchema } from '#shared/schemas/stress'
 
 // One operating point, nothing saved (PRODUCT.md "Public API v1").
@@ -7,5 +7,6 @@ export default defineEventHandler(async (event) => {
   await requireRole(event, 'stress:evaluate')
   const { provenance } = queryValid(event, provenanceQuery)
   const { includeWaveform, ...input } = await readValid(event, stressInputSchema)
-  return runInPool({ kind: 'stress', input, options: { includeWaveform: !!includeWaveform, includeSpectrum: !!includeWaveform }, provenance })
+  // computed, serialised and (for gzip clients) compressed on a worker thread
+  return answerFromPool(event, { kind: 'stress', input, options: { includeWaveform: !!includeWaveform, includeSpectrum: !!includeWaveform }, provenance })
 })

@@ -1,7 +1,7 @@
 // The catalogue index built on a worker thread from the rows' JSON text, and one build per generation however
 // many requests ask at once.
 import { describe, expect, it } from 'vitest'
-import { buildCurrentIndex, currentParts, perGeneration, type CurrentRow } from '../../../server/catalog/current-index'
+import { buildCurrentIndex, currentParts, indexDigest, perGeneration, type CurrentRow } from '../../../server/catalog/current-index'
 import { runTask } from '../../../server/workers/tasks'
 import { DEMO_PARTS } from '../../../catalog/demo-parts'
 import { openSharedIndex, sharePartIndex, type SharedPartIndex } from '../../../shared/catalog/matching'
@@ -14,7 +14,8 @@ describe('the part index from the rows\' text', () => {
     const expected = sharePartIndex(currentParts(rows), p => (p as CatalogPart & { partVersionId: number }).partVersionId)
     const result = await runTask({ kind: 'build-index', rows: JSON.stringify(rows) })
     expect(result.ok).toBe(true)
-    const built = (result as { value: SharedPartIndex }).value
+    const { index: built, digest } = (result as { value: { index: SharedPartIndex, digest: string } }).value
+    expect(digest).toBe(indexDigest(expected))
     expect(built.size).toBe(rows.length)
     expect(Array.from(built.ids)).toEqual(Array.from(expected.ids))
     expect(Buffer.from(built.text).equals(Buffer.from(expected.text))).toBe(true)
@@ -26,6 +27,14 @@ describe('the part index from the rows\' text', () => {
     const part = openSharedIndex(built).part(3) as CatalogPart & { partVersionId: number, partId: number, approved: boolean }
     expect(part).toEqual({ ...rows[3]![3], partVersionId: 1003, partId: 503, approved: false })
     expect(Object.keys(part).slice(-3)).toEqual(['partVersionId', 'partId', 'approved'])
+  })
+
+  it('has one digest for the same rows and another when rows come in another order (hence the ORDER BY in the query)', () => {
+    const text = JSON.stringify(rows)
+    expect(indexDigest(buildCurrentIndex(text))).toBe(indexDigest(buildCurrentIndex(text)))
+    expect(indexDigest(buildCurrentIndex(JSON.stringify([...rows].reverse())))).not.toBe(indexDigest(buildCurrentIndex(text)))
+    const changed = rows.map((r, i) => (i === 0 ? [r[0], r[1], r[2], { ...r[3], stock: (r[3].stock ?? 0) + 1 }] : r))
+    expect(indexDigest(buildCurrentIndex(JSON.stringify(changed)))).not.toBe(indexDigest(buildCurrentIndex(text)))
   })
 
   it('is empty for no rows', () => {

@@ -1,5 +1,6 @@
 import { eq } from 'drizzle-orm'
 import { idParam, userPatchSchema } from '#shared/schemas/auth'
+import { authChanged } from '~~/server/utils/auth-cache'
 
 // Changes a role or disables / re-enables an account; disabling ends its sessions at once.
 export default defineEventHandler(async (event) => {
@@ -18,7 +19,10 @@ export default defineEventHandler(async (event) => {
     changes.disabled = body.disabled
     changes.sessionVersion = user.sessionVersion + 1
   }
-  if (Object.keys(changes).length) await db.update(tables.users).set(changes).where(eq(tables.users.id, id))
+  if (Object.keys(changes).length) {
+    await db.update(tables.users).set(changes).where(eq(tables.users.id, id))
+    await authChanged(id)
+  }
   if (changes.role) await audit(event, 'role changed', { subject: user.email, details: { from: user.role, to: changes.role } })
   if (changes.disabled !== undefined) await audit(event, changes.disabled ? 'user disabled' : 'user enabled', { subject: user.email })
   return { id, role: changes.role ?? user.role, disabled: changes.disabled ?? user.disabled }
