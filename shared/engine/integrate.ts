@@ -1,5 +1,6 @@
 // The one generic integrator: switching-period-averaged device currents over one fundamental period.
 import type { CompiledLeg } from './model'
+import type { GridReference } from './modulation'
 
 /** Even (the half waves) and divisible by 3 (the three phases share one grid, so three-phase sums repeat every third). */
 export const DEFAULT_INTEGRATION_POINTS = 2046
@@ -55,33 +56,56 @@ export function integrateLeg(
   // Kept for the peak search: the reference at each grid point.
   const gridM = new Float64Array(points)
   const averaged = leg.def.carrier === 'input-averaged'
+  // A position's integrand is Σ over (half wave h, level l, sign s) of its table weight times share_l·|i| (and
+  // share_l·i²) where the half wave and the sign are h and s: the grid sums those per (h, l, s), and the table
+  // weights are applied once afterwards, so the loop over the grid does not visit the positions.
+  const momentAbs = new Float64Array(2 * L * 2)
+  const momentSq = new Float64Array(2 * L * 2)
+  const at = (h: number, l: number, s: number) => (h * L + l) * 2 + s
+  const onGrid = 'values' in reference && (reference as GridReference).points === points ? (reference as GridReference).values : undefined
 
   for (let k = 0; k < points; k++) {
     const theta = (k + 0.5) * dTheta
-    const m = reference(theta)
+    const m = onGrid ? onGrid[3 * k + 1]! : reference(theta)
     gridM[k] = m
     fundamental += m * Math.sin(theta)
     const i = currentPeak * Math.sin(theta - phi)
     const sign = i >= 0 ? 0 : 1
     const ai = Math.abs(i)
     const i2 = i * i
-    // PD shares sit on two neighbouring levels (the same as levelShares, inline): visit only those (all of them,
-    // a share 1/L each, for an input-averaged leg).
-    const table = leg.weights[averaged || m >= 0 ? 0 : 1]!
+    if (averaged) {
+      // An input-averaged leg: every level a share 1/L, table 0.
+      for (let l = 0; l < L; l++) {
+        momentAbs[at(0, l, sign)]! += ai / L
+        momentSq[at(0, l, sign)]! += i2 / L
+      }
+      continue
+    }
+    // PD shares sit on two neighbouring levels (the same as levelShares, inline).
+    const half = m >= 0 ? 0 : 1
     const r = ((1 + m) * (L - 1)) / 2
     const floor = Math.floor(r)
-    const first = averaged ? 0 : floor < 0 ? 0 : floor > L - 2 ? L - 2 : floor
-    const last = averaged ? L - 1 : first + 1
+    const first = floor < 0 ? 0 : floor > L - 2 ? L - 2 : floor
     const f = r - first
-    for (let l = first; l <= last; l++) {
-      const share = averaged ? 1 / L : l === first ? 1 - f : f
-      if (share <= 0) continue
-      const row = table[l]![sign]!
-      for (let q = 0; q < row.index.length; q++) {
-        const p = row.index[q]!
-        const d = share * row.weight[q]!
-        sumAbs[p]! += d * ai
-        sumSq[p]! += d * i2
+    const a = at(half, first, sign)
+    const b = a + 2
+    momentAbs[a]! += (1 - f) * ai
+    momentSq[a]! += (1 - f) * i2
+    momentAbs[b]! += f * ai
+    momentSq[b]! += f * i2
+  }
+  for (let h = 0; h < 2; h++) {
+    for (let l = 0; l < L; l++) {
+      for (let sign = 0; sign < 2; sign++) {
+        const ma = momentAbs[at(h, l, sign)]!
+        const ms = momentSq[at(h, l, sign)]!
+        if (ma === 0 && ms === 0) continue
+        const row = leg.weights[h]![l]![sign]!
+        for (let q = 0; q < row.index.length; q++) {
+          const p = row.index[q]!
+          sumAbs[p]! += row.weight[q]! * ma
+          sumSq[p]! += row.weight[q]! * ms
+        }
       }
     }
   }

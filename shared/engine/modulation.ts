@@ -46,25 +46,73 @@ function clamp(m: number): number {
   return m > 1 ? 1 : m < -1 ? -1 : m
 }
 
+/** The reference per unit amplitude before clamping, the shape `makeReference` scales (six-step: the square wave itself). */
+function unitShape(modulation: Modulation): (theta: number) => number {
+  switch (modulation) {
+    case 'six-step':
+      return theta => (Math.sin(theta) >= 0 ? 1 : -1)
+    case 'sine':
+      return theta => Math.sin(theta)
+    case 'third-harmonic':
+      return theta => Math.sin(theta) + Math.sin(3 * theta) / 6
+    case 'space-vector':
+      return (theta) => {
+        const sa = Math.sin(theta)
+        const ca = HALF_SQRT3 * Math.cos(theta)
+        const sb = -0.5 * sa - ca
+        const sc = -0.5 * sa + ca
+        const hi = sa > sb ? (sa > sc ? sa : sc) : (sb > sc ? sb : sc)
+        const lo = sa < sb ? (sa < sc ? sa : sc) : (sb < sc ? sb : sc)
+        return sa - (hi + lo) / 2
+      }
+  }
+}
+
+/** Unit shapes on the grid (j + ½)·2π/G, kept per modulation and G: they do not depend on the amplitude. */
+const shapesOnGrid = new Map<string, Float64Array>()
+const KEPT_SHAPES = 32
+
+function shapeOnGrid(modulation: Modulation, G: number): Float64Array {
+  const key = `${modulation}:${G}`
+  let shape = shapesOnGrid.get(key)
+  if (!shape) {
+    const f = unitShape(modulation)
+    shape = new Float64Array(G)
+    for (let j = 0; j < G; j++) shape[j] = f(((j + 0.5) * TWO_PI) / G)
+    if (shapesOnGrid.size >= KEPT_SHAPES) shapesOnGrid.delete(shapesOnGrid.keys().next().value!)
+    shapesOnGrid.set(key, shape)
+  }
+  return shape
+}
+
+/** A reference that also carries its values on the grid (j + ½)·2π/(3·points) (see `gridReference`). */
+export interface GridReference {
+  (theta: number): number
+  /** m at (j + ½)·2π/(3·points), j = 0…3·points − 1: phase a at integration point k is values[3k + 1] */
+  values: Float64Array
+  points: number
+}
+
 /**
- * The same reference, remembered on the angles the period integrations use: (k + ½)·2π/points and those
- * shifted by −2π/3 and −4π/3 (the other two phases) are all the grid (j + ½)·2π/(3·points), so each value there
- * is computed once per evaluation instead of once per integration. Any other angle is computed afresh.
+ * `makeReference(modulation, a)` with its values on the integration grid (k + ½)·2π/points and the two
+ * other phases' shifts (all on the grid (j + ½)·2π/(3·points)) taken from the kept unit shape: the same
+ * numbers as computing them (a × shape, then the clamp), without a sine per angle. Any other angle is computed afresh.
  */
-export function rememberOnGrid(reference: (theta: number) => number, points: number): (theta: number) => number {
+export function gridReference(modulation: Modulation, a: number, points: number): GridReference {
   const G = 3 * points
-  const values = new Float64Array(G).fill(Number.NaN)
+  const shape = shapeOnGrid(modulation, G)
+  const values = new Float64Array(G)
+  if (modulation === 'six-step') values.set(shape)
+  else for (let j = 0; j < G; j++) values[j] = clamp(a * shape[j]!)
+  const exact = makeReference(modulation, a)
   const perRadian = G / TWO_PI
-  return (theta) => {
+  const reference = ((theta: number) => {
     const x = theta * perRadian - 0.5
     const j = Math.round(x)
-    if (Math.abs(x - j) > 1e-7) return reference(theta)
-    const index = ((j % G) + G) % G
-    let v = values[index]!
-    if (Number.isNaN(v)) {
-      v = reference(((index + 0.5) * TWO_PI) / G)
-      values[index] = v
-    }
-    return v
-  }
+    if (Math.abs(x - j) > 1e-7) return exact(theta)
+    return values[((j % G) + G) % G]!
+  }) as GridReference
+  reference.values = values
+  reference.points = points
+  return reference
 }

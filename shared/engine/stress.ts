@@ -5,7 +5,7 @@ import { clampStack, defaultDerating } from './derating'
 import { EngineInputError } from './errors'
 import { DEFAULT_INTEGRATION_POINTS, integrateLeg } from './integrate'
 import { evaluateMatrixInput, matrixSwitching, synthesiseMatrix } from './matrix-input'
-import { linearLimit, makeReference, rememberOnGrid, SIX_STEP_INDEX } from './modulation'
+import { gridReference, linearLimit, SIX_STEP_INDEX } from './modulation'
 import { harmonicAmplitudes, synthesise, totalHarmonicDistortion } from './synth'
 import type { CompiledLeg } from './model'
 import type { DeratingPolicy, DeviceStress, SpectrumLine, StressInput, StressResult } from './types'
@@ -94,7 +94,7 @@ export function evaluateStress(input: StressInput, options: EvaluateOptions = {}
   const requestedPhasePeak = (Math.SQRT2 * p.lineVoltageRms) / Math.sqrt(3)
   const amplitude = sixStep ? SIX_STEP_INDEX : requestedPhasePeak / scales.halfLink
   const modulationIndex = amplitude * scales.indexPerAmplitude
-  const reference = rememberOnGrid(makeReference(p.modulation, amplitude), points)
+  const reference = gridReference(p.modulation, amplitude, points)
 
   const phi = p.currentPhaseAngle
   const currentPeak = Math.SQRT2 * p.phaseCurrentRms

@@ -1,7 +1,7 @@
 // Linear ranges, over-modulation warnings, and the synthesised waveform / spectrum against the averaged model.
 import { describe, expect, it } from 'vitest'
 import { evaluateStress, topologies, type Modulation } from '../../../shared/engine'
-import { makeReference, rememberOnGrid } from '../../../shared/engine/modulation'
+import { gridReference, makeReference } from '../../../shared/engine/modulation'
 import { expectClose, inputAt } from './helpers'
 
 const HL = 'Holmes & Lipo, IEEE Press/Wiley 2003'
@@ -72,24 +72,21 @@ describe('switched waveform and spectrum', () => {
   })
 })
 
-describe('rememberOnGrid', () => {
-  it('answers the exact reference on the integration grid and its −2π/3 shifts, and off the grid (identity, not an approximation)', () => {
-    const exact = makeReference('space-vector', 1.1)
-    let calls = 0
-    const counted = (t: number) => { calls++; return exact(t) }
-    const points = 2046
-    const remembered = rememberOnGrid(counted, points)
-    const d = (2 * Math.PI) / points
-    for (let pass = 0; pass < 2; pass++) {
+describe('gridReference', () => {
+  it.each(['sine', 'third-harmonic', 'space-vector', 'six-step'] as const)('%s: its grid values are makeReference at the grid angles (bit for bit); the integration angles and their −2π/3 shifts read them (to 1e-12, the angles\' rounding), any other angle is exact', (modulation) => {
+    for (const a of [0.4, 1.1, 1.3]) {
+      const exact = makeReference(modulation, a)
+      const points = 2046
+      const remembered = gridReference(modulation, a, points)
+      const d = (2 * Math.PI) / points
       for (let k = 0; k < points; k++) {
         for (const shift of [0, (2 * Math.PI) / 3, (4 * Math.PI) / 3]) {
           const t = (k + 0.5) * d - shift
           expect(Math.abs(remembered(t) - exact(t))).toBeLessThan(1e-12)
         }
       }
+      for (let j = 0; j < 3 * points; j++) expect(remembered.values[j]).toBe(exact(((j + 0.5) * 2 * Math.PI) / (3 * points)))
+      for (const t of [0.123, 1, 2.5, -0.7]) expect(remembered(t)).toBe(exact(t))
     }
-    // Each grid angle computed once over both passes and all three phases (the shifts land on the same grid).
-    expect(calls).toBe(points)
-    for (const t of [0.123, 1, 2.5, -0.7]) expect(remembered(t)).toBe(exact(t))
   })
 })
