@@ -9,6 +9,7 @@
 // is taken as lossless (forward recovery neglected, common practice). The energy is scaled by the
 // voltage that device commutates: its blocking voltage in the state where it does not conduct.
 import type { CompiledLeg, StateDef } from './model'
+import type { GridReference } from './modulation'
 
 export type CommutationRole = 'turn-on' | 'turn-off' | 'recovery'
 
@@ -246,10 +247,14 @@ export function integrateSwitching(
       }
     }
   }
+  // `sampled`: the caller's reference at these same angles (θ_k = (k + ½)·2π/points), computed once for both loops;
+  // a grid reference of the same grid carries them already.
+  const onGrid = 'values' in reference && (reference as GridReference).points === points ? (reference as GridReference).values : undefined
+  // Without the per-angle record, |i| is summed per (half wave, lower level, sign) and each sparse row applied once.
+  const moments = binned || options.sixStep ? undefined : new Float64Array(2 * L * 2)
   for (let k = 0; k < points; k++) {
     const theta = (k + 0.5) * dTheta
-    // `sampled`: the caller's reference at these same angles (θ_k = (k + ½)·2π/points), computed once for both loops
-    const m = options.sampled ? options.sampled[k]! : reference(theta)
+    const m = options.sampled ? options.sampled[k]! : onGrid ? onGrid[3 * k + 1]! : reference(theta)
     const half: 0 | 1 = m >= 0 ? 0 : 1
     const { lo, f } = levelAt(m)
     if (options.sixStep) {
@@ -261,11 +266,27 @@ export function integrateSwitching(
     if (f <= EPS || f >= 1 - EPS) continue
     const i = currentPeak * Math.sin(theta - phi)
     const ai = Math.abs(i)
+    if (moments) {
+      moments[(half * L + lo) * 2 + (i >= 0 ? 0 : 1)]! += ai
+      continue
+    }
     const row = sparse[half]![lo]![i >= 0 ? 0 : 1]!
     for (let q = 0; q < row.index.length; q++) sum[row.index[q]!]! += row.weight[q]! * ai
     if (binned) {
       const base = binOf(theta) * P * R
       for (let q = 0; q < row.index.length; q++) binned.sums[base + row.index[q]!]! += row.weight[q]! * ai
+    }
+  }
+  if (moments) {
+    for (let h = 0; h < 2; h++) {
+      for (let l = 0; l < L - 1; l++) {
+        for (let sign = 0; sign < 2; sign++) {
+          const ai = moments[(h * L + l) * 2 + sign]!
+          if (ai === 0) continue
+          const row = sparse[h]![l]![sign]!
+          for (let q = 0; q < row.index.length; q++) sum[row.index[q]!]! += row.weight[q]! * ai
+        }
+      }
     }
   }
   if (options.sixStep && previousLevel >= 0) {

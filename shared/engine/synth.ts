@@ -142,45 +142,61 @@ interface PhaseRef {
  */
 function walkSegments(bounds: Float64Array, carriers: Float64Array, carrierCount: number, comparisons: (Comparator & { carrier: number })[], phases: PhaseRef[], offset: number, samples: number): StepAccumulator {
   const acc = new StepAccumulator(samples)
-  const capacity = comparisons.length * phases.length
-  const evT = new Float64Array(capacity)
-  const evW = new Float64Array(capacity)
+  // Every (comparison, phase) pair flat: α, β, weight with the phase's sign, carrier column, phase row.
+  const Q = comparisons.length * phases.length
+  const alpha = new Float64Array(Q)
+  const beta = new Float64Array(Q)
+  const weight = new Float64Array(Q)
+  const column = new Int32Array(Q)
+  const phaseOf = new Int32Array(Q)
+  for (let q = 0, n = 0; q < comparisons.length; q++) {
+    for (let ph = 0; ph < phases.length; ph++, n++) {
+      alpha[n] = comparisons[q]!.alpha
+      beta[n] = comparisons[q]!.beta
+      weight[n] = phases[ph]!.sign * comparisons[q]!.weight
+      column[n] = comparisons[q]!.carrier
+      phaseOf[n] = ph
+    }
+  }
+  const B = bounds.length
+  const m = new Float64Array(phases.length * B)
+  for (let ph = 0; ph < phases.length; ph++) m.set(phases[ph]!.m, ph * B)
+  const evT = new Float64Array(Q)
+  const evW = new Float64Array(Q)
   const C = carrierCount
-  for (let b = 0; b + 1 < bounds.length; b++) {
+  for (let b = 0; b + 1 < B; b++) {
     const t0 = bounds[b]!
     const t1 = bounds[b + 1]!
     const dt = t1 - t0
     let level = offset
     let n = 0
-    for (let q = 0; q < comparisons.length; q++) {
-      const c = comparisons[q]!
-      const c0 = carriers[b * C + c.carrier]!
-      const c1 = carriers[(b + 1) * C + c.carrier]!
-      for (let ph = 0; ph < phases.length; ph++) {
-        const { m, sign } = phases[ph]!
-        const w = sign * c.weight
-        const u0 = c.alpha * m[b]! + c.beta - c0
-        const u1 = c.alpha * m[b + 1]! + c.beta - c1
-        if (u0 > 0) {
-          level += w
-          if (u1 > 0) continue
-        }
-        else if (u1 <= 0) {
-          continue
-        }
-        // One crossing inside the segment: on at a rising u, off at a falling one.
-        const t = t0 + (dt * u0) / (u0 - u1)
-        const dw = u0 > 0 ? -w : w
-        // Insertion keeps the handful of crossings of a segment sorted.
-        let k = n++
-        while (k > 0 && evT[k - 1]! > t) {
-          evT[k] = evT[k - 1]!
-          evW[k] = evW[k - 1]!
-          k--
-        }
-        evT[k] = t
-        evW[k] = dw
+    const row0 = b * C
+    const row1 = row0 + C
+    for (let q = 0; q < Q; q++) {
+      const w = weight[q]!
+      const c = column[q]!
+      const mi = phaseOf[q]! * B + b
+      const u0 = alpha[q]! * m[mi]! + beta[q]! - carriers[row0 + c]!
+      const u1 = alpha[q]! * m[mi + 1]! + beta[q]! - carriers[row1 + c]!
+      if (u0 > 0) {
+        level += w
+        if (u1 > 0) continue
       }
+      else if (u1 <= 0) {
+        continue
+      }
+      // One crossing inside the segment: on at a rising u, off at a falling one.
+      const t = t0 + (dt * u0) / (u0 - u1)
+      const dw = u0 > 0 ? -w : w
+      // Insertion keeps the handful of crossings of a segment sorted.
+      let k = n++
+      while (k > 0 && evT[k - 1]! > t) {
+        evT[k] = evT[k - 1]!
+        evW[k] = evW[k - 1]!
+        k--
+      }
+      evT[k] = t
+      evW[k] = dw
     }
     let prev = t0
     for (let k = 0; k < n; k++) {
