@@ -1,5 +1,6 @@
 // Capacitor stresses: DC-link (split or single), flying and H-bridge cell capacitors, from switched currents.
 import type { CompiledLeg } from './model'
+import { gridTrig, type GridReference } from './modulation'
 import type { CapacitorStress } from './types'
 
 const TWO_PI = 2 * Math.PI
@@ -66,15 +67,26 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
   const frac = new Float64Array(3)
   const cur = new Float64Array(3)
   const bounds = new Float64Array(5)
-  const nodeCurrent = new Float64Array(L)
-  // values[q·J + (j−1)]: current of capacitor j while the carrier is in interval q
+  // current of capacitor j from the phases sitting above its band (constant over the switching period)
+  const above = new Float64Array(J)
+  // values[q·J + j]: current of capacitor j+1 while the carrier is in interval q
   const values = new Float64Array(4 * J)
+  const v = new Float64Array(4)
   const dTheta = TWO_PI / points
-  // Band positions r of the three phases, tabulated once (their slopes are needed below).
+  const G = 3 * points
+  // Band positions r of the three phases, tabulated once (their slopes are needed below); the grid reference's
+  // values when it has them (phase x at point k is grid angle 3k + 1 − x·points).
+  const grid = 'values' in reference && (reference as GridReference).points === points ? (reference as GridReference).values : undefined
   const rTab = new Float64Array(3 * points)
   for (let x = 0; x < 3; x++) {
-    for (let k = 0; k < points; k++) rTab[x * points + k] = ((1 + reference((k + 0.5) * dTheta - x * SHIFT)) * (L - 1)) / 2
+    for (let k = 0; k < points; k++) {
+      const m = grid ? grid[(3 * k + 1 - x * points + G) % G]! : reference((k + 0.5) * dTheta - x * SHIFT)
+      rTab[x * points + k] = ((1 + m) * (L - 1)) / 2
+    }
   }
+  const trig = gridTrig(G)
+  const cosPhi = Math.cos(phi)
+  const sinPhi = Math.sin(phi)
   // Natural sampling: a moving duty shifts its pulse off the carrier valley by g·ġ·T²/4, so the pulse
   // sees the current i + i̇·g·ġ·T²/4; with θ = ωt, per unit of dg/dθ·di/dθ this is (ω/f_sw)²/4.
   const shiftFactor = ((TWO_PI * fundamentalHz) / switchingHz) ** 2 / 4
@@ -86,11 +98,9 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
   // (The whole period when the caller wants every angle's detail.)
   const third = !detail && points % 3 === 0 ? points / 3 : points
   for (let k = 0; k < third; k++) {
-    const theta = (k + 0.5) * dTheta
     const kNext = k + 1 === points ? 0 : k + 1
     const kPrev = k === 0 ? points - 1 : k - 1
     for (let x = 0; x < 3; x++) {
-      const tx = theta - x * SHIFT
       const r = rTab[x * points + k]!
       slope[x] = (rTab[x * points + kNext]! - rTab[x * points + kPrev]!) / (2 * dTheta)
       let lo = Math.floor(r)
@@ -98,68 +108,73 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
       if (lo < 0) lo = 0
       base[x] = lo
       frac[x] = r - lo
-      cur[x] = currentPeak * Math.sin(tx - phi)
-      curSlope[x] = currentPeak * Math.cos(tx - phi)
+      // i = Î·sin(θ − 2πx/3 − φ) from the grid's sine and cosine (angle 3k + 1 − x·points of the fine grid)
+      const g = (3 * k + 1 - x * points + G) % G
+      cur[x] = currentPeak * (trig.sin[g]! * cosPhi - trig.cos[g]! * sinPhi)
+      curSlope[x] = currentPeak * (trig.cos[g]! * cosPhi + trig.sin[g]! * sinPhi)
     }
     // Interval bounds: 0, the three duty fractions in ascending order, 1.
     const f0 = frac[0]!
     const f1 = frac[1]!
     const f2 = frac[2]!
-    const lo1 = Math.min(f0, f1, f2)
-    const hi1 = Math.max(f0, f1, f2)
     bounds[0] = 0
-    bounds[1] = lo1
+    bounds[1] = Math.min(f0, f1, f2)
     // The median exactly (each phase is compared with its own fraction, so no rounding allowed).
     bounds[2] = Math.max(Math.min(f0, f1), Math.min(Math.max(f0, f1), f2))
-    bounds[3] = hi1
+    bounds[3] = Math.max(f0, f1, f2)
     bounds[4] = 1
     if (detail) detail.bounds.set(bounds, 5 * k)
-    for (let q = 0; q < 4; q++) {
-      // Carrier in (bounds[q], bounds[q+1]): a phase sits one level up while its fraction exceeds the carrier.
-      const top = bounds[q + 1]!
-      for (let x = 0; x < 3; x++) nodeCurrent[base[x]! + (frac[x]! >= top ? 1 : 0)]! += cur[x]!
-      let drawn = 0
-      for (let j = J; j >= 1; j--) {
-        drawn += nodeCurrent[j]!
-        values[q * J + j - 1] = -drawn
-      }
-      // Leave the scratch array all zero for the next interval.
-      for (let x = 0; x < 3; x++) nodeCurrent[base[x]!] = nodeCurrent[base[x]! + 1] = 0
-    }
-    if (detail) detail.values.set(values, 4 * J * k)
+    // Capacitor j carries −Σ of the currents drawn from nodes above it: the phases whose band lies above j all
+    // period, and a phase in band j while it sits one level up (its fraction above the carrier).
+    above.fill(0)
+    for (let x = 0; x < 3; x++) for (let j = 0; j < base[x]!; j++) above[j]! -= cur[x]!
     for (let j = 0; j < J; j++) {
-      let avg = 0
-      let ms = 0
-      for (let q = 0; q < 4; q++) {
-        const len = bounds[q + 1]! - bounds[q]!
-        const ic = values[q * J + j]!
-        avg += len * ic
-        ms += len * ic * ic
-      }
-      // That shift for the phases switching in band j: tiny per period, but it adds up to a
-      // low-frequency charge of order f/f_sw of the switching swing (e.g. with space-vector references).
-      let shifted = 0
-      for (let x = 0; x < 3; x++) {
-        const g = frac[x]!
-        if (base[x] === j && g > 0 && g < 1) shifted += g * g * slope[x]! * curSlope[x]!
-      }
-      const avgShifted = avg - shiftFactor * shifted
-      // Charge within the switching period about its local average: the rising carrier sweeps the
-      // intervals upward over T_sw/2 (path P(c), P(0) = P(1) = 0), the falling carrier sweeps them back
-      // (path −P(c)); so the charge spans ±max|P| around a zero period-mean, whatever the sign of P.
-      let acc = 0
+      const inBand = base[0] === j || base[1] === j || base[2] === j
+      let avg: number
+      let ms: number
       let peak = 0
-      for (let q = 0; q < 4; q++) {
-        acc += (bounds[q + 1]! - bounds[q]!) * (values[q * J + j]! - avg)
-        const a = acc < 0 ? -acc : acc
-        if (a > peak) peak = a
+      let shifted = 0
+      if (!inBand && !detail) {
+        // No phase switches across this capacitor's band: a constant current over the switching period.
+        avg = above[j]!
+        ms = avg * avg
+      }
+      else {
+        avg = 0
+        ms = 0
+        for (let q = 0; q < 4; q++) {
+          const top = bounds[q + 1]!
+          let ic = above[j]!
+          for (let x = 0; x < 3; x++) if (base[x] === j && frac[x]! >= top) ic -= cur[x]!
+          v[q] = ic
+          if (detail) values[q * J + j] = ic
+          const len = top - bounds[q]!
+          avg += len * ic
+          ms += len * ic * ic
+        }
+        // That shift for the phases switching in band j: tiny per period, but it adds up to a
+        // low-frequency charge of order f/f_sw of the switching swing (e.g. with space-vector references).
+        for (let x = 0; x < 3; x++) {
+          const g = frac[x]!
+          if (base[x] === j && g > 0 && g < 1) shifted += g * g * slope[x]! * curSlope[x]!
+        }
+        // Charge within the switching period about its local average: the rising carrier sweeps the
+        // intervals upward over T_sw/2 (path P(c), P(0) = P(1) = 0), the falling carrier sweeps them back
+        // (path −P(c)); so the charge spans ±max|P| around a zero period-mean, whatever the sign of P.
+        let acc = 0
+        for (let q = 0; q < 4; q++) {
+          acc += (bounds[q + 1]! - bounds[q]!) * (v[q]! - avg)
+          const a = acc < 0 ? -acc : acc
+          if (a > peak) peak = a
+        }
       }
       halfSwing[j * points + k] = peak / (2 * switchingHz)
       sum[j]! += avg
       sumSq[j]! += ms
       series[j * points + k] = avg
-      charged[j * points + k] = avgShifted
+      charged[j * points + k] = avg - shiftFactor * shifted
     }
+    if (detail) detail.values.set(values, 4 * J * k)
   }
   if (detail) detail.charged.set(charged)
   // The charge and the ripple repeat with the currents, so their figures over one third are those of the period.

@@ -116,3 +116,20 @@ export function gridReference(modulation: Modulation, a: number, points: number)
   reference.points = points
   return reference
 }
+
+/** sin and cos of the grid angles (j + ½)·2π/G, kept per G: a current Î·sin(θ − φ) on the grid is two products, not a sine. */
+const trigOnGrid = new Map<number, { sin: Float64Array, cos: Float64Array }>()
+
+export function gridTrig(G: number): { sin: Float64Array, cos: Float64Array } {
+  let t = trigOnGrid.get(G)
+  if (!t) {
+    t = { sin: new Float64Array(G), cos: new Float64Array(G) }
+    for (let j = 0; j < G; j++) {
+      t.sin[j] = Math.sin(((j + 0.5) * TWO_PI) / G)
+      t.cos[j] = Math.cos(((j + 0.5) * TWO_PI) / G)
+    }
+    if (trigOnGrid.size >= KEPT_SHAPES) trigOnGrid.delete(trigOnGrid.keys().next().value!)
+    trigOnGrid.set(G, t)
+  }
+  return t
+}
