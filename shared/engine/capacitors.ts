@@ -281,10 +281,14 @@ function flyingCurrents(N: number, reference: (theta: number) => number, current
   const edges = new Float64Array(6)
   const period = 1 / switchingHz
   let ms = 0
+  const { m: onGrid, sin, cos, stride, offset } = gridOf(reference, points)
+  const cosPhi = Math.cos(phi)
+  const sinPhi = Math.sin(phi)
   for (let k = 0; k < points; k++) {
     const theta = ((k + 0.5) * TWO_PI) / points
-    const d = (1 + reference(theta)) / 2
-    const i = currentPeak * Math.sin(theta - phi)
+    const g = stride * k + offset
+    const d = (1 + (onGrid ? onGrid[g]! : reference(theta))) / 2
+    const i = currentPeak * (sin[g]! * cosPhi - cos[g]! * sinPhi)
     const t = Math.min(d, delta, 1 - d)
     ms += 2 * t * i * i
     pulsePairSwing(d, delta, edges, sides)
@@ -307,10 +311,13 @@ function cellCurrents(reference: (theta: number) => number, currentPeak: number,
   const halfSwing = new Float64Array(points)
   let sum = 0
   let sumSq = 0
+  const { m: onGrid, sin, cos, stride, offset } = gridOf(reference, points)
+  const cosPhi = Math.cos(phi)
+  const sinPhi = Math.sin(phi)
   for (let k = 0; k < points; k++) {
-    const theta = ((k + 0.5) * TWO_PI) / points
-    const m = reference(theta)
-    const i = currentPeak * Math.sin(theta - phi)
+    const g = stride * k + offset
+    const m = onGrid ? onGrid[g]! : reference(((k + 0.5) * TWO_PI) / points)
+    const i = currentPeak * (sin[g]! * cosPhi - cos[g]! * sinPhi)
     const am = Math.abs(m)
     series[k] = m * i
     sum += m * i
@@ -318,6 +325,19 @@ function cellCurrents(reference: (theta: number) => number, currentPeak: number,
     halfSwing[k] = (Math.abs(i) * am * (1 - am)) / (4 * switchingHz)
   }
   return figures(sum / points, sumSq / points, series, halfSwing, fundamentalHz)
+}
+
+/**
+ * Phase a on the integration grid: the grid reference's values when it has them (point k at index stride·k + offset
+ * of its fine grid) and the kept sines and cosines of the same angles, so i = Î·sin(θ − φ) needs no sine per point.
+ */
+function gridOf(reference: (theta: number) => number, points: number): { m?: Float64Array, sin: Float64Array, cos: Float64Array, stride: number, offset: number } {
+  if ('values' in reference && (reference as GridReference).points === points) {
+    const trig = gridTrig(3 * points)
+    return { m: (reference as GridReference).values, sin: trig.sin, cos: trig.cos, stride: 3, offset: 1 }
+  }
+  const trig = gridTrig(points)
+  return { sin: trig.sin, cos: trig.cos, stride: 1, offset: 0 }
 }
 
 export interface CapacitorOutcome {

@@ -9,7 +9,7 @@
 // is taken as lossless (forward recovery neglected, common practice). The energy is scaled by the
 // voltage that device commutates: its blocking voltage in the state where it does not conduct.
 import type { CompiledLeg, StateDef } from './model'
-import type { GridReference } from './modulation'
+import { gridTrig, type GridReference } from './modulation'
 
 export type CommutationRole = 'turn-on' | 'turn-off' | 'recovery'
 
@@ -252,6 +252,9 @@ export function integrateSwitching(
   const onGrid = 'values' in reference && (reference as GridReference).points === points ? (reference as GridReference).values : undefined
   // Without the per-angle record, |i| is summed per (half wave, lower level, sign) and each sparse row applied once.
   const moments = binned || options.sixStep ? undefined : new Float64Array(2 * L * 2)
+  const trig = gridTrig(points)
+  const cosPhi = Math.cos(phi)
+  const sinPhi = Math.sin(phi)
   for (let k = 0; k < points; k++) {
     const theta = (k + 0.5) * dTheta
     const m = options.sampled ? options.sampled[k]! : onGrid ? onGrid[3 * k + 1]! : reference(theta)
@@ -264,7 +267,7 @@ export function integrateSwitching(
       continue
     }
     if (f <= EPS || f >= 1 - EPS) continue
-    const i = currentPeak * Math.sin(theta - phi)
+    const i = currentPeak * (trig.sin[k]! * cosPhi - trig.cos[k]! * sinPhi)
     const ai = Math.abs(i)
     if (moments) {
       moments[(half * L + lo) * 2 + (i >= 0 ? 0 : 1)]! += ai

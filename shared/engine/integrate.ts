@@ -1,6 +1,6 @@
 // The one generic integrator: switching-period-averaged device currents over one fundamental period.
 import type { CompiledLeg } from './model'
-import type { GridReference } from './modulation'
+import { gridTrig, type GridReference } from './modulation'
 
 /** Even (the half waves) and divisible by 3 (the three phases share one grid, so three-phase sums repeat every third). */
 export const DEFAULT_INTEGRATION_POINTS = 2046
@@ -64,12 +64,16 @@ export function integrateLeg(
   const at = (h: number, l: number, s: number) => (h * L + l) * 2 + s
   const onGrid = 'values' in reference && (reference as GridReference).points === points ? (reference as GridReference).values : undefined
 
+  // sin θ and cos θ of the integration angles, kept per grid: i = Î·(sin θ·cos φ − cos θ·sin φ).
+  const trig = gridTrig(points)
+  const cosPhi = Math.cos(phi)
+  const sinPhi = Math.sin(phi)
   for (let k = 0; k < points; k++) {
-    const theta = (k + 0.5) * dTheta
-    const m = onGrid ? onGrid[3 * k + 1]! : reference(theta)
+    const m = onGrid ? onGrid[3 * k + 1]! : reference((k + 0.5) * dTheta)
     gridM[k] = m
-    fundamental += m * Math.sin(theta)
-    const i = currentPeak * Math.sin(theta - phi)
+    const sinTheta = trig.sin[k]!
+    fundamental += m * sinTheta
+    const i = currentPeak * (sinTheta * cosPhi - trig.cos[k]! * sinPhi)
     const sign = i >= 0 ? 0 : 1
     const ai = Math.abs(i)
     const i2 = i * i

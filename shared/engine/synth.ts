@@ -269,11 +269,31 @@ export function harmonicAmplitudes(samples: Float64Array, maxOrder: number): Flo
   const { re, im } = realFft(samples)
   const out = new Float64Array(maxOrder + 1)
   out[0] = Math.abs(re[0]!) / n
+  const sinc = sincTable(n)
   for (let h = 1; h <= maxOrder && h < n / 2; h++) {
-    const x = (Math.PI * h) / n
-    out[h] = (2 * Math.hypot(re[h]!, im[h]!)) / n / (Math.sin(x) / x)
+    const a = re[h]!
+    const b = im[h]!
+    out[h] = (2 * Math.sqrt(a * a + b * b)) / n / sinc[h]!
   }
   return out
+}
+
+/** sinc(πh/n) for h < n/2, kept per n. */
+const sincTables = new Map<number, Float64Array>()
+
+function sincTable(n: number): Float64Array {
+  let t = sincTables.get(n)
+  if (!t) {
+    t = new Float64Array(n / 2)
+    t[0] = 1
+    for (let h = 1; h < n / 2; h++) {
+      const x = (Math.PI * h) / n
+      t[h] = Math.sin(x) / x
+    }
+    if (sincTables.size >= 16) sincTables.delete(sincTables.keys().next().value!)
+    sincTables.set(n, t)
+  }
+  return t
 }
 
 /** THD = √(Σ_{h=2}^{H} A_h²) / A_1. */
