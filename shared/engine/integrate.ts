@@ -210,13 +210,17 @@ function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, c
   const absAt = new Float64Array(n)
   let lastKey = -1
   let lastEntry: { flags: Uint8Array, absMax: number } | undefined
+  const trig = gridTrig(points)
+  const cosPhi = Math.cos(phi)
+  const sinPhi = Math.sin(phi)
   for (let k = 0, g = 0, e = 0; k < n; k++) {
     const gridTheta = g < points ? (g + 0.5) * dTheta : Infinity
     const fromGrid = !(e < extra.length && extra[e]! < gridTheta)
     const theta = fromGrid ? gridTheta : extra[e++]!
-    const m = fromGrid ? gridM[g++]! : reference(theta)
     sorted[k] = theta
-    const i = currentPeak * Math.sin(theta - phi)
+    // on the grid the current from the kept sines, elsewhere afresh
+    const i = fromGrid ? currentPeak * (trig.sin[g]! * cosPhi - trig.cos[g]! * sinPhi) : currentPeak * Math.sin(theta - phi)
+    const m = fromGrid ? gridM[g++]! : reference(theta)
     const sign = i >= 0 ? 0 : 1
     absAt[k] = Math.abs(i)
     const key = conductionKeyOf(leg, m, sign, shares)

@@ -13,6 +13,7 @@
 // it and on the negative rail otherwise (m_Y the pole reference per unit of 0.75·V̂_in·cos φ_i). So the
 // output phase is always one of the three input voltages, never a fixed DC link; its local mean is the
 // reference, and the input-current local means are sinusoidal at the displacement angle φ_i.
+import { gridTrig, type GridReference } from './modulation'
 import type { CapacitorStress, MatrixInputSide } from './types'
 import type { ResolvedInput } from './validate'
 
@@ -641,21 +642,42 @@ export function matrixSwitching(positionNames: readonly string[], ctx: { phiIn: 
   const outputAnglePerCarrier = (TWO_PI * ctx.fundamentalHz) / ctx.switchingHz
   const sum = new Float64Array(P * 3)
   const { points, binned } = options
+  // Each position's duty is linear in |i|, |i|·m, the slope and slope·m for each sign of i: without the per-angle
+  // record those four sums per sign are taken over the period and the weights applied once.
+  const moments = binned ? undefined : new Float64Array(8)
+  const onGrid = 'values' in ctx.reference && (ctx.reference as GridReference).points === points ? (ctx.reference as GridReference).values : undefined
+  const trig = gridTrig(points)
+  const cosPhi = Math.cos(phi)
+  const sinPhi = Math.sin(phi)
   for (let k = 0; k < points; k++) {
     const theta = ((k + 0.5) * TWO_PI) / points
-    const i = currentPeak * Math.sin(theta - phi)
+    // sin and cos of θ − φ from the kept grid sines
+    const i = currentPeak * (trig.sin[k]! * cosPhi - trig.cos[k]! * sinPhi)
     const sign = i >= 0 ? 0 : 1
     // slope of |i| per carrier period about the centre
-    const slope = (i >= 0 ? 1 : -1) * currentPeak * Math.cos(theta - phi) * outputAnglePerCarrier
-    const m = ctx.reference(theta)
+    const slope = (i >= 0 ? 1 : -1) * currentPeak * (trig.cos[k]! * cosPhi + trig.sin[k]! * sinPhi) * outputAnglePerCarrier
+    const m = onGrid ? onGrid[3 * k + 1]! : ctx.reference(theta)
     const ai = Math.abs(i)
+    if (moments) {
+      moments[4 * sign]! += ai
+      moments[4 * sign + 1]! += ai * m
+      moments[4 * sign + 2]! += slope
+      moments[4 * sign + 3]! += slope * m
+      continue
+    }
     const a0 = w.a0[sign], b0 = w.b0[sign], a1 = w.a1[sign], b1 = w.b1[sign]
-    const base = binned ? Math.min(binned.bins - 1, Math.floor((theta / TWO_PI) * binned.bins)) * P * 3 : -1
+    const base = Math.min(binned!.bins - 1, Math.floor((theta / TWO_PI) * binned!.bins)) * P * 3
     for (let q = 0; q < P * 3; q++) {
       if (a0[q] === 0 && b0[q] === 0) continue
       const x = ai * (a0[q]! + m * b0[q]!) + slope * (a1[q]! + m * b1[q]!)
       sum[q]! += x
-      if (base >= 0) binned!.sums[base + q]! += x
+      binned!.sums[base + q]! += x
+    }
+  }
+  if (moments) {
+    for (let sign = 0; sign < 2; sign++) {
+      const a0 = w.a0[sign]!, b0 = w.b0[sign]!, a1 = w.a1[sign]!, b1 = w.b1[sign]!
+      for (let q = 0; q < P * 3; q++) sum[q]! += a0[q]! * moments[4 * sign]! + b0[q]! * moments[4 * sign + 1]! + a1[q]! * moments[4 * sign + 2]! + b1[q]! * moments[4 * sign + 3]!
     }
   }
   return positionNames.map((_, p) => ({
