@@ -58,11 +58,13 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
   const J = L - 1
   const sum = new Float64Array(J)
   const sumSq = new Float64Array(J)
-  const series = new Float64Array(J * points)
+  // Per capacitor j, its values at the points computed, series[j·third + k] (third: see below).
+  const third = !detail && points % 3 === 0 ? points / 3 : points
+  const series = new Float64Array(J * third)
   // the same with the natural-sampling shift of the pulses, for the charge
-  const charged = new Float64Array(J * points)
+  const charged = new Float64Array(J * third)
   // largest charge above (and, mirrored, below) its mean within the switching period centred on each sample, C
-  const halfSwing = new Float64Array(J * points)
+  const halfSwing = new Float64Array(J * third)
   const base = new Int32Array(3)
   const frac = new Float64Array(3)
   const cur = new Float64Array(3)
@@ -77,12 +79,17 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
   // Band positions r of the three phases, tabulated once (their slopes are needed below); the grid reference's
   // values when it has them (phase x at point k is grid angle 3k + 1 − x·points).
   const grid = 'values' in reference && (reference as GridReference).points === points ? (reference as GridReference).values : undefined
+  // (Only the points the loop below reads: those it visits and their neighbours.)
   const rTab = new Float64Array(3 * points)
   for (let x = 0; x < 3; x++) {
-    for (let k = 0; k < points; k++) {
-      const m = grid ? grid[(3 * k + 1 - x * points + G) % G]! : reference((k + 0.5) * dTheta - x * SHIFT)
+    const fill = (k: number) => {
+      let g = 3 * k + 1 - x * points
+      if (g < 0) g += G
+      const m = grid ? grid[g]! : reference((k + 0.5) * dTheta - x * SHIFT)
       rTab[x * points + k] = ((1 + m) * (L - 1)) / 2
     }
+    for (let k = 0; k <= Math.min(third, points - 1); k++) fill(k)
+    fill(points - 1)
   }
   const trig = gridTrig(G)
   const cosPhi = Math.cos(phi)
@@ -96,7 +103,6 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
   // The three phases are alike shifted by a third of the period, and the link currents are sums over all three,
   // so they repeat every third: on a grid that divides by 3, one third is computed and the rest copied.
   // (The whole period when the caller wants every angle's detail.)
-  const third = !detail && points % 3 === 0 ? points / 3 : points
   for (let k = 0; k < third; k++) {
     const kNext = k + 1 === points ? 0 : k + 1
     const kPrev = k === 0 ? points - 1 : k - 1
@@ -109,7 +115,8 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
       base[x] = lo
       frac[x] = r - lo
       // i = Î·sin(θ − 2πx/3 − φ) from the grid's sine and cosine (angle 3k + 1 − x·points of the fine grid)
-      const g = (3 * k + 1 - x * points + G) % G
+      let g = 3 * k + 1 - x * points
+      if (g < 0) g += G
       cur[x] = currentPeak * (trig.sin[g]! * cosPhi - trig.cos[g]! * sinPhi)
       curSlope[x] = currentPeak * (trig.cos[g]! * cosPhi + trig.sin[g]! * sinPhi)
     }
@@ -168,18 +175,18 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
           if (a > peak) peak = a
         }
       }
-      halfSwing[j * points + k] = peak / (2 * switchingHz)
+      halfSwing[j * third + k] = peak / (2 * switchingHz)
       sum[j]! += avg
       sumSq[j]! += ms
-      series[j * points + k] = avg
-      charged[j * points + k] = avg - shiftFactor * shifted
+      series[j * third + k] = avg
+      charged[j * third + k] = avg - shiftFactor * shifted
     }
     if (detail) detail.values.set(values, 4 * J * k)
   }
   if (detail) detail.charged.set(charged)
   // The charge and the ripple repeat with the currents, so their figures over one third are those of the period.
   return Array.from({ length: J }, (_, j) => {
-    const part = (a: Float64Array) => a.subarray(j * points, j * points + third)
+    const part = (a: Float64Array) => a.subarray(j * third, j * third + third)
     const swing = part(halfSwing)
     return figures(sum[j]! / third, sumSq[j]! / third, part(series), swing, (fundamentalHz * points) / third, swing, part(charged))
   })

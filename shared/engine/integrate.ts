@@ -183,9 +183,9 @@ function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, c
   for (const t of [phi, phi + Math.PI / 2, phi + Math.PI, phi + (3 * Math.PI) / 2]) extra.push(wrap(t), wrap(t - 1e-12), wrap(t + 1e-12))
   // Extrema of the reference between grid points: a level band it only grazes is entered there.
   for (let k = 0; k < points; k++) {
-    const prev = gridM[(k + points - 1) % points]!
+    const prev = gridM[k === 0 ? points - 1 : k - 1]!
     const here = gridM[k]!
-    const next = gridM[(k + 1) % points]!
+    const next = gridM[k + 1 === points ? 0 : k + 1]!
     const isMax = here > prev && here >= next
     const isMin = here < prev && here <= next
     if (!isMax && !isMin) continue

@@ -138,22 +138,26 @@ interface PhaseRef {
  * Walks the segments in time order. In each, u = α·m + β − carrier is linear for every comparison (m
  * interpolated between the boundaries), so each comparison switches at most once, at the root of u; the
  * stretches between those instants are constant and go to the accumulator. Carrier crossings are thus found
- * per carrier half-period, not searched for on the sample grid.
+ * per carrier half-period, not searched for on the sample grid. u at a boundary ends one segment and starts
+ * the next, so each comparison's u is computed once per boundary and its state carried on; every comparison
+ * switches the same voltage (±`stepVoltage`), so the level is offset + step × (an integer count).
  */
 function walkSegments(bounds: Float64Array, carriers: Float64Array, carrierCount: number, comparisons: (Comparator & { carrier: number })[], phases: PhaseRef[], offset: number, samples: number): StepAccumulator {
   const acc = new StepAccumulator(samples)
-  // Every (comparison, phase) pair flat: α, β, weight with the phase's sign, carrier column, phase row.
+  // Every (comparison, phase) pair flat: α, β, the sign of its voltage step, carrier column, phase row.
   const Q = comparisons.length * phases.length
+  const step = Math.abs(comparisons[0]?.weight ?? 0)
   const alpha = new Float64Array(Q)
   const beta = new Float64Array(Q)
-  const weight = new Float64Array(Q)
+  const dir = new Int8Array(Q)
   const column = new Int32Array(Q)
   const phaseOf = new Int32Array(Q)
   for (let q = 0, n = 0; q < comparisons.length; q++) {
+    if (Math.abs(comparisons[q]!.weight) !== step) throw new Error('synthesis: every comparison must switch the same voltage')
     for (let ph = 0; ph < phases.length; ph++, n++) {
       alpha[n] = comparisons[q]!.alpha
       beta[n] = comparisons[q]!.beta
-      weight[n] = phases[ph]!.sign * comparisons[q]!.weight
+      dir[n] = phases[ph]!.sign * Math.sign(comparisons[q]!.weight)
       column[n] = comparisons[q]!.carrier
       phaseOf[n] = ph
     }
@@ -161,50 +165,53 @@ function walkSegments(bounds: Float64Array, carriers: Float64Array, carrierCount
   const B = bounds.length
   const m = new Float64Array(phases.length * B)
   for (let ph = 0; ph < phases.length; ph++) m.set(phases[ph]!.m, ph * B)
-  const evT = new Float64Array(Q)
-  const evW = new Float64Array(Q)
   const C = carrierCount
+  // u of each pair at the current boundary, and whether it is on (u > 0); the count of steps that are on.
+  const u = new Float64Array(Q)
+  const on = new Uint8Array(Q)
+  let count = 0
+  for (let q = 0; q < Q; q++) {
+    u[q] = alpha[q]! * m[phaseOf[q]! * B]! + beta[q]! - carriers[column[q]!]!
+    if (u[q]! > 0) {
+      on[q] = 1
+      count += dir[q]!
+    }
+  }
+  const evT = new Float64Array(Q)
+  const evD = new Int8Array(Q)
   for (let b = 0; b + 1 < B; b++) {
     const t0 = bounds[b]!
     const t1 = bounds[b + 1]!
     const dt = t1 - t0
-    let level = offset
     let n = 0
-    const row0 = b * C
-    const row1 = row0 + C
+    const row1 = (b + 1) * C
     for (let q = 0; q < Q; q++) {
-      const w = weight[q]!
-      const c = column[q]!
-      const mi = phaseOf[q]! * B + b
-      const u0 = alpha[q]! * m[mi]! + beta[q]! - carriers[row0 + c]!
-      const u1 = alpha[q]! * m[mi + 1]! + beta[q]! - carriers[row1 + c]!
-      if (u0 > 0) {
-        level += w
-        if (u1 > 0) continue
-      }
-      else if (u1 <= 0) {
-        continue
-      }
+      const u0 = u[q]!
+      const u1 = alpha[q]! * m[phaseOf[q]! * B + b + 1]! + beta[q]! - carriers[row1 + column[q]!]!
+      u[q] = u1
+      const was = on[q]!
+      if ((u1 > 0 ? 1 : 0) === was) continue
+      on[q] = was ^ 1
       // One crossing inside the segment: on at a rising u, off at a falling one.
       const t = t0 + (dt * u0) / (u0 - u1)
-      const dw = u0 > 0 ? -w : w
+      const d = was ? -dir[q]! : dir[q]!
       // Insertion keeps the handful of crossings of a segment sorted.
       let k = n++
       while (k > 0 && evT[k - 1]! > t) {
         evT[k] = evT[k - 1]!
-        evW[k] = evW[k - 1]!
+        evD[k] = evD[k - 1]!
         k--
       }
       evT[k] = t
-      evW[k] = dw
+      evD[k] = d
     }
     let prev = t0
     for (let k = 0; k < n; k++) {
-      acc.add(prev, evT[k]!, level)
-      level += evW[k]!
+      acc.add(prev, evT[k]!, offset + step * count)
+      count += evD[k]!
       prev = evT[k]!
     }
-    acc.add(prev, t1, level)
+    acc.add(prev, t1, offset + step * count)
   }
   return acc
 }
