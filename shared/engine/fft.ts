@@ -24,18 +24,28 @@ export function realFft(x: Float64Array): { re: Float64Array, im: Float64Array }
     re[1] = x[0]! - x[1]!
     return { re, im }
   }
+  const out = realFftInterleaved(x)
+  for (let h = 0; h <= half; h++) {
+    re[h] = out[2 * h]!
+    im[h] = out[2 * h + 1]!
+  }
+  return { re, im }
+}
+
+/**
+ * The same bins interleaved (re at 2h, im at 2h + 1, h = 0…n/2; n ≥ 4) in a buffer kept per length: valid until
+ * the next transform of that length, for a caller that reads them at once (no copy).
+ */
+export function realFftInterleaved(x: Float64Array): number[] {
+  const n = x.length
+  if (!isPowerOfTwo(n) || n < 4) throw new Error('realFftInterleaved: length must be a power of two, at least 4')
   let t = transforms.get(n)
   if (!t) {
     const fft = new FFT(n)
     t = { fft, out: fft.createComplexArray() as number[] }
     transforms.set(n, t)
   }
-  // realTransform fills the bins 0…n/2 (interleaved re, im) and leaves the rest to be mirrored, which we do not need.
+  // realTransform fills the bins 0…n/2 and leaves the rest to be mirrored, which we do not need.
   t.fft.realTransform(t.out, x as unknown as number[])
-  const out = t.out
-  for (let h = 0; h <= half; h++) {
-    re[h] = out[2 * h]!
-    im[h] = out[2 * h + 1]!
-  }
-  return { re, im }
+  return t.out
 }

@@ -1,5 +1,5 @@
 // Switched pole and line voltages over one fundamental period (naturally sampled carriers), their spectrum and THD.
-import { realFft } from './fft'
+import { realFftInterleaved } from './fft'
 import type { CompiledLeg } from './model'
 
 const TWO_PI = 2 * Math.PI
@@ -111,20 +111,34 @@ export interface Synthesis {
  * boundaries every carrier is linear.
  */
 function segmentBoundaries(taus: number[], mf: number): Float64Array {
-  const all = new Float64Array(MIN_SEGMENTS + 1 + taus.length * (Math.ceil(2 * mf) + 2))
-  let count = 0
-  for (let j = 0; j <= MIN_SEGMENTS; j++) all[count++] = j / MIN_SEGMENTS
-  for (const tau of taus) {
-    for (let k = Math.floor(2 * tau) + 1; ; k++) {
-      const t = (k / 2 - tau) / mf
-      if (t >= 1) break
-      if (t > 0) all[count++] = t
-    }
+  // Each list is sorted already (the floor, each carrier's vertices): merged, with equal instants kept once.
+  const lists = taus.length + 1
+  const next = new Float64Array(lists)
+  const k = new Float64Array(lists)
+  const valueOf = (i: number): number => {
+    if (i === taus.length) return k[i]! <= MIN_SEGMENTS ? k[i]! / MIN_SEGMENTS : Infinity
+    const t = (k[i]! / 2 - taus[i]!) / mf
+    return t < 1 ? t : Infinity
   }
-  const sorted = all.subarray(0, count).sort()
+  for (let i = 0; i < taus.length; i++) {
+    k[i] = Math.floor(2 * taus[i]!) + 1
+    // vertices at t ≤ 0 are not boundaries (0 is the floor's)
+    while (valueOf(i) <= 0) k[i]!++
+    next[i] = valueOf(i)
+  }
+  next[taus.length] = 0
+  const out = new Float64Array(MIN_SEGMENTS + 1 + taus.length * (Math.ceil(2 * mf) + 2))
   let n = 0
-  for (let k = 0; k < sorted.length; k++) if (n === 0 || sorted[k]! - sorted[n - 1]! > 1e-15) sorted[n++] = sorted[k]!
-  return sorted.subarray(0, n)
+  for (;;) {
+    let best = 0
+    for (let i = 1; i < lists; i++) if (next[i]! < next[best]!) best = i
+    const t = next[best]!
+    if (t === Infinity) break
+    if (n === 0 || t - out[n - 1]! > 1e-15) out[n++] = t
+    k[best]!++
+    next[best] = valueOf(best)
+  }
+  return out.subarray(0, n)
 }
 
 interface PhaseRef {
@@ -142,7 +156,7 @@ interface PhaseRef {
  * the next, so each comparison's u is computed once per boundary and its state carried on; every comparison
  * switches the same voltage (±`stepVoltage`), so the level is offset + step × (an integer count).
  */
-function walkSegments(bounds: Float64Array, carriers: Float64Array, carrierCount: number, comparisons: (Comparator & { carrier: number })[], phases: PhaseRef[], offset: number, samples: number): StepAccumulator {
+function walkSegments(bounds: Float64Array, taus: number[], mf: number, comparisons: (Comparator & { carrier: number })[], phases: PhaseRef[], offset: number, samples: number): StepAccumulator {
   const acc = new StepAccumulator(samples)
   // Every (comparison, phase) pair flat: α, β, the sign of its voltage step, carrier column, phase row.
   const Q = comparisons.length * phases.length
@@ -165,13 +179,19 @@ function walkSegments(bounds: Float64Array, carriers: Float64Array, carrierCount
   const B = bounds.length
   const m = new Float64Array(phases.length * B)
   for (let ph = 0; ph < phases.length; ph++) m.set(phases[ph]!.m, ph * B)
-  const C = carrierCount
+  const C = taus.length
+  // The carriers at the current boundary (triangles, worked out per boundary rather than kept for all).
+  const carrier = new Float64Array(C)
+  const carriersAt = (t: number) => {
+    for (let c = 0; c < C; c++) carrier[c] = triangle(t * mf + taus[c]!)
+  }
   // u of each pair at the current boundary, and whether it is on (u > 0); the count of steps that are on.
   const u = new Float64Array(Q)
   const on = new Uint8Array(Q)
   let count = 0
+  carriersAt(bounds[0]!)
   for (let q = 0; q < Q; q++) {
-    u[q] = alpha[q]! * m[phaseOf[q]! * B]! + beta[q]! - carriers[column[q]!]!
+    u[q] = alpha[q]! * m[phaseOf[q]! * B]! + beta[q]! - carrier[column[q]!]!
     if (u[q]! > 0) {
       on[q] = 1
       count += dir[q]!
@@ -184,10 +204,10 @@ function walkSegments(bounds: Float64Array, carriers: Float64Array, carrierCount
     const t1 = bounds[b + 1]!
     const dt = t1 - t0
     let n = 0
-    const row1 = (b + 1) * C
+    carriersAt(t1)
     for (let q = 0; q < Q; q++) {
       const u0 = u[q]!
-      const u1 = alpha[q]! * m[phaseOf[q]! * B + b + 1]! + beta[q]! - carriers[row1 + column[q]!]!
+      const u1 = alpha[q]! * m[phaseOf[q]! * B + b + 1]! + beta[q]! - carrier[column[q]!]!
       u[q] = u1
       const was = on[q]!
       if ((u1 > 0 ? 1 : 0) === was) continue
@@ -250,20 +270,17 @@ export function synthesise(input: SynthesisInput, options: { pole?: boolean } = 
   const mf = input.frequencyRatio
   const bounds = segmentBoundaries(taus, mf)
   const B = bounds.length
-  const C = taus.length
-  const carriers = new Float64Array(B * C)
   const ma = new Float64Array(B)
   const mb = new Float64Array(B)
   for (let b = 0; b < B; b++) {
     const t = bounds[b]!
-    for (let ci = 0; ci < C; ci++) carriers[b * C + ci] = triangle(t * mf + taus[ci]!)
     ma[b] = input.reference(TWO_PI * t)
     mb[b] = input.reference(TWO_PI * t - TWO_PI / 3)
   }
   // The line voltage: the offsets of the two poles cancel.
-  const line = walkSegments(bounds, carriers, C, comparisons, [{ m: ma, sign: 1 }, { m: mb, sign: -1 }], 0, input.samples)
+  const line = walkSegments(bounds, taus, mf, comparisons, [{ m: ma, sign: 1 }, { m: mb, sign: -1 }], 0, input.samples)
   const out: Synthesis = { line: line.bins, lineMeanSquare: line.sumSquare }
-  if (options.pole) out.pole = walkSegments(bounds, carriers, C, comparisons, [{ m: ma, sign: 1 }], offset, input.samples).bins
+  if (options.pole) out.pole = walkSegments(bounds, taus, mf, comparisons, [{ m: ma, sign: 1 }], offset, input.samples).bins
   return out
 }
 
@@ -273,13 +290,13 @@ export function synthesise(input: SynthesisInput, options: { pole?: boolean } = 
  */
 export function harmonicAmplitudes(samples: Float64Array, maxOrder: number): Float64Array {
   const n = samples.length
-  const { re, im } = realFft(samples)
+  const bins = realFftInterleaved(samples)
   const out = new Float64Array(maxOrder + 1)
-  out[0] = Math.abs(re[0]!) / n
+  out[0] = Math.abs(bins[0]!) / n
   const sinc = sincTable(n)
   for (let h = 1; h <= maxOrder && h < n / 2; h++) {
-    const a = re[h]!
-    const b = im[h]!
+    const a = bins[2 * h]!
+    const b = bins[2 * h + 1]!
     out[h] = (2 * Math.sqrt(a * a + b * b)) / n / sinc[h]!
   }
   return out
