@@ -1,6 +1,7 @@
 // Capacitor stresses: DC-link (split or single), flying and H-bridge cell capacitors, from switched currents.
 import type { CompiledLeg } from './model'
 import { gridTrig, type GridReference } from './modulation'
+import { switchedSplitLinkCharge } from './switched-charge'
 import type { CapacitorStress } from './types'
 
 const TWO_PI = 2 * Math.PI
@@ -347,6 +348,16 @@ function gridOf(reference: (theta: number) => number, points: number): { m?: Flo
   return { sin: trig.sin, cos: trig.cos, stride: 1, offset: 0 }
 }
 
+/**
+ * The split link's charge is the larger of the quasi-static figure (each switching period on a continuous angle, the
+ * envelope of a carrier that drifts against the fundamental) and the charge of the switched currents with the carrier
+ * locked to the fundamental (switched-charge.ts), where a reference kink meets the carrier at the same phase every period.
+ */
+export function withSwitchedCharge(all: CurrentFigures[], L: number, ctx: Pick<CapacitorContext, 'reference' | 'currentPeak' | 'phi' | 'switchingHz' | 'fundamentalHz'>): CurrentFigures[] {
+  const switched = switchedSplitLinkCharge(L, ctx.reference, ctx.currentPeak, ctx.phi, ctx.switchingHz / ctx.fundamentalHz, ctx.fundamentalHz)
+  return all.map((f, j) => (switched[j]! > f.charge ? { ...f, charge: switched[j]! } : f))
+}
+
 export interface CapacitorOutcome {
   capacitors: CapacitorStress[]
   warnings: string[]
@@ -378,13 +389,14 @@ export function capacitorStresses(ctx: CapacitorContext): CapacitorOutcome {
   }
   const sizing = 'capacitance = peak-to-peak charge / ripple target, where the ripple is the peak-to-peak capacitor voltage over one fundamental period in periodic steady state, switching-frequency ripple included, and the charge is that of the switched current: the charge of its switching-period average (low-frequency) with the swing within each switching period on top, so the larger of the two counts where one dominates and their sum at the angles where both act'
 
+  const lockedCarrier = 'the charge is not taken below that of the switched currents themselves with the carrier locked to the fundamental (every crossing instant solved, the charge between them in closed form), where a space-vector reference\'s kinks meet the carrier at the same phase every period'
   switch (leg.def.capacitorModel) {
     case 'split': {
-      const all = splitLinkCurrents(L, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz)
+      const all = withSwitchedCharge(splitLinkCurrents(L, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz), L, ctx)
       for (const def of defs) {
         const f = all[(def.splitIndex ?? 1) - 1]!
         const source = L === 2 ? 'J. W. Kolar, S. D. Round, IEE Proc. EPA 153(4) 2006' : 'first principles (switched DC-side currents, the method of Kolar & Round, IEE Proc. EPA 153(4) 2006, applied per DC node); checked against a time-domain simulation'
-        result.push(build(def, f, `Mean square of the switched DC-side current of the three legs over each switching period (common carriers), minus its mean, ripple-free DC source; ${sizing}.`, source))
+        result.push(build(def, f, `Mean square of the switched DC-side current of the three legs over each switching period (common carriers), minus its mean, ripple-free DC source; ${sizing}; ${lockedCarrier}.`, source))
       }
       // Equal means ⇔ the capacitor voltages hold themselves; with N > 3 they generally cannot.
       const scale = Math.max(ctx.currentPeak, 1e-12)
@@ -393,11 +405,11 @@ export function capacitorStresses(ctx: CapacitorContext): CapacitorOutcome {
       break
     }
     case 'flying': {
-      const link = splitLinkCurrents(2, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz)[0]!
+      const link = withSwitchedCharge(splitLinkCurrents(2, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz), 2, ctx)[0]!
       const fly = flyingCurrents(L, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz)
       for (const def of defs) {
         if (def.kind === 'dc-link') {
-          result.push(build(def, link, `DC-link string carries the current switched by the outermost cell (its carrier common to the three phases), as a two-level link; ${sizing}.`, 'J. W. Kolar, S. D. Round, IEE Proc. EPA 153(4) 2006 (same form); T. A. Meynard, H. Foch, IEEE PESC 1992 (structure)'))
+          result.push(build(def, link, `DC-link string carries the current switched by the outermost cell (its carrier common to the three phases), as a two-level link; ${sizing}; ${lockedCarrier}.`, 'J. W. Kolar, S. D. Round, IEE Proc. EPA 153(4) 2006 (same form); T. A. Meynard, H. Foch, IEEE PESC 1992 (structure)'))
         }
         else {
           result.push(build(def, fly, `Carries ±i while its two adjacent cells differ: 2·min(d, 1/(N−1), 1−d) of each period under phase-shifted carriers; ${sizing}.`, 'first principles; T. A. Meynard, H. Foch, IEEE PESC 1992 (structure, voltages)'))

@@ -1,6 +1,6 @@
 // The one DC link a back-to-back pair shares: which grid sides fit the machine side's link, the link
 // capacitors' combined current (both converters switching), one bank sized for it, and the power balance.
-import { DEFAULT_RIPPLE_FRACTION, splitLinkCurrents, type CurrentFigures, type SplitLinkDetail } from './capacitors'
+import { DEFAULT_RIPPLE_FRACTION, splitLinkCurrents, withSwitchedCharge, type CurrentFigures, type SplitLinkDetail } from './capacitors'
 import { EngineInputError } from './errors'
 import { DEFAULT_INTEGRATION_POINTS } from './integrate'
 import { makeReference, SIX_STEP_INDEX } from './modulation'
@@ -91,7 +91,7 @@ function tabulate(conv: ConverterInput, op: OperatingPoint, links: number, point
   const reference = makeReference(p.modulation, amplitude)
   const J = links - 1
   const detail: SplitLinkDetail = { bounds: new Float64Array(5 * points), values: new Float64Array(4 * J * points), charged: new Float64Array(J * points) }
-  const figures = splitLinkCurrents(links, reference, Math.SQRT2 * p.phaseCurrentRms, p.currentPhaseAngle, points, p.switchingHz, p.fundamentalHz, detail)
+  const figures = withSwitchedCharge(splitLinkCurrents(links, reference, Math.SQRT2 * p.phaseCurrentRms, p.currentPhaseAngle, points, p.switchingHz, p.fundamentalHz, detail), links, { reference, currentPeak: Math.SQRT2 * p.phaseCurrentRms, phi: p.currentPhaseAngle, switchingHz: p.switchingHz, fundamentalHz: p.fundamentalHz })
   const stride = points / PAIR_GRID
   if (!Number.isInteger(stride)) throw new Error(`shared link: ${points} integration points are not a multiple of ${PAIR_GRID}`)
   const n = PAIR_GRID

@@ -76,7 +76,7 @@ class StepAccumulator {
 }
 
 /** Triangle carrier 0…1 with troughs at integer carrier periods p. */
-function triangle(p: number): number {
+export function triangle(p: number): number {
   return 1 - Math.abs(2 * (p - Math.floor(p)) - 1)
 }
 
@@ -110,7 +110,7 @@ export interface Synthesis {
  * whole, peaks at half carrier periods, shifted by τ) and a uniform floor of MIN_SEGMENTS, sorted. Between two
  * boundaries every carrier is linear.
  */
-function segmentBoundaries(taus: number[], mf: number): Float64Array {
+export function segmentBoundaries(taus: number[], mf: number): Float64Array {
   // Each list is sorted already (the floor, each carrier's vertices): merged, with equal instants kept once.
   const lists = taus.length + 1
   const next = new Float64Array(lists)
