@@ -73,6 +73,8 @@ const CARRIER_BINS = 4096
 /** One side at one operating point, tabulated for combining. */
 interface SideTab {
   figures: CurrentFigures[]
+  /** C per capacitor, the switched charge with the carrier locked to this side's fundamental beyond its quasi-static charge (≥ 0) */
+  lockedExcess: Float64Array
   /** C, low-frequency charge of capacitor j at the centre of sample k: q[j·n + k] (n = PAIR_GRID) */
   charge: Float64Array
   /** carrier bounds (5 per sample) and the within-period charge path P at them (per unit of i·T_sw/2), J·5 per sample */
@@ -91,7 +93,10 @@ function tabulate(conv: ConverterInput, op: OperatingPoint, links: number, point
   const reference = makeReference(p.modulation, amplitude)
   const J = links - 1
   const detail: SplitLinkDetail = { bounds: new Float64Array(5 * points), values: new Float64Array(4 * J * points), charged: new Float64Array(J * points) }
-  const figures = withSwitchedCharge(splitLinkCurrents(links, reference, Math.SQRT2 * p.phaseCurrentRms, p.currentPhaseAngle, points, p.switchingHz, p.fundamentalHz, detail), links, { reference, currentPeak: Math.SQRT2 * p.phaseCurrentRms, phi: p.currentPhaseAngle, switchingHz: p.switchingHz, fundamentalHz: p.fundamentalHz })
+  const quasiStatic = splitLinkCurrents(links, reference, Math.SQRT2 * p.phaseCurrentRms, p.currentPhaseAngle, points, p.switchingHz, p.fundamentalHz, detail)
+  const figures = withSwitchedCharge(quasiStatic, links, { reference, currentPeak: Math.SQRT2 * p.phaseCurrentRms, phi: p.currentPhaseAngle, switchingHz: p.switchingHz, fundamentalHz: p.fundamentalHz })
+  // What the carrier locked to this side's fundamental adds to its quasi-static charge (capacitors.ts withSwitchedCharge).
+  const lockedExcess = Float64Array.from(figures, (f, j) => f.charge - quasiStatic[j]!.charge)
   const stride = points / PAIR_GRID
   if (!Number.isInteger(stride)) throw new Error(`shared link: ${points} integration points are not a multiple of ${PAIR_GRID}`)
   const n = PAIR_GRID
@@ -147,7 +152,7 @@ function tabulate(conv: ConverterInput, op: OperatingPoint, links: number, point
       profile[j * CARRIER_BINS + b]! += level * w
     }
   }
-  return { figures, charge, bounds, path, profile, switchingHz: p.switchingHz }
+  return { figures, lockedExcess, charge, bounds, path, profile, switchingHz: p.switchingHz }
 }
 
 /** The within-period path of one side at carrier value c (linear between its bounds). */
@@ -209,7 +214,9 @@ function combine(m: SideTab, g: SideTab, j: number, J: number): Combined {
       if (centre - swing < lo) lo = centre - swing
     }
   }
-  out.chargeSynchronised = hi - lo
+  // Each side's locked-carrier excess on top: the quasi-static charges combined above average out the jumps that a
+  // carrier locked to a fundamental makes at its reference's kinks (space-vector references near pf ±1).
+  out.chargeSynchronised = hi - lo + m.lockedExcess[j]! + g.lockedExcess[j]!
   return out
 }
 
