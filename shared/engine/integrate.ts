@@ -189,14 +189,29 @@ function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, c
     const isMax = here > prev && here >= next
     const isMin = here < prev && here <= next
     if (!isMax && !isMin) continue
+    // Golden-section search, one new point per step: 40 steps shrink the bracket by 0.618⁴⁰ ≈ 4e-9.
     let a = (k + 0.5) * dTheta - dTheta
     let b = (k + 0.5) * dTheta + dTheta
     const f = (t: number) => (isMax ? -reference(t) : reference(t))
+    let c = b - GOLDEN * (b - a)
+    let d = a + GOLDEN * (b - a)
+    let fc = f(c)
+    let fd = f(d)
     for (let it = 0; it < 40; it++) {
-      const c = b - GOLDEN * (b - a)
-      const d = a + GOLDEN * (b - a)
-      if (f(c) < f(d)) b = d
-      else a = c
+      if (fc < fd) {
+        b = d
+        d = c
+        fd = fc
+        c = b - GOLDEN * (b - a)
+        fc = f(c)
+      }
+      else {
+        a = c
+        c = d
+        fc = fd
+        d = a + GOLDEN * (b - a)
+        fd = f(d)
+      }
     }
     extra.push(wrap((a + b) / 2))
   }
