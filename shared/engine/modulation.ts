@@ -19,27 +19,8 @@ export const SIX_STEP_INDEX = 4 / Math.PI
  * (clamping only bites past the linear range, where the caller warns). Other phases: θ − 2πk/3.
  */
 export function makeReference(modulation: Modulation, a: number): (theta: number) => number {
-  switch (modulation) {
-    case 'six-step':
-      return theta => (Math.sin(theta) >= 0 ? 1 : -1)
-    case 'sine':
-      return theta => clamp(a * Math.sin(theta))
-    case 'third-harmonic':
-      // 1/6 of the fundamental at three times its frequency flattens the peak by √3/2.
-      return theta => clamp(a * (Math.sin(theta) + Math.sin(3 * theta) / 6))
-    case 'space-vector':
-      // Min-max common-mode injection: the same linear range and duties as space-vector modulation.
-      // sin(θ ∓ 2π/3) = −sin θ / 2 ∓ (√3/2)·cos θ: one sine and one cosine per angle instead of three sines.
-      return (theta) => {
-        const sa = Math.sin(theta)
-        const ca = HALF_SQRT3 * Math.cos(theta)
-        const sb = -0.5 * sa - ca
-        const sc = -0.5 * sa + ca
-        const hi = sa > sb ? (sa > sc ? sa : sc) : (sb > sc ? sb : sc)
-        const lo = sa < sb ? (sa < sc ? sa : sc) : (sb < sc ? sb : sc)
-        return clamp(a * (sa - (hi + lo) / 2))
-      }
-  }
+  const shape = unitShape(modulation)
+  return modulation === 'six-step' ? shape : theta => clamp(a * shape(theta))
 }
 
 function clamp(m: number): number {
@@ -54,8 +35,11 @@ function unitShape(modulation: Modulation): (theta: number) => number {
     case 'sine':
       return theta => Math.sin(theta)
     case 'third-harmonic':
+      // 1/6 of the fundamental at three times its frequency flattens the peak by √3/2.
       return theta => Math.sin(theta) + Math.sin(3 * theta) / 6
     case 'space-vector':
+      // Min-max common-mode injection: the same linear range and duties as space-vector modulation.
+      // sin(θ ∓ 2π/3) = −sin θ / 2 ∓ (√3/2)·cos θ: one sine and one cosine per angle instead of three sines.
       return (theta) => {
         const sa = Math.sin(theta)
         const ca = HALF_SQRT3 * Math.cos(theta)

@@ -1,6 +1,6 @@
 // The charge of a split DC link's capacitors from the switched currents themselves, instant by instant.
 import type { GridReference } from './modulation'
-import { segmentBoundaries, triangle } from './synth'
+import { insertCrossing, segmentBoundaries, triangle } from './synth'
 
 const TWO_PI = 2 * Math.PI
 
@@ -127,15 +127,7 @@ export function switchedSplitLinkCharge(L: number, reference: (theta: number) =>
         const u1 = r1 - k - c1
         u[q] = u1
         if ((u1 > 0 ? 1 : 0) === on[q]) continue
-        const t = t0 + (dt * u0) / (u0 - u1)
-        let e = n++
-        while (e > 0 && evT[e - 1]! > t) {
-          evT[e] = evT[e - 1]!
-          evQ[e] = evQ[e - 1]!
-          e--
-        }
-        evT[e] = t
-        evQ[e] = q
+        insertCrossing(evT, evQ, n++, t0 + (dt * u0) / (u0 - u1), q)
       }
     }
     for (let e = 0; e < n; e++) record(TWO_PI * evT[e]!, evQ[e]! % J, evQ[e]!)

@@ -198,7 +198,7 @@ function walkSegments(bounds: Float64Array, taus: number[], mf: number, comparis
     }
   }
   const evT = new Float64Array(Q)
-  const evD = new Int8Array(Q)
+  const evD = new Int32Array(Q)
   for (let b = 0; b + 1 < B; b++) {
     const t0 = bounds[b]!
     const t1 = bounds[b + 1]!
@@ -213,17 +213,7 @@ function walkSegments(bounds: Float64Array, taus: number[], mf: number, comparis
       if ((u1 > 0 ? 1 : 0) === was) continue
       on[q] = was ^ 1
       // One crossing inside the segment: on at a rising u, off at a falling one.
-      const t = t0 + (dt * u0) / (u0 - u1)
-      const d = was ? -dir[q]! : dir[q]!
-      // Insertion keeps the handful of crossings of a segment sorted.
-      let k = n++
-      while (k > 0 && evT[k - 1]! > t) {
-        evT[k] = evT[k - 1]!
-        evD[k] = evD[k - 1]!
-        k--
-      }
-      evT[k] = t
-      evD[k] = d
+      insertCrossing(evT, evD, n++, t0 + (dt * u0) / (u0 - u1), was ? -dir[q]! : dir[q]!)
     }
     let prev = t0
     for (let k = 0; k < n; k++) {
@@ -234,6 +224,21 @@ function walkSegments(bounds: Float64Array, taus: number[], mf: number, comparis
     acc.add(prev, t1, offset + step * count)
   }
   return acc
+}
+
+/**
+ * Puts crossing (t, tag) into the first n + 1 places of times/tags, which hold n crossings sorted by time (an
+ * insertion: a segment has a handful). Equal times keep their order of arrival.
+ */
+export function insertCrossing(times: Float64Array, tags: Int32Array, n: number, t: number, tag: number): void {
+  let k = n
+  while (k > 0 && times[k - 1]! > t) {
+    times[k] = times[k - 1]!
+    tags[k] = tags[k - 1]!
+    k--
+  }
+  times[k] = t
+  tags[k] = tag
 }
 
 /** Six-step: pole high (+V/2) while sin(θ − shift) ≥ 0, low (−V/2) otherwise; u_ab = u_a − u_b. */
