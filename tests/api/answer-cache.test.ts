@@ -3,16 +3,20 @@
 // the computed one, that a change of input, assignment or catalogue gives fresh figures, that two requests at once
 // keep one row, that the role still decides what is sent, and that a design keeps only a few rows.
 import postgres from 'postgres'
-import { afterAll, describe, expect, it } from 'vitest'
+import { afterAll, beforeEach, describe, expect, it } from 'vitest'
 import { signInAs, unique, type Client } from '../support/api'
 
 const db = postgres(process.env.STRATAVOLT_TEST_DATABASE_URL!, { max: 2, onnotice: () => {} })
 afterAll(() => db.end())
 
+// Answers are stored by content, so a design with another design's input (in this file or another) would find that
+// one's answer: each test's designs carry a current of their own.
+let current = 0
+beforeEach(() => { current = 200 + Math.round(Math.random() * 1e6) / 1e4 })
 const input = (dcVoltage = 1100) => ({
   machineSide: {
     topology: 'diode-clamped', levels: 3, dcVoltage, dcVoltageMax: 1250, switchingHz: 3000, modulation: 'sine', overshootVoltage: 100,
-    operatingPoints: [{ name: 'Rated', lineVoltageRms: 690, phaseCurrentRms: 300, powerFactor: 0.85, fundamentalHz: 50 }],
+    operatingPoints: [{ name: 'Rated', lineVoltageRms: 690, phaseCurrentRms: current, powerFactor: 0.85, fundamentalHz: 50 }],
   },
 })
 
@@ -86,7 +90,7 @@ describe('stored results of a saved design', () => {
     const api = await signInAs('design-engineer')
     const id = await newDesign(api)
     for (let point = 0; point < 6; point++) {
-      const many = { machineSide: { ...input().machineSide, operatingPoints: Array.from({ length: 6 }, (_, i) => ({ ...input().machineSide.operatingPoints[0], name: `P${i}`, phaseCurrentRms: 200 + 10 * i })) } }
+      const many = { machineSide: { ...input().machineSide, operatingPoints: Array.from({ length: 6 }, (_, i) => ({ ...input().machineSide.operatingPoints[0], name: `P${i}`, phaseCurrentRms: current + 10 * i })) } }
       if (point === 0) expect((await api.json('PUT', `/api/designs/${id}`, { name: unique('cache test'), input: many, revision: 1 })).status).toBe(200)
       expect((await get(api, `/api/designs/${id}/results?machinePoint=${point}`)).status).toBe(200)
     }
@@ -121,6 +125,17 @@ describe('stored figures of the assigned parts', () => {
     expect(seen.cache).toBe('hit')
     expect(seen.body.summary[0].semiconductorLossW).toBe(one.body.summary[0].semiconductorLossW)
     expect(seen.body.summary[0].costPerDesign).toBeNull()
+  })
+
+  it('a design with the same input and parts finds the figures stored for another', async () => {
+    const api = await signInAs('design-engineer')
+    const first = await newDesign(api)
+    const second = await newDesign(api)
+    const a = await get(api, `/api/designs/${first}/parts/summary`)
+    const b = await get(api, `/api/designs/${second}/parts/summary`)
+    expect([a.cache, b.cache]).toEqual(['miss', 'hit'])
+    expect(b.body.summary).toEqual(a.body.summary)
+    expect(b.body.design.id).toBe(second)
   })
 
   it('a catalogue change (a new generation) computes the figures again', async () => {
