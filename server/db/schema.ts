@@ -1,7 +1,7 @@
 // All tables of Stratavolt. drizzle-kit generates the SQL migrations in drizzle/ from this file.
 import { sql } from 'drizzle-orm'
 import {
-  boolean, doublePrecision, index, integer, jsonb, numeric, pgTable, serial, text, timestamp, uniqueIndex,
+  boolean, customType, doublePrecision, index, integer, jsonb, numeric, pgTable, serial, text, timestamp, uniqueIndex,
   type AnyPgColumn,
 } from 'drizzle-orm/pg-core'
 import type { ImportSettings } from '../../shared/catalog/types'
@@ -100,6 +100,25 @@ export const designRevisions = pgTable('design_revisions', {
   authorId: integer('author_id').references(() => users.id, { onDelete: 'set null' }),
   createdAt: createdAt(),
 }, t => [uniqueIndex('design_revisions_key').on(t.designId, t.revision)])
+
+const bytea = customType<{ data: Buffer, driverData: Buffer }>({ dataType: () => 'bytea' })
+
+/**
+ * Answers computed from a saved design (its results, its assigned parts' summary), kept so that opening an unchanged
+ * design serves the bytes again instead of computing them. `key` is a SHA-256 over the build, the kind and everything
+ * the answer was computed from (the input; for the summary the assignments, part versions and catalogue generation),
+ * so a changed design, catalogue or build simply has another key and never meets an old answer. Shared by every
+ * instance; at most a few rows per design and kind are kept (server/services/answer-cache.ts).
+ */
+export const computedAnswers = pgTable('computed_answers', {
+  key: text('key').primaryKey(),
+  kind: text('kind').notNull(), // 'design-results' | 'parts-summary'
+  designId: integer('design_id').notNull().references(() => designs.id, { onDelete: 'cascade' }),
+  /** the JSON answer, gzipped when `gzip` */
+  body: bytea('body').notNull(),
+  gzip: boolean('gzip').notNull(),
+  createdAt: createdAt(),
+}, t => [index('computed_answers_design_idx').on(t.designId, t.kind, t.createdAt)])
 
 export const catalogVersions = pgTable('catalog_versions', {
   id: serial('id').primaryKey(),

@@ -6,6 +6,8 @@ import { existsSync } from 'node:fs'
 import { availableParallelism } from 'node:os'
 import { dirname, join } from 'node:path'
 import { fileURLToPath, pathToFileURL } from 'node:url'
+import { promisify } from 'node:util'
+import { gunzip } from 'node:zlib'
 import { Piscina } from 'piscina'
 import { EngineInputError } from '#shared/engine'
 import { loadFonts, type PdfFonts } from '../exports/pdf'
@@ -15,6 +17,7 @@ import { runTask, type BomPdfOptions, type EncodedTask, type Task, type TaskResu
 import type { EncodedAnswer } from './encode'
 
 export const WORKER_FILE = join('workers', 'engine.mjs')
+const gunzipAsync = promisify(gunzip)
 
 /**
  * Looks for workers/engine.mjs beside the entry script (`node .output/server/index.mjs`) and in the folders
@@ -92,11 +95,33 @@ export async function runInPool<T>(task: Task | EncodedTask, supply?: { fonts?: 
  * below), so a small answer the thread chose not to gzip is not gzipped after all on the event loop.
  */
 export async function answerFromPool<T = unknown>(event: H3Event, task: Task): Promise<T> {
-  const gzip = !!getRequestHeader(event, 'accept-encoding')?.includes('gzip')
-  const { body, gzip: zipped, timing } = await runInPool<EncodedAnswer>({ ...task, encode: { gzip } } as EncodedTask)
+  return sendEncoded<T>(event, await encodedInPool(event, task))
+}
+
+/** The task's answer encoded on a thread (JSON, gzipped from THREAD_GZIP_MIN_BYTES when `gzip` or the client takes it). */
+export function encodedInPool(event: H3Event | null, task: Task, gzip = !!event && acceptsGzip(event)): Promise<EncodedAnswer> {
+  return runInPool<EncodedAnswer>({ ...task, encode: { gzip } } as EncodedTask)
+}
+
+const acceptsGzip = (event: H3Event) => !!getRequestHeader(event, 'accept-encoding')?.includes('gzip')
+
+/**
+ * Sends encoded answer bytes as the route's answer (gzipped ones unpacked first for a client that does not take
+ * gzip, such as the server-side render's own requests). `cache` says in Server-Timing whether they were stored.
+ */
+export async function sendEncoded<T = unknown>(event: H3Event, answer: EncodedAnswer, cache?: 'hit' | 'miss'): Promise<T> {
+  let { body, gzip: zipped } = answer
+  if (zipped && !acceptsGzip(event)) {
+    body = await gunzipAsync(body)
+    zipped = false
+  }
   setResponseHeader(event, 'Content-Type', 'application/json')
   // W3C Server-Timing: the thread's own work, so the load bench (or any client) can tell the per-request overhead
-  if (timing) setResponseHeader(event, 'Server-Timing', `compute;dur=${timing.computeMs.toFixed(3)}, encode;dur=${timing.encodeMs.toFixed(3)}`)
+  const timing = [
+    ...(answer.timing ? [`compute;dur=${answer.timing.computeMs.toFixed(3)}`, `encode;dur=${answer.timing.encodeMs.toFixed(3)}`] : []),
+    ...(cache ? [`cache;desc=${cache}`] : []),
+  ]
+  if (timing.length) setResponseHeader(event, 'Server-Timing', timing.join(', '))
   appendResponseHeader(event, 'Vary', 'Accept-Encoding')
   if (zipped) setResponseHeader(event, 'Content-Encoding', 'gzip')
   else event.context.encodedOnThread = true

@@ -90,13 +90,13 @@ describe('results beside the inputs (1280 × 800)', () => {
     expect(problems).toEqual([])
   })
 
-  it('a saved design\'s page arrives from the server with its results drawn: the browser asks for no results, hydrates without a warning and sees no unsaved change', async () => {
+  it('a saved design\'s page arrives from the server with its results and its parts\' figures drawn: the browser asks for neither, hydrates without a warning and sees no unsaved change', async () => {
     const { page, problems } = await page1280(browser)
     // every console message, whatever its level: Vue reports a hydration mismatch as a warning, then an error
     const messages: string[] = []
     page.on('console', m => messages.push(`${m.type()}: ${m.text()}`))
     const resultRequests: string[] = []
-    page.on('request', (r) => { if (/\/api\/designs\/(preview|\d+\/results)/.test(r.url())) resultRequests.push(r.url()) })
+    page.on('request', (r) => { if (/\/api\/designs\/(preview|\d+\/results|\d+\/parts\/summary)/.test(r.url())) resultRequests.push(r.url()) })
     await signInPage(page, 'design-engineer')
 
     const api = await signInAs('design-engineer')
@@ -107,6 +107,9 @@ describe('results beside the inputs (1280 × 800)', () => {
     expect(markup).toContain('data-testid="results"')
     expect((markup.match(/<tr[^>]*data-position=/g) ?? []).length).toBeGreaterThanOrEqual(positions.length)
     expect(markup).not.toContain('unsaved changes')
+    // the demo design has parts assigned: their losses and T_j come with the page, not after it (pushing the results down)
+    expect(markup).toContain('data-testid="loss-summary"')
+    expect(markup).toContain('data-testid="peak-junction"')
 
     await page.goto(`/designs/${designId}`)
     await page.locator('[data-testid="results"] tr[data-position]').first().waitFor()
