@@ -13,6 +13,7 @@ import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
 import type { H3Event } from 'h3'
 import { runTask, type BomPdfOptions, type EncodedTask, type Task, type TaskResult } from './tasks'
 import type { EncodedAnswer } from './encode'
+import { SizedCache } from '#shared/utils/sized-cache'
 
 export const WORKER_FILE = join('workers', 'engine.mjs')
 
@@ -85,18 +86,48 @@ export async function runInPool<T>(task: Task | EncodedTask, supply?: { fonts?: 
   return result.value as T
 }
 
+/** Bytes of answers kept by answerFromPool's `key`; the least recently sent go first beyond it. */
+export const KEPT_ANSWER_BYTES = 16 * 1024 * 1024
+
+/** Encoded answers by key (gzip or plain, the task's kind, the caller's key), and the ones being computed. */
+const keptAnswers = new SizedCache<EncodedAnswer>(KEPT_ANSWER_BYTES, a => a.body.byteLength)
+const pendingAnswers = new Map<string, Promise<EncodedAnswer>>()
+
 /**
  * Runs a task whose value is the route's whole answer and sends it as the thread encoded it (JSON, gzipped when
  * the client accepts gzip and it is at least THREAD_GZIP_MIN_BYTES): the route returns what this returns. The
  * compression plugin leaves a body with Content-Encoding alone, and a plain one from the thread too (marked
  * below), so a small answer the thread chose not to gzip is not gzipped after all on the event loop.
+ *
+ * With `key` (a digest of everything the task's answer depends on, read from the database for this request), the
+ * encoded answer is kept and sent again for the same key without a thread: requests with the same key while it is
+ * computed wait for that one computation. Only for tasks that are pure functions of their message.
  */
-export async function answerFromPool<T = unknown>(event: H3Event, task: Task): Promise<T> {
+export async function answerFromPool<T = unknown>(event: H3Event, task: Task, options: { key?: string } = {}): Promise<T> {
   const gzip = !!getRequestHeader(event, 'accept-encoding')?.includes('gzip')
-  const { body, gzip: zipped, timing } = await runInPool<EncodedAnswer>({ ...task, encode: { gzip } } as EncodedTask)
+  const key = options.key === undefined ? null : `${gzip ? 'gzip' : 'plain'}:${task.kind}:${options.key}`
+  const kept = key ? keptAnswers.get(key) : undefined
+  let answer: EncodedAnswer
+  if (kept) {
+    answer = { ...kept, timing: { computeMs: 0, encodeMs: 0 } }
+  }
+  else if (key) {
+    let pending = pendingAnswers.get(key)
+    if (!pending) {
+      pending = runInPool<EncodedAnswer>({ ...task, encode: { gzip } } as EncodedTask)
+      pendingAnswers.set(key, pending)
+      pending.then(a => keptAnswers.set(key, a), () => {}).finally(() => pendingAnswers.delete(key))
+    }
+    answer = await pending
+  }
+  else {
+    answer = await runInPool<EncodedAnswer>({ ...task, encode: { gzip } } as EncodedTask)
+  }
+  const { body, gzip: zipped, timing } = answer
   setResponseHeader(event, 'Content-Type', 'application/json')
   // W3C Server-Timing: the thread's own work, so the load bench (or any client) can tell the per-request overhead
-  if (timing) setResponseHeader(event, 'Server-Timing', `compute;dur=${timing.computeMs.toFixed(3)}, encode;dur=${timing.encodeMs.toFixed(3)}`)
+  // (a kept answer: no thread work, said as `kept`)
+  if (timing) setResponseHeader(event, 'Server-Timing', `compute;dur=${timing.computeMs.toFixed(3)}, encode;dur=${timing.encodeMs.toFixed(3)}${kept ? ', kept' : ''}`)
   appendResponseHeader(event, 'Vary', 'Accept-Encoding')
   if (zipped) setResponseHeader(event, 'Content-Encoding', 'gzip')
   else event.context.encodedOnThread = true
