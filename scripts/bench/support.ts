@@ -25,7 +25,7 @@ function logTail(log: string): string {
 
 /**
  * The built server (.output or STRATAVOLT_BENCH_OUTPUT, built when out of date) on 127.0.0.1:`port` against database `database`,
- * recreated for the run; its output (stdout and stderr, one file) goes to .data/`name`-server.log. Resolves once
+ * recreated for the run (kept as it is with `keep`: migrations and the idempotent demo seed still run); its output (stdout and stderr, one file) goes to .data/`name`-server.log. Resolves once
  * health answers 200 from this server, i.e. after its migrations and seed (server/plugins/00.database.ts holds every
  * request until then).
  *
@@ -34,9 +34,9 @@ function logTail(log: string): string {
  * under the old server, its first query fails with "relation … does not exist". The server is stopped when the
  * benchmark process exits, however it exits.
  */
-export async function startBuiltServer(options: { database: string, port: number, name: string, uploads: string, seedDemo: boolean }): Promise<{ base: string, pid: number | undefined, stop: () => void }> {
+export async function startBuiltServer(options: { database: string, port: number, name: string, uploads: string, seedDemo: boolean, keep?: boolean }): Promise<{ base: string, pid: number | undefined, stop: () => void }> {
   await ensurePortFree(options.port, 'STRATAVOLT_BENCH_PORT', `the ${options.name} server`)
-  const url = ensurePostgres([{ name: options.database, recreate: true }])(options.database)
+  const url = ensurePostgres([{ name: options.database, recreate: !options.keep }])(options.database)
   // STRATAVOLT_BENCH_OUTPUT=.output-test reuses the build `npm test` made (built again when out of date)
   const output = process.env.STRATAVOLT_BENCH_OUTPUT ?? '.output'
   const entry = ensureBuild({ output })

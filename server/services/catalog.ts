@@ -187,6 +187,11 @@ export async function currentCatalogue(): Promise<CurrentCatalogue> {
   return catalogueOf(await catalogGeneration())
 }
 
+/** The matching index of a generation just read with catalogGeneration() (kept, or built once as in currentCatalogue). */
+export function catalogueAt(generation: number): Promise<CurrentCatalogue> {
+  return catalogueOf(generation)
+}
+
 /** Same as currentCatalogue (the name the worker-pool callers use). */
 export const currentCatalog = currentCatalogue
 

@@ -1,6 +1,7 @@
 // Part matching for a design: every position's duty from the engine, the catalogue parts that meet
 // it, and the parts the engineer assigned (each pinned to the part version it was matched with and to
 // the design revision its counts were rated against).
+import { createHash } from 'node:crypto'
 import { eq, inArray } from 'drizzle-orm'
 import { balanceWithLosses, evaluateDesign, gridInput, legLayout } from '#shared/engine'
 import type { CapacitorEnvelope, DesignInput, DesignResult } from '#shared/engine/types'
@@ -12,7 +13,7 @@ import { efficiencyAt, headlinePoint, pointDutiesOf, totalsPerPoint } from '#sha
 import { caseMatesByCoverage, designThermal, type ChoiceThermal, type DesignThermal, type ThermalPosition } from '#shared/thermal/design'
 import type { ReportEvaluation } from '../exports/design-pdf'
 import { formatNumber } from '#shared/utils/format'
-import { currentCatalogue, partVersionsById } from './catalog'
+import { catalogGeneration, catalogueAt, partVersionsById } from './catalog'
 import { loadDesign } from './designs'
 import { runInPool } from '../workers/pool'
 
@@ -152,13 +153,16 @@ export async function matchDesign(designId: number, limit = 40, options: { showA
 
 /** What a worker thread needs to match a design: read here (design, assignments, catalogue generation), sent there. */
 export async function designMatchTask(designId: number, limit: number, options: { showAll?: boolean, summaryOnly?: boolean }) {
-  const design = await loadDesign(designId)
+  // Independent reads at once (each a round trip the request would otherwise wait for in turn).
+  const [design, generation, assignments] = await Promise.all([
+    loadDesign(designId),
+    catalogGeneration(),
+    useDb().select().from(tables.partAssignments).where(eq(tables.partAssignments.designId, designId)),
+  ])
   const input = design.input as DesignInput
-  // The part index is kept between requests until the catalogue generation changes.
-  const catalogue = await currentCatalogue()
-  const assignments = await useDb().select().from(tables.partAssignments).where(eq(tables.partAssignments.designId, designId))
-  const pinned = await partVersionsById(assignments.map(a => a.partVersionId))
-  const approval = await approvalOf(assignments.map(a => a.partVersionId))
+  // The part index is kept between requests until the catalogue generation changes (built only for a design that exists).
+  const versionIds = assignments.map(a => a.partVersionId)
+  const [catalogue, pinned, approval] = await Promise.all([catalogueAt(generation), partVersionsById(versionIds), approvalOf(versionIds)])
   const hostIds = assignments.filter(a => a.coveredBy).map(a => catalogue.places.get(a.partVersionId)).filter((p): p is number => p !== undefined)
   const request: DesignMatchRequest = {
     input, bomSettings: design.bomSettings as BomSettings, revision: design.revision, assignments,
@@ -166,6 +170,16 @@ export async function designMatchTask(designId: number, limit: number, options: 
     hosts: hostIds.map(place => catalogue.index.part(place) as Part), limit, options,
   }
   return { design, input, task: { generation: catalogue.generation, index: catalogue.shared, request } }
+}
+
+/**
+ * A digest of everything a design's matching answer depends on: the catalogue generation (this instance holds one
+ * index per generation) and the message the thread gets (design input, revision, BOM settings, assignments, the
+ * assigned part versions and their approval, limit, options), plus what the route adds (`extra`). An edit of the
+ * design or its assignments, or any catalogue change (which moves the generation), gives another digest.
+ */
+export function matchTaskKey(task: { generation: number, request: DesignMatchRequest }, ...extra: unknown[]): string {
+  return createHash('sha256').update(JSON.stringify([task.generation, task.request, ...extra])).digest('base64url')
 }
 
 /** Every position of a design matched against the index (pure: runs on a worker thread). */

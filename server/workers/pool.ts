@@ -15,6 +15,7 @@ import type { BomPurchase, BomSnapshot } from '#shared/bom/types'
 import type { H3Event } from 'h3'
 import { runTask, type BomPdfOptions, type EncodedTask, type Task, type TaskResult } from './tasks'
 import type { EncodedAnswer } from './encode'
+import { SizedCache } from '#shared/utils/sized-cache'
 
 export const WORKER_FILE = join('workers', 'engine.mjs')
 const gunzipAsync = promisify(gunzip)
@@ -88,14 +89,44 @@ export async function runInPool<T>(task: Task | EncodedTask, supply?: { fonts?: 
   return result.value as T
 }
 
+/** Bytes of answers kept by answerFromPool's `key`; the least recently sent go first beyond it. */
+export const KEPT_ANSWER_BYTES = 16 * 1024 * 1024
+
+/** Encoded answers by key (gzip or plain, the task's kind, the caller's key), and the ones being computed. */
+const keptAnswers = new SizedCache<EncodedAnswer>(KEPT_ANSWER_BYTES, a => a.body.byteLength)
+const pendingAnswers = new Map<string, Promise<EncodedAnswer>>()
+
 /**
  * Runs a task whose value is the route's whole answer and sends it as the thread encoded it (JSON, gzipped when
  * the client accepts gzip and it is at least THREAD_GZIP_MIN_BYTES): the route returns what this returns. The
  * compression plugin leaves a body with Content-Encoding alone, and a plain one from the thread too (marked
  * below), so a small answer the thread chose not to gzip is not gzipped after all on the event loop.
+ *
+ * With `key` (a digest of everything the task's answer depends on, read from the database for this request), the
+ * encoded answer is kept and sent again for the same key without a thread: requests with the same key while it is
+ * computed wait for that one computation. Only for tasks that are pure functions of their message.
  */
-export async function answerFromPool<T = unknown>(event: H3Event, task: Task): Promise<T> {
-  return sendEncoded<T>(event, await encodedInPool(event, task))
+export async function answerFromPool<T = unknown>(event: H3Event, task: Task, options: { key?: string } = {}): Promise<T> {
+  const gzip = acceptsGzip(event)
+  const key = options.key === undefined ? null : `${gzip ? 'gzip' : 'plain'}:${task.kind}:${options.key}`
+  const kept = key ? keptAnswers.get(key) : undefined
+  let answer: EncodedAnswer
+  if (kept) {
+    answer = { ...kept, timing: { computeMs: 0, encodeMs: 0 } }
+  }
+  else if (key) {
+    let pending = pendingAnswers.get(key)
+    if (!pending) {
+      pending = encodedInPool(event, task, gzip)
+      pendingAnswers.set(key, pending)
+      pending.then(a => keptAnswers.set(key, a), () => {}).finally(() => pendingAnswers.delete(key))
+    }
+    answer = await pending
+  }
+  else {
+    answer = await encodedInPool(event, task, gzip)
+  }
+  return sendEncoded<T>(event, answer, undefined, !!kept)
 }
 
 /** The task's answer encoded on a thread (JSON, gzipped from THREAD_GZIP_MIN_BYTES when `gzip` or the client takes it). */
@@ -107,9 +138,10 @@ const acceptsGzip = (event: H3Event) => !!getRequestHeader(event, 'accept-encodi
 
 /**
  * Sends encoded answer bytes as the route's answer (gzipped ones unpacked first for a client that does not take
- * gzip, such as the server-side render's own requests). `cache` says in Server-Timing whether they were stored.
+ * gzip, such as the server-side render's own requests). `cache` says in Server-Timing whether they were stored in
+ * PostgreSQL, `kept` that they were kept on this instance (no thread work).
  */
-export async function sendEncoded<T = unknown>(event: H3Event, answer: EncodedAnswer, cache?: 'hit' | 'miss'): Promise<T> {
+export async function sendEncoded<T = unknown>(event: H3Event, answer: EncodedAnswer, cache?: 'hit' | 'miss', kept = false): Promise<T> {
   let { body, gzip: zipped } = answer
   if (zipped && !acceptsGzip(event)) {
     body = await gunzipAsync(body)
@@ -120,6 +152,7 @@ export async function sendEncoded<T = unknown>(event: H3Event, answer: EncodedAn
   const timing = [
     ...(answer.timing ? [`compute;dur=${answer.timing.computeMs.toFixed(3)}`, `encode;dur=${answer.timing.encodeMs.toFixed(3)}`] : []),
     ...(cache ? [`cache;desc=${cache}`] : []),
+    ...(kept ? ['kept'] : []),
   ]
   if (timing.length) setResponseHeader(event, 'Server-Timing', timing.join(', '))
   appendResponseHeader(event, 'Vary', 'Accept-Encoding')

@@ -23,6 +23,7 @@ import { hasTwoTemperatures, junctionOverPoints } from '../thermal/temperature'
 import { approvalRank, indexParts, OBSOLETE, placeOf, slotsPerPackage, type PartIndex, type PositionKind } from './part-index'
 import { priceAtQuantity } from './prices'
 import type { CatalogPart, Lifecycle } from './types'
+import { SizedCache } from '../utils/sized-cache'
 
 export { priceAtQuantity } from './prices'
 export { approvalRank, indexParts, openSharedIndex, sharePartIndex, slotsPerPackage, type PartIndex, type PositionKind, type SharedPartIndex } from './part-index'
@@ -169,7 +170,7 @@ function kindsFor(position: PositionKind): readonly PartKind[] {
   }
 }
 
-function fitsTopology(packageConfiguration: string | undefined, duty: PositionDuty): boolean {
+function fitsTopology(packageConfiguration: string | undefined, duty: Pick<PositionDuty, 'topology' | 'levels'>): boolean {
   const cfg = PACKAGE_CONFIGURATIONS[packageConfiguration as keyof typeof PACKAGE_CONFIGURATIONS]
   if (!cfg?.topologies || !duty.topology) return true
   if (!cfg.topologies.includes(duty.topology)) return false
@@ -198,12 +199,12 @@ interface Sizing { series: number, parallel: number }
 type Refusal = 'voltage' | 'current' | 'capacitance' | 'missingData'
 
 /** Series and parallel counts into `into`, or why the part cannot serve (ratings NaN when the catalogue lacks them). */
-function semiconductorSizing(rating: number, current: number, duty: PositionDuty, maxSeries: number, maxParallel: number, parallelSharing: number, seriesSharing: number, into: Sizing): Refusal | null {
+function semiconductorSizing(rating: number, current: number, duty: ScanDuty, maxSeries: number, maxParallel: number, parallelSharing: number, seriesSharing: number, into: Sizing): Refusal | null {
   if (!(rating > 0) || !(current > 0)) return 'missingData'
   let series = Math.max(1, Math.ceil(duty.requiredVoltageRating / rating - 1e-9))
   if (series > 1) series = Math.ceil(duty.requiredVoltageRating / (rating * seriesSharing) - 1e-9)
   if (series > maxSeries) return 'voltage'
-  const required = duty.requiredCurrentRating ?? duty.currentPeak
+  const required = duty.requiredCurrent
   let parallel = Math.max(1, Math.ceil(required / current - 1e-9))
   if (parallel > 1) parallel = Math.ceil(required / (current * parallelSharing) - 1e-9)
   if (parallel > maxParallel) return 'current'
@@ -212,12 +213,12 @@ function semiconductorSizing(rating: number, current: number, duty: PositionDuty
   return null
 }
 
-function capacitorSizing(rating: number, ripple: number, capacitance: number, duty: PositionDuty, maxSeries: number, maxParallel: number, into: Sizing): Refusal | null {
+function capacitorSizing(rating: number, ripple: number, capacitance: number, duty: ScanDuty, maxSeries: number, maxParallel: number, into: Sizing): Refusal | null {
   if (!(rating > 0) || !(ripple > 0) || !(capacitance > 0)) return 'missingData'
   const series = Math.max(1, Math.ceil(duty.requiredVoltageRating / rating - 1e-9))
   if (series > maxSeries) return 'voltage'
   // A string of `series` capacitors carries the full ripple and has 1/series of one capacitance.
-  const byRipple = Math.ceil((duty.requiredRippleRating ?? duty.currentRms) / ripple - 1e-9)
+  const byRipple = Math.ceil(duty.requiredCurrent / ripple - 1e-9)
   const byCapacitance = duty.capacitanceRequired ? Math.ceil((duty.capacitanceRequired * series) / capacitance - 1e-9) : 1
   const parallel = Math.max(1, byRipple, byCapacitance)
   if (parallel > maxParallel) return byCapacitance >= byRipple ? 'capacitance' : 'current'
@@ -425,17 +426,128 @@ class BestRanks {
 
 export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] | PartIndex, policy: MatchPolicy, options: MatchOptions = {}): MatchResult {
   const index = isPartIndex(parts) ? parts : indexParts(parts)
-  const maxSeries = policy.maxSeries?.[duty.kind] ?? DEFAULT_MAX_SERIES[duty.kind]
-  const maxParallel = policy.maxParallel?.[duty.kind] ?? DEFAULT_MAX_PARALLEL[duty.kind]
-  const parallelSharing = policy.parallelCurrentSharing ?? 0.9
-  const seriesSharing = policy.seriesVoltageSharing ?? 1
+  const candidates: Candidate[] = []
+  const dutyProblems = checkDuty(duty)
+  if (dutyProblems.length > 0) {
+    const none = { wrongKind: 0, wrongTopology: 0, voltage: 0, current: 0, capacitance: 0, obsolete: 0, missingData: 0 }
+    return { candidates, fitting: 0, leftOut: 0, dutyProblems, considered: 0, rejected: none }
+  }
+  const table = index.byPosition[duty.kind]
+  const { order, slots, rank } = table
+  // The scan reads the columns and the duty's ratings only: positions with equal ratings (the symmetric positions of
+  // a multilevel leg) and later requests on the same catalogue index share it. `only` reads parts: never kept.
+  const sd = scanDutyOf(duty, policy, options)
+  const scan = options.only ? scanColumns(index, sd, options.only) : keptScan(index, sd, parts === index)
+  const { fitting, leftOut } = scan
+  const limit = options.limit
+  const best = new BestRanks(limit)
+  const sizing: Sizing = { series: 0, parallel: 0 }
+  const rank1 = (k: number) => {
+    const i = scan.row[k]!
+    sizing.series = scan.series[k]!
+    sizing.parallel = scan.parallel[k]!
+    rankInto(best, index.part(order[i]!), duty, policy, sizing, slots[i]!, order[i]!)
+  }
+  if (limit === undefined) {
+    // every fitting part, sorted at the end (ties keep catalogue order, whatever the order they were offered in)
+    for (let k = 0; k < fitting; k++) rank1(k)
+  }
+  else if (limit > 0) {
+    // The parts with the best bounds first, so the kept list is near its final state at once; then every other
+    // fitting part whose bound could still place it. Same result as any order (ties keep catalogue order).
+    const first = bestBounds(scan, fitting, rank, order, limit)
+    for (const k of first) rank1(k)
+    const seen = new Set(first)
+    for (let k = 0; k < fitting; k++) {
+      if (seen.has(k) || best.cannotEnter(rank[scan.row[k]!]!, scan.lowestCost[k]!)) continue
+      rank1(k)
+    }
+  }
+  for (const r of best.sorted()) candidates.push(buildCandidate(r.part, duty, policy, r.sizing, r.slots))
+  return { candidates, fitting, leftOut, dutyProblems, considered: index.size, rejected: { ...scan.rejected } }
+}
+
+/**
+ * What the column scan of a position reads of its duty, the policy and the options, and nothing else (the scan takes
+ * only this): equal values, equal scans. The per-point duties and the position's name are not in it.
+ */
+interface ScanDuty {
+  kind: PositionKind
+  requiredVoltageRating: number
+  /** A: semiconductors requiredCurrentRating (else currentPeak), capacitors requiredRippleRating (else currentRms) */
+  requiredCurrent: number
+  capacitanceRequired: number | null
+  topology?: TopologyId
+  levels?: number
+  positionsPerPhase: number
+  phases: number
+  converters: number
+  maxSeries: number
+  maxParallel: number
+  parallelSharing: number
+  seriesSharing: number
+  includeObsolete: boolean
+  approvedActiveOnly: boolean
+  exceptId: number | null
+}
+
+function scanDutyOf(duty: PositionDuty, policy: MatchPolicy, options: MatchOptions): ScanDuty {
+  const isCapacitor = duty.kind === 'capacitor'
+  return {
+    kind: duty.kind,
+    requiredVoltageRating: duty.requiredVoltageRating,
+    requiredCurrent: isCapacitor ? (duty.requiredRippleRating ?? duty.currentRms) : (duty.requiredCurrentRating ?? duty.currentPeak),
+    capacitanceRequired: isCapacitor ? (duty.capacitanceRequired ?? null) : null,
+    // absent stays absent (fitsTopology reads absence); JSON leaves it out of the key
+    ...(duty.topology !== undefined ? { topology: duty.topology } : {}),
+    ...(duty.levels !== undefined ? { levels: duty.levels } : {}),
+    positionsPerPhase: duty.positionsPerPhase,
+    phases: duty.phases,
+    converters: duty.converters,
+    maxSeries: policy.maxSeries?.[duty.kind] ?? DEFAULT_MAX_SERIES[duty.kind],
+    maxParallel: policy.maxParallel?.[duty.kind] ?? DEFAULT_MAX_PARALLEL[duty.kind],
+    parallelSharing: policy.parallelCurrentSharing ?? 0.9,
+    seriesSharing: policy.seriesVoltageSharing ?? 1,
+    includeObsolete: !!policy.includeObsolete,
+    approvedActiveOnly: !!options.approvedActiveOnly,
+    exceptId: options.exceptId ?? null,
+  }
+}
+
+/** A position's scan: the counts of refused and left-out parts, and per fitting part its row, counts and cost bound. */
+interface Scan {
+  rejected: MatchResult['rejected']
+  fitting: number
+  leftOut: number
+  /** row in the position kind's columns, series and parallel counts, lowest cost per design (per fitting part, in row order) */
+  row: Int32Array
+  series: Int32Array
+  parallel: Int32Array
+  lowestCost: Float64Array
+}
+
+/** Bytes of scan rows kept per catalogue index (a position where every part fits: 20 bytes a part); the least recently used go first. */
+export const KEPT_SCAN_BYTES = 16 * 1024 * 1024
+
+/** Scans kept per catalogue index (an index is one catalogue generation: nothing in it changes), by their ScanDuty. */
+const keptScans = new WeakMap<PartIndex, SizedCache<Scan>>()
+
+function keptScan(index: PartIndex, sd: ScanDuty, keep: boolean): Scan {
+  if (!keep) return scanColumns(index, sd)
+  let kept = keptScans.get(index)
+  if (!kept) keptScans.set(index, kept = new SizedCache<Scan>(KEPT_SCAN_BYTES, scan => 64 + scan.fitting * 20))
+  const key = JSON.stringify(sd)
+  let scan = kept.get(key)
+  if (!scan) kept.set(key, scan = scanColumns(index, sd))
+  return scan
+}
+
+/** The scan of one position over the columns (parts read only for `only`). */
+function scanColumns(index: PartIndex, duty: ScanDuty, only?: (part: CatalogPart) => boolean): Scan {
+  const { maxSeries, maxParallel, parallelSharing, seriesSharing } = duty
   const table = index.byPosition[duty.kind]
   const rejected = { wrongKind: index.size - table.count, wrongTopology: 0, voltage: 0, current: 0, capacitance: 0, obsolete: 0, missingData: 0 }
-  const candidates: Candidate[] = []
   const isCapacitor = duty.kind === 'capacitor'
-  const dutyProblems = checkDuty(duty)
-  if (dutyProblems.length > 0) return { candidates, fitting: 0, leftOut: 0, dutyProblems, considered: 0, rejected: { ...rejected, wrongKind: 0 } }
-
   const { voltageRating, currentRating, capacitance, lowestPrice, order, slots, configuration, lifecycle, rank } = table
   const fits = topologyFits(duty)
   // Sorted by voltage rating: below `from` no part reaches the voltage even with the most series parts allowed,
@@ -446,11 +558,9 @@ export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] 
     else if (!(voltageRating[i]! > 0) || !(currentRating[i]! > 0) || (isCapacitor && !(capacitance[i]! > 0))) rejected.missingData++
     else rejected.voltage++
   }
-  const except = options.exceptId !== undefined ? placeOf(index, options.exceptId) : -1
-  const limit = options.limit
-  const best = new BestRanks(limit)
+  const except = duty.exceptId !== null ? placeOf(index, duty.exceptId) : -1
   const sizing: Sizing = { series: 0, parallel: 0 }
-  const kept = limit !== undefined ? fittingRows(table.count) : null
+  const kept = fittingRows(table.count)
   let fitting = 0
   let leftOut = 0
   // Every check reads the columns; the part object is read only when it could still place in the kept list
@@ -461,11 +571,10 @@ export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] 
       ? capacitorSizing(voltageRating[i]!, currentRating[i]!, capacitance[i]!, duty, maxSeries, maxParallel, sizing)
       : semiconductorSizing(voltageRating[i]!, currentRating[i]!, duty, maxSeries, maxParallel, parallelSharing, seriesSharing, sizing)
     if (refusal) { rejected[refusal]++; continue }
-    if (lifecycle[i] === OBSOLETE && !policy.includeObsolete) { rejected.obsolete++; continue }
+    if (lifecycle[i] === OBSOLETE && !duty.includeObsolete) { rejected.obsolete++; continue }
     const place = order[i]!
-    if ((options.approvedActiveOnly && rank[i] !== 0) || place === except) { leftOut++; continue }
-    if (options.only && !options.only(index.part(place))) { leftOut++; continue }
-    if (!kept) { rankInto(best, index.part(place), duty, policy, sizing, slots[i]!, place); fitting++; continue }
+    if ((duty.approvedActiveOnly && rank[i] !== 0) || place === except) { leftOut++; continue }
+    if (only && !only(index.part(place))) { leftOut++; continue }
     // At its lowest price and best group (T_j within its limit), the part's rank cannot be better than this.
     kept.row[fitting] = i
     kept.series[fitting] = sizing.series
@@ -473,25 +582,8 @@ export function matchPosition(duty: PositionDuty, parts: readonly CatalogPart[] 
     kept.lowestCost[fitting] = round(lowestPrice[i]! * packagesPerDesignOf(duty, sizing, slots[i]!, isCapacitor ? 1 : PHASES_PER_PACKAGE[configuration[i]!]!), 2)
     fitting++
   }
-  if (kept && limit! > 0) {
-    // The parts with the best bounds first, so the kept list is near its final state at once; then every other
-    // fitting part whose bound could still place it. Same result as any order (ties keep catalogue order).
-    const first = bestBounds(kept, fitting, rank, order, limit!)
-    const rank1 = (k: number) => {
-      const i = kept.row[k]!
-      sizing.series = kept.series[k]!
-      sizing.parallel = kept.parallel[k]!
-      rankInto(best, index.part(order[i]!), duty, policy, sizing, slots[i]!, order[i]!)
-    }
-    for (const k of first) rank1(k)
-    const seen = new Set(first)
-    for (let k = 0; k < fitting; k++) {
-      if (seen.has(k) || best.cannotEnter(rank[kept.row[k]!]!, kept.lowestCost[k]!)) continue
-      rank1(k)
-    }
-  }
-  for (const r of best.sorted()) candidates.push(buildCandidate(r.part, duty, policy, r.sizing, r.slots))
-  return { candidates, fitting, leftOut, dutyProblems, considered: index.size, rejected }
+  // copies of exactly the fitting rows: the scratch columns are reused by the next scan
+  return { rejected, fitting, leftOut, row: kept.row.slice(0, fitting), series: kept.series.slice(0, fitting), parallel: kept.parallel.slice(0, fitting), lowestCost: kept.lowestCost.slice(0, fitting) }
 }
 
 interface FittingRows { row: Int32Array, series: Int32Array, parallel: Int32Array, lowestCost: Float64Array }
@@ -506,7 +598,7 @@ function fittingRows(count: number): FittingRows {
 }
 
 /** The `limit` fitting rows with the best (group, lowest cost, catalogue place) bounds, in no particular order. */
-function bestBounds(kept: FittingRows, fitting: number, rank: Uint8Array, order: Int32Array, limit: number): number[] {
+function bestBounds(kept: Pick<FittingRows, 'row' | 'lowestCost'>, fitting: number, rank: Uint8Array, order: Int32Array, limit: number): number[] {
   const better = (a: number, b: number) => {
     const ga = rank[kept.row[a]!]!
     const gb = rank[kept.row[b]!]!
@@ -532,11 +624,11 @@ function bestBounds(kept: FittingRows, fitting: number, rank: Uint8Array, order:
 const PHASES_PER_PACKAGE = [...PACKAGE_CONFIGURATION_IDS.map(id => PACKAGE_CONFIGURATIONS[id].phasesPerPackage), 1]
 
 /** Whether each package configuration code fits the duty's topology (the last entry: an unknown code). */
-function topologyFits(duty: PositionDuty): boolean[] {
+function topologyFits(duty: Pick<PositionDuty, 'topology' | 'levels'>): boolean[] {
   return [...PACKAGE_CONFIGURATION_IDS.map(id => fitsTopology(id, duty)), true]
 }
 
-function packagesPerDesignOf(duty: PositionDuty, sizing: Sizing, slots: number, phasesPerPackage: number): number {
+function packagesPerDesignOf(duty: Pick<PositionDuty, 'positionsPerPhase' | 'phases' | 'converters'>, sizing: Sizing, slots: number, phasesPerPackage: number): number {
   return packagesPerConverter(duty, sizing.series * sizing.parallel, slots, phasesPerPackage) * duty.converters
 }
 

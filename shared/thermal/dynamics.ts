@@ -65,7 +65,7 @@ export interface SharedCase {
  * loss is linear in the duty (losses.ts): its coefficients come from deviceLossAtPoint at unit duties, so the
  * formula exists once and each bin costs five multiplications.
  */
-export function binLosses(part: DynamicsPart, kind: 'switch' | 'diode' | 'clamp-diode', duty: ProfiledDuty, switchingHz: number, series: number, parallel: number): Float64Array | null {
+export function binLosses(part: DynamicsPart, kind: 'switch' | 'diode' | 'clamp-diode', duty: ProfiledDuty, switchingHz: number, series: number, parallel: number, into?: Float64Array): Float64Array | null {
   const profile = duty.profile
   if (!profile) return null
   const withSwitching = !!(profile.turnOn && profile.turnOff && profile.recovery)
@@ -90,13 +90,19 @@ export function binLosses(part: DynamicsPart, kind: 'switch' | 'diode' | 'clamp-
   const cOff = withSwitching ? total(0, 0, 0, 1, 0)! - c0 : 0
   const cRr = withSwitching ? total(0, 0, 0, 0, 1)! - c0 : 0
   const B = profile.currentAbs.length
-  const out = new Float64Array(B)
+  // every bin is written below: a reused array needs no clearing
+  const out = into?.length === B ? into : new Float64Array(B)
   for (let b = 0; b < B; b++) {
     out[b] = c0 + cAvg * profile.currentAbs[b]! + cSq * profile.currentSquare[b]!
       + (withSwitching ? cOn * profile.turnOn![b]! + cOff * profile.turnOff![b]! + cRr * profile.recovery![b]! : 0)
   }
   return out
 }
+
+// Per-bin scratch of junctionDynamics (losses, rise): it runs hundreds of times per matching and keeps neither past
+// its return, so one pair per thread serves every call (fresh arrays each time were most of the matching's garbage).
+let scratchLoss = new Float64Array(0)
+let scratchRise = new Float64Array(0)
 
 /**
  * T_j over one period at one point. `heatsinkPower` (W per bin, the converter's summed loss) drives the
@@ -123,9 +129,14 @@ export function junctionDynamics(part: DynamicsPart, kind: 'switch' | 'diode' | 
     return { ...base, meanC: t, peakC: t, minC: t, swingK: 0, heatingTimeS: 0, note: notes.join('; ') }
   }
   const atMean = lossFiguresAt(part, settled.junctionTemperatureC)
-  const p = binLosses(atMean, kind, duty, switchingHz, series, parallel)
+  if (scratchLoss.length !== B) {
+    scratchLoss = new Float64Array(B)
+    scratchRise = new Float64Array(B)
+  }
+  const p = binLosses(atMean, kind, duty, switchingHz, series, parallel, scratchLoss)
   if (!p) return null
-  const rise = periodicRise(network.pairs, p, dt)
+  // periodicRise adds into the array it is given
+  const rise = periodicRise(network.pairs, p, dt, scratchRise.fill(0))
   // The baseplate and heatsink capacities filter the fundamental ripple: R_th,ch carries the mean loss (assumption).
   let lossSum = 0
   for (let b = 0; b < B; b++) lossSum += p[b]!

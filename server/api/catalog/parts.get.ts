@@ -28,16 +28,15 @@ export default defineEventHandler(async (event) => {
     voltageRating: v.voltageRating, currentRating: v.currentRating, unitPrice: v.unitPrice, currency: v.currency, stock: v.stock,
     leadTimeDays: v.leadTimeDays, lifecycle: v.lifecycle,
   }
-  // The page comes from the versions table alone (an index scan in sort order, also deep in the list);
-  // the approval flags of its rows are read after. Only an approval filter joins the parts table first.
-  const page = q.approved
-    ? db.select({ ...columns, approved: p.approved }).from(v).innerJoin(p, eq(p.id, v.partId)).where(where).orderBy(order, tie).limit(q.pageSize).offset((q.page - 1) * q.pageSize)
-    : db.select(columns).from(v).where(where).orderBy(order, tie).limit(q.pageSize).offset((q.page - 1) * q.pageSize).then(async (found) => {
-        if (found.length === 0) return []
-        const flags = await db.select({ id: p.id, approved: p.approved }).from(p).where(inArray(p.id, found.map(r => r.id)))
-        const approved = new Map(flags.map(f => [f.id, f.approved]))
-        return found.map(r => ({ ...r, approved: approved.get(r.id) ?? false }))
-      })
+  // The page's part ids come from the sort index alone (an index-only scan, also deep in the list), then only those
+  // rows are read: reading every row the offset skips took 140–190 ms at page 800 of 100 000 parts, and the planner
+  // then preferred a full scan and sort. Only an approval filter joins the parts table for the ids.
+  const offset = (q.page - 1) * q.pageSize
+  const ids = q.approved
+    ? db.select({ id: v.partId }).from(v).innerJoin(p, eq(p.id, v.partId)).where(where).orderBy(order, tie).limit(q.pageSize).offset(offset)
+    : db.select({ id: v.partId }).from(v).where(where).orderBy(order, tie).limit(q.pageSize).offset(offset)
+  const page = db.select({ ...columns, approved: p.approved }).from(v).innerJoin(p, eq(p.id, v.partId))
+    .where(and(eq(v.isCurrent, true), inArray(v.partId, ids))).orderBy(order, tie)
   const [rows, total] = await Promise.all([
     page,
     filtered

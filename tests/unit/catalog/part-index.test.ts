@@ -146,3 +146,64 @@ describe('the column index ranks as the straightforward method does', () => {
     expect(names(viaOptions)).not.toContain(host.partNumber)
   })
 })
+
+describe('scans kept on an index between matchings', () => {
+  const parts = catalogue()
+  const idOf = (p: CatalogPart) => (p as typeof parts[number]).partVersionId
+  const base = duties[0]!
+  const host = parts.find(p => matchPosition(base, [p], policy).candidates.length > 0)!
+  // each differs from the first in one figure the scan reads (or only in what it does not read: name, currents for losses)
+  const cases: { name: string, duty: PositionDuty, policy?: MatchPolicy, options?: { approvedActiveOnly?: boolean, exceptId?: number } }[] = [
+    { name: 'the first duty', duty: base },
+    { name: 'another name and loss currents, same ratings', duty: { ...base, positionName: 'S9', currentAvg: 140, currentRms: 230 } },
+    { name: 'required voltage', duty: { ...base, requiredVoltageRating: 1650 } },
+    { name: 'required current', duty: { ...base, requiredCurrentRating: 900 } },
+    { name: 'current rating from the peak', duty: { ...base, requiredCurrentRating: undefined, currentPeak: 700 } },
+    { name: 'topology', duty: { ...base, topology: 'two-level', levels: 2 } },
+    { name: 'levels', duty: { ...base, levels: 5 } },
+    { name: 'no topology', duty: { ...base, topology: undefined, levels: undefined } },
+    { name: 'positions per phase', duty: { ...base, positionsPerPhase: 4 } },
+    { name: 'phases', duty: { ...base, phases: 1 } },
+    { name: 'converters', duty: { ...base, converters: 2 } },
+    { name: 'policy: parallel parts allowed', duty: base, policy: { ...policy, maxParallel: { switch: 1 } } },
+    { name: 'policy: current sharing', duty: base, policy: { ...policy, parallelCurrentSharing: 0.7 } },
+    { name: 'policy: obsolete parts offered', duty: base, policy: { ...policy, includeObsolete: true } },
+    { name: 'approved active only', duty: base, options: { approvedActiveOnly: true } },
+    { name: 'one part left out', duty: base, options: { exceptId: idOf(host) } },
+    { name: 'capacitor', duty: duties[4]! },
+    { name: 'capacitor, more capacitance', duty: { ...duties[4]!, capacitanceRequired: 6e-3 } },
+    { name: 'capacitor, more ripple', duty: { ...duties[4]!, requiredRippleRating: 400 } },
+  ]
+
+  it('every matching on a used index answers as on a fresh one, in either order', () => {
+    const used = indexParts(parts, idOf)
+    const sharedUsed = openSharedIndex(sharePartIndex(parts, idOf))
+    const answers = new Set<string>()
+    for (const pass of [cases, [...cases].reverse(), cases]) {
+      for (const c of pass) {
+        const p = c.policy ?? policy
+        const options = { limit: 15, ...c.options }
+        const fresh = matchPosition(c.duty, indexParts(parts, idOf), p, options)
+        expect(matchPosition(c.duty, used, p, options), c.name).toEqual(fresh)
+        expect(matchPosition(c.duty, sharedUsed, p, options), c.name).toEqual(fresh)
+        // without a limit too (every fitting part)
+        expect(names(matchPosition(c.duty, used, p, c.options))).toEqual(names(matchPosition(c.duty, indexParts(parts, idOf), p, c.options)))
+        answers.add(JSON.stringify([fresh.fitting, fresh.leftOut, fresh.rejected, names(fresh)]))
+      }
+    }
+    // the variations change what the scan finds (else this test could not tell a kept scan from a fresh one)
+    expect(answers.size).toBeGreaterThanOrEqual(cases.length - 2)
+  })
+
+  it('equal ratings share the scan, the candidates still name their own position', () => {
+    const used = indexParts(parts, idOf)
+    const a = matchPosition(base, used, policy, { limit: 15 })
+    const renamed = { ...base, positionName: 'S9', positionsPerPhase: base.positionsPerPhase }
+    const b = matchPosition(renamed, used, policy, { limit: 15 })
+    expect(names(b)).toEqual(names(a))
+    const slotWarnings = (m: MatchResult) => m.candidates.flatMap(c => c.warnings).filter(w => w.includes(' positions in these packages are not used by '))
+    expect(slotWarnings(a).length).toBeGreaterThan(0)
+    expect(slotWarnings(a).every(w => w.includes('used by S1'))).toBe(true)
+    expect(slotWarnings(b).every(w => w.includes('used by S9'))).toBe(true)
+  })
+})
