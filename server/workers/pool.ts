@@ -96,7 +96,7 @@ export async function answerFromPool<T = unknown>(event: H3Event, task: Task): P
   const { body, gzip: zipped, timing } = await runInPool<EncodedAnswer>({ ...task, encode: { gzip } } as EncodedTask)
   setResponseHeader(event, 'Content-Type', 'application/json')
   // W3C Server-Timing: the thread's own work, so the load bench (or any client) can tell the per-request overhead
-  if (timing) setResponseHeader(event, 'Server-Timing', `compute;dur=${timing.computeMs.toFixed(3)}, encode;dur=${timing.encodeMs.toFixed(3)}`)
+  if (timing) setResponseHeader(event, 'Server-Timing', `${timing.validateMs === undefined ? '' : `validate;dur=${timing.validateMs.toFixed(3)}, `}compute;dur=${timing.computeMs.toFixed(3)}, encode;dur=${timing.encodeMs.toFixed(3)}`)
   appendResponseHeader(event, 'Vary', 'Accept-Encoding')
   if (zipped) setResponseHeader(event, 'Content-Encoding', 'gzip')
   else event.context.encodedOnThread = true
