@@ -51,7 +51,7 @@ export function sessionCookie(event: H3Event): { cookie: CookieSerializeOptions 
   return { cookie: { ...(config.session?.cookie as CookieSerializeOptions | undefined), secure } }
 }
 
-interface TokenOwnerRow { id: number, email: string, name: string, role: string, disabled: boolean, locale: string | null }
+type TokenOwnerRow = { id: number, email: string, name: string, role: string, disabled: boolean, locale: string | null }
 
 /**
  * One round trip: the token's owner as the database knows them now (role changes apply at once), and
