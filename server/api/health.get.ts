@@ -1,14 +1,8 @@
-import { sql } from 'drizzle-orm'
 import { heldCatalogue } from '~~/server/services/catalog'
+import { CHECK_TIMEOUT_MS, databaseStatus, within } from '~~/server/utils/db-status'
 
-/** ms: a dependency that does not answer within this counts as down. */
-const CHECK_TIMEOUT_MS = 2000
 /** ms: the mail check (an SMTP handshake) is repeated at most this often. */
 const MAIL_CHECK_EVERY_MS = 10_000
-
-function within<T>(promise: Promise<T>, ms: number): Promise<T> {
-  return Promise.race([promise, new Promise<T>((_, reject) => setTimeout(() => reject(new Error(`no answer within ${ms} ms`)), ms).unref())])
-}
 
 let mailCheck: { at: number, result: Promise<string | null> } | null = null
 
@@ -21,12 +15,13 @@ function mailProblem(): Promise<string | null> {
 }
 
 // Which dependency is down. 503 when the database does not answer (this instance cannot serve:
+// a check at most 1 s old with no connection lost since counts, see server/utils/db-status.ts;
 // a load balancer should send requests elsewhere); 200 otherwise. The mail server is reported
 // too ("degraded" when it is down: pages work, mail is recorded as failed), without a 503, since
 // no other instance would do better.
 export default defineEventHandler(async (event) => {
   const [db, mail] = await Promise.all([
-    within(useDb().execute(sql`select 1`), CHECK_TIMEOUT_MS).then(() => null, (err: unknown) => databaseProblem(err)),
+    databaseStatus(),
     mailProblem(),
   ])
   setResponseStatus(event, db ? 503 : 200)

@@ -50,6 +50,11 @@ export function tokenLookupStarted(): number {
   return epoch
 }
 
+/** Whether owners may be kept now (the cache is on and this instance hears every change): lookups may then be shared. */
+export function tokenCacheLive(): boolean {
+  return live && TOKEN_CACHE_MS > 0
+}
+
 /** The token's owner if this instance found them less than TOKEN_CACHE_MS ago and nothing changed since. */
 export function cachedTokenUser(tokenHash: string): CurrentUser | null {
   const e = entries.get(tokenHash)

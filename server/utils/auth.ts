@@ -2,7 +2,7 @@ import { createHash, randomBytes } from 'node:crypto'
 import type { H3Event, SessionConfig } from 'h3'
 import { eq, lt, sql } from 'drizzle-orm'
 import { can, isRole, type Permission, type Role } from '#shared/roles'
-import { cachedTokenUser, rememberTokenUser, tokenLookupStarted } from './auth-cache'
+import { cachedTokenUser, rememberTokenUser, tokenCacheLive, tokenLookupStarted } from './auth-cache'
 
 type CookieSerializeOptions = Exclude<NonNullable<SessionConfig['cookie']>, false>
 
@@ -51,17 +51,14 @@ export function sessionCookie(event: H3Event): { cookie: CookieSerializeOptions 
   return { cookie: { ...(config.session?.cookie as CookieSerializeOptions | undefined), secure } }
 }
 
-async function userFromBearer(event: H3Event, token: string): Promise<CurrentUser | null> {
-  const hash = sha256(token)
-  const cached = cachedTokenUser(hash)
-  if (cached) {
-    event.context.viaToken = true
-    return cached
-  }
-  const startedAt = tokenLookupStarted()
-  // One round trip: the token's owner as the database knows them now (role changes apply at once), and
-  // last_used_at moved on at most once a minute, so a busy token does not write (and lock its row) per request.
-  const [row] = await useDb().execute<{ id: number, email: string, name: string, role: string, disabled: boolean, locale: string | null }>(sql`
+type TokenOwnerRow = { id: number, email: string, name: string, role: string, disabled: boolean, locale: string | null }
+
+/**
+ * One round trip: the token's owner as the database knows them now (role changes apply at once), and
+ * last_used_at moved on at most once a minute, so a busy token does not write (and lock its row) per request.
+ */
+async function tokenOwner(hash: string): Promise<TokenOwnerRow | undefined> {
+  const [row] = await useDb().execute<TokenOwnerRow>(sql`
     with hit as (
       select t.id as token_id, t.last_used_at, u.id, u.email, u.name, u.role, u.disabled, u.locale
       from api_tokens t join users u on u.id = t.user_id
@@ -71,6 +68,36 @@ async function userFromBearer(event: H3Event, token: string): Promise<CurrentUse
       where api_tokens.id = hit.token_id and (hit.last_used_at is null or hit.last_used_at < now() - interval '1 minute')
     )
     select id, email, name, role, disabled, locale from hit`)
+  return row
+}
+
+/**
+ * Lookups of a token's owner in flight, by token hash and the auth-cache epoch they started at. When the cached
+ * owner expires under a busy client, the requests that miss at once share one query instead of queueing one
+ * each for the pool's connections; one that starts after a change (a later epoch) asks again.
+ */
+const tokenLookups = new Map<string, { epoch: number, row: Promise<TokenOwnerRow | undefined> }>()
+
+async function userFromBearer(event: H3Event, token: string): Promise<CurrentUser | null> {
+  const hash = sha256(token)
+  const cached = cachedTokenUser(hash)
+  if (cached) {
+    event.context.viaToken = true
+    return cached
+  }
+  const startedAt = tokenLookupStarted()
+  let lookup = tokenCacheLive() ? tokenLookups.get(hash) : undefined
+  if (!lookup || lookup.epoch !== startedAt) {
+    const row = tokenOwner(hash)
+    const mine = { epoch: startedAt, row }
+    lookup = mine
+    if (tokenCacheLive()) {
+      tokenLookups.set(hash, mine)
+      const drop = () => { if (tokenLookups.get(hash) === mine) tokenLookups.delete(hash) }
+      row.then(drop, drop)
+    }
+  }
+  const row = await lookup.row
   if (!row || row.disabled || !isRole(row.role)) return null
   event.context.viaToken = true
   const user: CurrentUser = { id: row.id, email: row.email, name: row.name, role: row.role, locale: row.locale ?? null }

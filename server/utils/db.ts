@@ -1,6 +1,7 @@
 import { drizzle } from 'drizzle-orm/postgres-js'
 import postgres from 'postgres'
 import * as schema from '../db/schema'
+import { databaseConnectionClosed } from './db-status'
 
 export const tables = schema
 
@@ -12,7 +13,8 @@ export function useDb() {
   if (!db) {
     const url = useRuntimeConfig().databaseUrl || process.env.DATABASE_URL
     if (!url) throw new Error('NUXT_DATABASE_URL is not set')
-    client = postgres(url, { max: 10, onnotice: () => {} })
+    // onclose: a lost connection makes the health route ask PostgreSQL again (db-status.ts)
+    client = postgres(url, { max: 10, onnotice: () => {}, onclose: () => databaseConnectionClosed() })
     db = drizzle(client, { schema })
   }
   return db

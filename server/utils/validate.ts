@@ -46,6 +46,14 @@ export function jsonDepth(text: string): number {
 /** Reads and validates a JSON body: 400 when it is not JSON, not an object or nested too deep, 422 when a field is wrong. */
 export async function readValid<T extends z.ZodType>(event: H3Event, schema: T, invalidStatus = 422): Promise<z.infer<T>> {
   const text = await readRawBody(event, 'utf8').catch(() => undefined)
+  return parseValid(text, schema, invalidStatus)
+}
+
+/**
+ * readValid's checks of the body text, on any thread (a worker thread validates the body of `/api/v1/stress` and
+ * `/evaluate` before computing: the errors it throws travel back and are answered as raised here).
+ */
+export function parseValid<T extends z.ZodType>(text: string | undefined, schema: T, invalidStatus = 422): z.infer<T> {
   if (text && jsonDepth(text) > MAX_JSON_DEPTH) {
     throw createError({ statusCode: 400, message: `The request body is nested deeper than ${MAX_JSON_DEPTH} levels.` })
   }

@@ -18,8 +18,8 @@ export interface EncodeRequest { gzip: boolean }
 export interface EncodedAnswer {
   body: Uint8Array
   gzip: boolean
-  /** ms the thread spent computing the value and encoding it (sent as Server-Timing, so a client can tell overhead from work) */
-  timing?: { computeMs: number, encodeMs: number }
+  /** ms the thread spent validating the body (tasks that carry it), computing the value and encoding it (sent as Server-Timing, so a client can tell overhead from work) */
+  timing?: { validateMs?: number, computeMs: number, encodeMs: number }
 }
 
 export function encodeAnswer(value: unknown, request: EncodeRequest): EncodedAnswer {

@@ -149,8 +149,9 @@ export async function sendEncoded<T = unknown>(event: H3Event, answer: EncodedAn
   }
   setResponseHeader(event, 'Content-Type', 'application/json')
   // W3C Server-Timing: the thread's own work, so the load bench (or any client) can tell the per-request overhead
+  const t = answer.timing
   const timing = [
-    ...(answer.timing ? [`compute;dur=${answer.timing.computeMs.toFixed(3)}`, `encode;dur=${answer.timing.encodeMs.toFixed(3)}`] : []),
+    ...(t ? [...(t.validateMs === undefined ? [] : [`validate;dur=${t.validateMs.toFixed(3)}`]), `compute;dur=${t.computeMs.toFixed(3)}`, `encode;dur=${t.encodeMs.toFixed(3)}`] : []),
     ...(cache ? [`cache;desc=${cache}`] : []),
     ...(kept ? ['kept'] : []),
   ]

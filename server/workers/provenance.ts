@@ -3,14 +3,20 @@
 import { createHash } from 'node:crypto'
 
 interface Provenance { method: string, source: string }
-const ids = new Map<string, string>() // a pure function's memo: the id depends only on the texts
+/** method → source → id: a pure function's memo (the id depends only on the texts); two lookups, no joined key */
+const ids = new Map<string, Map<string, string>>()
+let remembered = 0
 
 function idOf(p: Provenance) {
-  const key = `${p.method}\u0000${p.source}`
-  let id = ids.get(key)
+  let bySource = ids.get(p.method)
+  let id = bySource?.get(p.source)
   if (!id) {
-    id = `p-${createHash('sha256').update(key).digest('hex').slice(0, 10)}`
-    if (ids.size < 10_000) ids.set(key, id)
+    id = `p-${createHash('sha256').update(`${p.method}\u0000${p.source}`).digest('hex').slice(0, 10)}`
+    if (remembered < 10_000) {
+      if (!bySource) ids.set(p.method, bySource = new Map())
+      bySource.set(p.source, id)
+      remembered++
+    }
   }
   return id
 }
@@ -22,13 +28,20 @@ const isProvenance = (v: unknown): v is Provenance =>
 export function compactProvenance<T extends object>(answer: T): T & { provenance: Record<string, Provenance> } {
   const texts: Record<string, Provenance> = {}
   const walk = (v: unknown): unknown => {
-    if (Array.isArray(v)) return v.map(walk)
     if (!v || typeof v !== 'object') return v
+    if (Array.isArray(v)) {
+      const out: unknown[] = new Array(v.length)
+      for (let i = 0; i < v.length; i++) out[i] = walk(v[i])
+      return out
+    }
+    // numeric arrays of a waveform are copied as they are (no provenance inside typed or plain number arrays)
+    if (ArrayBuffer.isView(v)) return v
     const out: Record<string, unknown> = {}
-    for (const [k, x] of Object.entries(v)) {
+    for (const k in v) {
+      const x = (v as Record<string, unknown>)[k]
       if (k === 'provenance' && isProvenance(x)) {
         const id = idOf(x)
-        texts[id] = { method: x.method, source: x.source }
+        texts[id] ??= { method: x.method, source: x.source }
         out.provenanceId = id
       }
       else out[k] = walk(x)

@@ -5,6 +5,8 @@
 import { EngineInputError, evaluateDesign, evaluateStress, type DesignInput, type EvaluateOptions, type StressInput } from '#shared/engine'
 import { openSharedIndex, type PartIndex, type SharedPartIndex } from '#shared/catalog/matching'
 import type { TradeStudyInput } from '#shared/schemas/trade-study'
+import { designInputSchema, stressInputSchema } from '#shared/schemas/stress'
+import { parseValid } from '../utils/validate'
 import { readCatalogFile, type ReadOptions } from '../catalog/read'
 import { buildCurrentIndex, indexDigest } from '../catalog/current-index'
 import { previewDesign, type PreviewView } from '../services/designs'
@@ -27,6 +29,9 @@ export type EncodedTask = Task & { encode: EncodeRequest }
 export type Task
   = | { kind: 'stress', input: StressInput, options: EvaluateOptions, provenance?: 'compact' | 'full' }
     | { kind: 'evaluate', input: DesignInput, provenance?: 'compact' | 'full' }
+  /** the request body as it came (JSON text), validated here as readValid would (400 / 422 come back as errors) */
+    | { kind: 'stress-body', body: string | undefined, provenance?: 'compact' | 'full' }
+    | { kind: 'evaluate-body', body: string | undefined, provenance?: 'compact' | 'full' }
     | { kind: 'preview', input: DesignInput, view?: Partial<PreviewView> }
     | { kind: 'trade-study', generation: number, index: SharedPartIndex, duty: TradeStudyInput }
     | { kind: 'match-design', generation: number, index: SharedPartIndex, request: DesignMatchRequest }
@@ -55,6 +60,14 @@ function catalogFor(task: { generation: number, index: SharedPartIndex }): PartI
   return catalog.index
 }
 
+/** A task that carries a request body as text → the same task with the validated input (throws 400 / 422 as readValid). */
+function fromBody(task: Extract<Task, { kind: 'stress-body' | 'evaluate-body' }>): Task {
+  if (task.kind === 'evaluate-body') return { kind: 'evaluate', input: parseValid(task.body, designInputSchema), provenance: task.provenance }
+  // the waveform and spectrum are computed only when the answer carries them
+  const { includeWaveform, ...input } = parseValid(task.body, stressInputSchema)
+  return { kind: 'stress', input, options: { includeWaveform: !!includeWaveform, includeSpectrum: !!includeWaveform }, provenance: task.provenance }
+}
+
 async function run(task: Task): Promise<TaskResult> {
   switch (task.kind) {
     case 'stress': {
@@ -65,6 +78,9 @@ async function run(task: Task): Promise<TaskResult> {
       const r = evaluateDesign(task.input)
       return { ok: true, value: task.provenance === 'compact' ? compactProvenance(r) : r }
     }
+    case 'stress-body':
+    case 'evaluate-body':
+      return run(fromBody(task))
     case 'preview':
       return { ok: true, value: previewDesign(task.input, task.view) }
     case 'trade-study':
@@ -93,12 +109,16 @@ async function run(task: Task): Promise<TaskResult> {
 /** Runs one task; errors the route would answer with come back as data (a thread boundary drops their class). */
 export async function runTask(task: Task | EncodedTask): Promise<TaskResult> {
   try {
+    const tv = performance.now()
+    // a body is validated first (timed apart: Server-Timing `validate`), then computed as the plain task
+    const plain = task.kind === 'stress-body' || task.kind === 'evaluate-body' ? fromBody(task) : task
     const t0 = performance.now()
-    const result = await run(task)
+    const result = await run(plain)
     if (!('encode' in task && task.encode && result.ok)) return result
     const t1 = performance.now()
     const encoded = encodeAnswer(result.value, task.encode)
-    return { ok: true, value: { ...encoded, timing: { computeMs: t1 - t0, encodeMs: performance.now() - t1 } } }
+    const timing = { ...(plain === task ? {} : { validateMs: t0 - tv }), computeMs: t1 - t0, encodeMs: performance.now() - t1 }
+    return { ok: true, value: { ...encoded, timing } }
   }
   catch (err) {
     if (err instanceof EngineInputError) return { ok: false, error: { kind: 'engine', field: err.field, message: err.message } }
