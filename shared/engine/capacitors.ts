@@ -348,13 +348,34 @@ function gridOf(reference: (theta: number) => number, points: number): { m?: Flo
   return { sin: trig.sin, cos: trig.cos, stride: 1, offset: 0 }
 }
 
+/** Carrier ratios whose pattern repeats within this many fundamental periods get the locked-carrier charge. */
+export const LOCKED_PERIODS_MAX = 4
+
+/**
+ * Fundamental periods after which a carrier at `ratio` × the fundamental repeats its pattern (ratio × q whole, to
+ * 1e-6), q ≤ LOCKED_PERIODS_MAX; null for a ratio below 3 (six-step switches at the fundamental) or one that does not
+ * repeat that soon (a carrier drifting against the fundamental: the quasi-static envelope is the figure).
+ */
+export function lockedPeriods(ratio: number): number | null {
+  if (!(ratio >= 3)) return null
+  for (let q = 1; q <= LOCKED_PERIODS_MAX; q++) {
+    const n = ratio * q
+    if (Math.abs(n - Math.round(n)) <= 1e-6 * Math.max(1, n)) return q
+  }
+  return null
+}
+
 /**
  * The split link's charge is the larger of the quasi-static figure (each switching period on a continuous angle, the
- * envelope of a carrier that drifts against the fundamental) and the charge of the switched currents with the carrier
- * locked to the fundamental (switched-charge.ts), where a reference kink meets the carrier at the same phase every period.
+ * envelope of a carrier that drifts against the fundamental) and, where the carrier pattern repeats within a few
+ * fundamental periods, the charge of the switched currents over those periods (switched-charge.ts): where a reference
+ * kink meets the carrier at the same phase every period, and the beats of a ratio such as 99.5 or 80.25.
  */
 export function withSwitchedCharge(all: CurrentFigures[], L: number, ctx: Pick<CapacitorContext, 'reference' | 'currentPeak' | 'phi' | 'switchingHz' | 'fundamentalHz'>): CurrentFigures[] {
-  const switched = switchedSplitLinkCharge(L, ctx.reference, ctx.currentPeak, ctx.phi, ctx.switchingHz / ctx.fundamentalHz, ctx.fundamentalHz)
+  const ratio = ctx.switchingHz / ctx.fundamentalHz
+  const periods = lockedPeriods(ratio)
+  if (periods === null) return all
+  const switched = switchedSplitLinkCharge(L, ctx.reference, ctx.currentPeak, ctx.phi, ratio, ctx.fundamentalHz, periods)
   return all.map((f, j) => (switched[j]! > f.charge ? { ...f, charge: switched[j]! } : f))
 }
 
@@ -389,7 +410,7 @@ export function capacitorStresses(ctx: CapacitorContext): CapacitorOutcome {
   }
   const sizing = 'capacitance = peak-to-peak charge / ripple target, where the ripple is the peak-to-peak capacitor voltage over one fundamental period in periodic steady state, switching-frequency ripple included, and the charge is that of the switched current: the charge of its switching-period average (low-frequency) with the swing within each switching period on top, so the larger of the two counts where one dominates and their sum at the angles where both act'
 
-  const lockedCarrier = 'the charge is not taken below that of the switched currents themselves with the carrier locked to the fundamental (every crossing instant solved, the charge between them in closed form), where a space-vector reference\'s kinks meet the carrier at the same phase every period'
+  const lockedCarrier = 'where the carrier pattern repeats within four fundamental periods (f_sw/f × 1…4 whole) the charge is not taken below that of the switched currents themselves over those periods (every crossing instant solved, the charge between them in closed form): a space-vector reference\'s kinks meet a locked carrier at the same phase every period, and a ratio such as 99.5 beats at f/2'
   switch (leg.def.capacitorModel) {
     case 'split': {
       const all = withSwitchedCharge(splitLinkCurrents(L, ctx.reference, ctx.currentPeak, ctx.phi, ctx.points, ctx.switchingHz, ctx.fundamentalHz), L, ctx)

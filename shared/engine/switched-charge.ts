@@ -5,9 +5,10 @@ import { insertCrossing, segmentBoundaries, triangle } from './synth'
 const TWO_PI = 2 * Math.PI
 
 /**
- * Peak-to-peak charge (C) of each capacitor j = 1…L−1 of a split DC link over one fundamental period, from the
- * switched currents: three legs on phase-disposition carriers common to the phases, the carrier locked to the
- * fundamental at the ratio f_sw/f (valley at θ = 0, as the synthesis and the switched simulation have it),
+ * Peak-to-peak charge (C) of each capacitor j = 1…L−1 of a split DC link over `periods` fundamental periods (after
+ * which the carrier pattern repeats: f_sw/f × periods whole), from the switched currents: three legs on
+ * phase-disposition carriers common to the phases, the carrier locked to the fundamental at the ratio f_sw/f (valley
+ * at θ = 0, as the synthesis and the switched simulation have it),
  * natural sampling (the reference linear between the carrier's vertices and a floor of segments per period,
  * as in the synthesis). Capacitor j carries the currents of the phases whose pole sits at a DC node ≥ j, less
  * their mean over the period (the ripple-free DC source current of Kolar & Round, IEE Proc. EPA 153(4) 2006).
@@ -18,9 +19,11 @@ const TWO_PI = 2 * Math.PI
  * periods averages out: where the reference has a kink (space-vector references) the carrier meets it at the
  * same phase in every fundamental period, and the period means jump there.
  */
-export function switchedSplitLinkCharge(L: number, reference: (theta: number) => number, currentPeak: number, phi: number, frequencyRatio: number, fundamentalHz: number): Float64Array {
+export function switchedSplitLinkCharge(L: number, reference: (theta: number) => number, currentPeak: number, phi: number, frequencyRatio: number, fundamentalHz: number, periods = 1): Float64Array {
   const J = L - 1
-  const bounds = segmentBoundaries([0], frequencyRatio)
+  // Over `periods` fundamental periods (the carrier closes on itself after them): boundaries in units of that window.
+  const window = TWO_PI * periods
+  const bounds = segmentBoundaries([0], frequencyRatio * periods)
   const B = bounds.length
   // Band position r = (1 + m)(L − 1)/2 of each phase at each boundary; on the grid reference's values by
   // linear interpolation when it has them (finer than the segments themselves).
@@ -30,7 +33,9 @@ export function switchedSplitLinkCharge(L: number, reference: (theta: number) =>
     if (!grid) return reference(theta)
     let x = (theta / TWO_PI) * G - 0.5
     x -= Math.floor(x / G) * G
-    const j = Math.floor(x)
+    // (a tiny negative x rounds to G itself)
+    if (x >= G) x -= G
+    const j = Math.min(G - 1, Math.floor(x))
     const f = x - j
     const a = grid[j]!
     const b = grid[j + 1 === G ? 0 : j + 1]!
@@ -38,7 +43,7 @@ export function switchedSplitLinkCharge(L: number, reference: (theta: number) =>
   }
   const r = new Float64Array(3 * B)
   for (let b = 0; b < B; b++) {
-    for (let x = 0; x < 3; x++) r[x * B + b] = ((1 + mAt(TWO_PI * bounds[b]! - (x * TWO_PI) / 3)) * J) / 2
+    for (let x = 0; x < 3; x++) r[x * B + b] = ((1 + mAt(window * bounds[b]! - (x * TWO_PI) / 3)) * J) / 2
   }
   const cosPx = new Float64Array(3)
   const sinPx = new Float64Array(3)
@@ -61,7 +66,7 @@ export function switchedSplitLinkCharge(L: number, reference: (theta: number) =>
   // two of its own switching instants capacitor j's current is a·sin θ + b·cos θ (the phases on), so only those
   // instants are recorded for it: θ, W_j, and a, b from there on.
   const base = new Float64Array(J)
-  const capacity = Math.ceil(8 * frequencyRatio) + 64 + 2 * J
+  const capacity = Math.ceil(8 * frequencyRatio * periods) + 64 + 2 * J
   let count = 0
   let thetas = new Float64Array(capacity)
   let owner = new Int32Array(capacity)
@@ -117,7 +122,7 @@ export function switchedSplitLinkCharge(L: number, reference: (theta: number) =>
     const t0 = bounds[b]!
     const t1 = bounds[b + 1]!
     const dt = t1 - t0
-    const c1 = triangle(t1 * frequencyRatio)
+    const c1 = triangle(t1 * frequencyRatio * periods)
     let n = 0
     for (let x = 0; x < 3; x++) {
       const r1 = r[x * B + b + 1]!
@@ -130,15 +135,15 @@ export function switchedSplitLinkCharge(L: number, reference: (theta: number) =>
         insertCrossing(evT, evQ, n++, t0 + (dt * u0) / (u0 - u1), q)
       }
     }
-    for (let e = 0; e < n; e++) record(TWO_PI * evT[e]!, evQ[e]! % J, evQ[e]!)
+    for (let e = 0; e < n; e++) record(window * evT[e]!, evQ[e]! % J, evQ[e]!)
   }
-  for (let j = 0; j < J; j++) record(TWO_PI, j, -1)
+  for (let j = 0; j < J; j++) record(window, j, -1)
 
-  // q_j(θ) = W_j(θ) − mean_j·θ, mean_j = W_j(2π)/2π. Between two of its instants W_j(θ) = c − a·cos θ + b·sin θ, so q_j
+  // q_j(θ) = W_j(θ) − mean_j·θ, mean_j = W_j(end)/(the window's angle). Between two of its instants W_j(θ) = c − a·cos θ + b·sin θ, so q_j
   // is stationary where a·sin θ + b·cos θ = mean_j: R·sin(θ + δ) = mean_j, R = √(a² + b²), δ = atan2(b, a).
   const out = new Float64Array(J)
   const mean = new Float64Array(J)
-  for (let e = count - J; e < count; e++) mean[owner[e]!] = W[e]! / TWO_PI
+  for (let e = count - J; e < count; e++) mean[owner[e]!] = W[e]! / window
   const hi = new Float64Array(J).fill(-Infinity)
   const lo = new Float64Array(J).fill(Infinity)
   const previous = new Int32Array(J).fill(-1)
@@ -161,7 +166,8 @@ export function switchedSplitLinkCharge(L: number, reference: (theta: number) =>
     const slopeE = a * sinAt[e]! + b * cosAt[e]! - m
     const bendP = a * cosAt[p]! - b * sinAt[p]!
     const bendE = a * cosAt[e]! - b * sinAt[e]!
-    if (slopeP * slopeE > 0 && bendP * bendE > 0) continue
+    // (valid for a gap shorter than half a turn, where the derivative cannot change sign twice)
+    if (slopeP * slopeE > 0 && bendP * bendE > 0 && thetas[e]! - thetas[p]! < Math.PI / 2) continue
     const R = Math.hypot(a, b)
     if (R < Math.abs(m) || R === 0) continue
     const c = W[p]! + a * Math.cos(thetas[p]!) - b * Math.sin(thetas[p]!)

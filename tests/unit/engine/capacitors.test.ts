@@ -3,6 +3,9 @@
 // the cascaded H-bridge second-harmonic form.
 import { describe, expect, it } from 'vitest'
 import { evaluateStress } from '../../../shared/engine'
+import { lockedPeriods, splitLinkCurrents } from '../../../shared/engine/capacitors'
+import { gridReference, makeReference } from '../../../shared/engine/modulation'
+import { switchedSplitLinkCharge } from '../../../shared/engine/switched-charge'
 import { expectClose, inputAt } from './helpers'
 
 const TWO_PI = 2 * Math.PI
@@ -113,5 +116,32 @@ describe('ripple definition in the provenance', () => {
       expect(c.provenance.method).toMatch(/peak-to-peak capacitor voltage over one fundamental period in periodic steady state, switching-frequency ripple included/)
       expect(c.capacitanceRequired! > 0 && Number.isFinite(c.capacitanceRequired!)).toBe(true)
     }
+  })
+})
+
+describe('the locked-carrier charge of a split link (switched-charge.ts)', () => {
+  it('applies where the carrier pattern repeats within four periods, not to six-step or a drifting carrier', () => {
+    expect(lockedPeriods(80)).toBe(1)
+    expect(lockedPeriods(99.5)).toBe(2)
+    expect(lockedPeriods(250 / 3)).toBe(3)
+    expect(lockedPeriods(80.25)).toBe(4)
+    expect(lockedPeriods(80.2)).toBeNull()
+    expect(lockedPeriods(1)).toBeNull()
+    expect(lockedPeriods(Number.NaN)).toBeNull()
+  })
+
+  it('stays finite when f_sw/f is a multiple of the fine grid (an angle a hair below 0 once rounded onto the grid\'s end)', () => {
+    for (const ratio of [6138, 12276, 3069]) {
+      const q = switchedSplitLinkCharge(3, gridReference('space-vector', 1, 2046), 100, 0.3, ratio, 10)
+      for (const v of q) expect(Number.isFinite(v) && v > 0).toBe(true)
+    }
+  })
+
+  it('six-step keeps the quasi-static figure (its switching frequency is the fundamental)', () => {
+    const input = { topology: 'two-level' as const, dcVoltage: 800, lineVoltageRms: 0, phaseCurrentRms: 50, powerFactor: 0.9, fundamentalHz: 50, switchingHz: 50, modulation: 'six-step' as const }
+    const r = evaluateStress(input)
+    const reference = makeReference('six-step', 4 / Math.PI)
+    const quasi = splitLinkCurrents(2, reference, 50 * Math.SQRT2, r.powerFactor.currentPhaseAngle, 2046, 50, 50)[0]!
+    expect(r.capacitors[0]!.capacitanceRequired! * r.capacitors[0]!.rippleTarget!).toBeCloseTo(quasi.charge, 12)
   })
 })
