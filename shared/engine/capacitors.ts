@@ -292,7 +292,12 @@ function flyingCurrents(N: number, reference: (theta: number) => number, current
   const { m: onGrid, sin, cos, stride, offset } = gridOf(reference, points)
   const cosPhi = Math.cos(phi)
   const sinPhi = Math.sin(phi)
-  for (let k = 0; k < points; k++) {
+  // Half a period later the reference and the current are negated (every modulation's reference is odd about π):
+  // the duty becomes 1 − d, whose pulse pair is this one negated and shifted by half a switching period, so its
+  // sides swap, and with −i the charge above and below the mean are the same again. On an even grid reference,
+  // the second half is the first half's copy.
+  const half = onGrid && points % 2 === 0 ? points / 2 : points
+  for (let k = 0; k < half; k++) {
     const theta = ((k + 0.5) * TWO_PI) / points
     const g = stride * k + offset
     const d = (1 + (onGrid ? onGrid[g]! : reference(theta))) / 2
@@ -303,6 +308,11 @@ function flyingCurrents(N: number, reference: (theta: number) => number, current
     const scale = Math.abs(i) * period
     above[k] = (i >= 0 ? sides[0]! : sides[1]!) * scale
     below[k] = (i >= 0 ? sides[1]! : sides[0]!) * scale
+  }
+  if (half < points) {
+    above.copyWithin(half, 0, half)
+    below.copyWithin(half, 0, half)
+    ms *= 2
   }
   return { ...figures(0, ms / points, averaged, above, fundamentalHz, below), rms: Math.sqrt(ms / points) }
 }
