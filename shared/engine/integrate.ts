@@ -179,6 +179,22 @@ function positionPeaks(leg: CompiledLeg, reference: (theta: number) => number, c
   const shares = new Float64Array(leg.def.modelLevels)
   const dTheta = TWO_PI / points
   const wrap = (t: number) => ((t % TWO_PI) + TWO_PI) % TWO_PI
+  // A position that conducts at one of the current's two peaks has the peak |i| there, the largest anywhere (the
+  // search below would find the same value at those angles): when every position does (redundant states used
+  // evenly, two-level legs off the clamp), that is the answer.
+  const atPeaks = new Uint8Array(P)
+  const flags = new Uint8Array(P)
+  let largest = 0
+  for (const t of [wrap(phi + Math.PI / 2), wrap(phi + (3 * Math.PI) / 2)]) {
+    const i = currentPeak * Math.sin(t - phi)
+    conductionKeyOf(leg, reference(t), i >= 0 ? 0 : 1, shares, flags)
+    for (let p = 0; p < P; p++) atPeaks[p] = atPeaks[p]! | flags[p]!
+    largest = Math.max(largest, Math.abs(i))
+  }
+  if (atPeaks.every(f => f === 1)) {
+    peak.fill(Math.min(largest, currentPeak))
+    return
+  }
   const extra: number[] = []
   for (const t of [phi, phi + Math.PI / 2, phi + Math.PI, phi + (3 * Math.PI) / 2]) extra.push(wrap(t), wrap(t - 1e-12), wrap(t + 1e-12))
   // Extrema of the reference between grid points: a level band it only grazes is entered there.
