@@ -23,16 +23,8 @@ const PER_FILE = 20_000
 
 /** p50 and p95 (reported in the p99 column's place, named so) of `runs` sequential GETs. */
 async function timeGet(base: string, cookie: string, path: string, runs: number) {
-  const samples: number[] = []
-  for (let i = 0; i < runs; i++) {
-    const t0 = performance.now()
-    const r = await fetch(base + path, { headers: { cookie } })
-    await r.arrayBuffer()
-    if (r.status !== 200) throw new Error(`GET ${path} answered ${r.status}`)
-    samples.push(performance.now() - t0)
-  }
-  samples.sort((a, b) => a - b)
-  return { p50Ms: percentile(samples, 50), p99Ms: percentile(samples, 95), runs }
+  const { p50Ms, p99Ms } = await timeEach(base, cookie, Array.from({ length: runs }, () => path), 1)
+  return { p50Ms, p99Ms, runs }
 }
 
 /** Designs matched once each: sequentially, then at 4 connections. */
