@@ -139,8 +139,9 @@ export function switchedSplitLinkCharge(L: number, reference: (theta: number) =>
   }
   for (let j = 0; j < J; j++) record(window, j, -1)
 
-  // q_j(θ) = W_j(θ) − mean_j·θ, mean_j = W_j(end)/(the window's angle). Between two of its instants W_j(θ) = c − a·cos θ + b·sin θ, so q_j
-  // is stationary where a·sin θ + b·cos θ = mean_j: R·sin(θ + δ) = mean_j, R = √(a² + b²), δ = atan2(b, a).
+  // q_j(θ) = W_j(θ) − mean_j·θ, mean_j = W_j(end) / the window's angle. Between two of its instants
+  // W_j(θ) = c − a·cos θ + b·sin θ, so q_j is stationary where a·sin θ + b·cos θ = mean_j:
+  // R·sin(θ + δ) = mean_j, R = √(a² + b²), δ = atan2(b, a).
   const out = new Float64Array(J)
   const mean = new Float64Array(J)
   for (let e = count - J; e < count; e++) mean[owner[e]!] = W[e]! / window
@@ -166,7 +167,7 @@ export function switchedSplitLinkCharge(L: number, reference: (theta: number) =>
     const slopeE = a * sinAt[e]! + b * cosAt[e]! - m
     const bendP = a * cosAt[p]! - b * sinAt[p]!
     const bendE = a * cosAt[e]! - b * sinAt[e]!
-    // (valid for a gap shorter than half a turn, where the derivative cannot change sign twice)
+    // (only for a gap shorter than a quarter turn: the derivative, a sinusoid, cannot change sign twice there)
     if (slopeP * slopeE > 0 && bendP * bendE > 0 && thetas[e]! - thetas[p]! < Math.PI / 2) continue
     const R = Math.hypot(a, b)
     if (R < Math.abs(m) || R === 0) continue
