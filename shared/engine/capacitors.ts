@@ -1,6 +1,6 @@
 // Capacitor stresses: DC-link (split or single), flying and H-bridge cell capacitors, from switched currents.
 import type { CompiledLeg } from './model'
-import { gridTrig, type GridReference } from './modulation'
+import { gridTrig, valuesOnGrid } from './modulation'
 import { switchedSplitLinkCharge } from './switched-charge'
 import type { CapacitorStress } from './types'
 
@@ -79,7 +79,7 @@ export function splitLinkCurrents(L: number, reference: (theta: number) => numbe
   const G = 3 * points
   // Band positions r of the three phases, tabulated once (their slopes are needed below); the grid reference's
   // values when it has them (phase x at point k is grid angle 3k + 1 − x·points).
-  const grid = 'values' in reference && (reference as GridReference).points === points ? (reference as GridReference).values : undefined
+  const grid = valuesOnGrid(reference, points)
   // (Only the points the loop below reads: those it visits and their neighbours.)
   const rTab = new Float64Array(3 * points)
   for (let x = 0; x < 3; x++) {
@@ -350,9 +350,10 @@ function cellCurrents(reference: (theta: number) => number, currentPeak: number,
  * of its fine grid) and the kept sines and cosines of the same angles, so i = Î·sin(θ − φ) needs no sine per point.
  */
 function gridOf(reference: (theta: number) => number, points: number): { m?: Float64Array, sin: Float64Array, cos: Float64Array, stride: number, offset: number } {
-  if ('values' in reference && (reference as GridReference).points === points) {
+  const m = valuesOnGrid(reference, points)
+  if (m) {
     const trig = gridTrig(3 * points)
-    return { m: (reference as GridReference).values, sin: trig.sin, cos: trig.cos, stride: 3, offset: 1 }
+    return { m, sin: trig.sin, cos: trig.cos, stride: 3, offset: 1 }
   }
   const trig = gridTrig(points)
   return { sin: trig.sin, cos: trig.cos, stride: 1, offset: 0 }

@@ -9,7 +9,7 @@
 // is taken as lossless (forward recovery neglected, common practice). The energy is scaled by the
 // voltage that device commutates: its blocking voltage in the state where it does not conduct.
 import type { CompiledLeg, StateDef } from './model'
-import { gridTrig, type GridReference } from './modulation'
+import { gridTrig, valuesOnGrid } from './modulation'
 
 export type CommutationRole = 'turn-on' | 'turn-off' | 'recovery'
 
@@ -249,7 +249,7 @@ export function integrateSwitching(
   }
   // `sampled`: the caller's reference at these same angles (θ_k = (k + ½)·2π/points), computed once for both loops;
   // a grid reference of the same grid carries them already.
-  const onGrid = 'values' in reference && (reference as GridReference).points === points ? (reference as GridReference).values : undefined
+  const onGrid = valuesOnGrid(reference, points)
   // Without the per-angle record, |i| is summed per (half wave, lower level, sign) and each sparse row applied once.
   const moments = binned || options.sixStep ? undefined : new Float64Array(2 * L * 2)
   const trig = gridTrig(points)

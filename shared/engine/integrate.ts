@@ -1,6 +1,6 @@
 // The one generic integrator: switching-period-averaged device currents over one fundamental period.
 import type { CompiledLeg } from './model'
-import { gridTrig, type GridReference } from './modulation'
+import { gridTrig, valuesOnGrid } from './modulation'
 
 /** Even (the half waves) and divisible by 3 (the three phases share one grid, so three-phase sums repeat every third). */
 export const DEFAULT_INTEGRATION_POINTS = 2046
@@ -62,7 +62,7 @@ export function integrateLeg(
   const momentAbs = new Float64Array(2 * L * 2)
   const momentSq = new Float64Array(2 * L * 2)
   const at = (h: number, l: number, s: number) => (h * L + l) * 2 + s
-  const onGrid = 'values' in reference && (reference as GridReference).points === points ? (reference as GridReference).values : undefined
+  const onGrid = valuesOnGrid(reference, points)
 
   // sin θ and cos θ of the integration angles, kept per grid: i = Î·(sin θ·cos φ − cos θ·sin φ).
   const trig = gridTrig(points)

@@ -13,7 +13,7 @@
 // it and on the negative rail otherwise (m_Y the pole reference per unit of 0.75·V̂_in·cos φ_i). So the
 // output phase is always one of the three input voltages, never a fixed DC link; its local mean is the
 // reference, and the input-current local means are sinusoidal at the displacement angle φ_i.
-import { gridTrig, type GridReference } from './modulation'
+import { gridTrig, valuesOnGrid } from './modulation'
 import type { CapacitorStress, MatrixInputSide } from './types'
 import type { ResolvedInput } from './validate'
 
@@ -645,7 +645,7 @@ export function matrixSwitching(positionNames: readonly string[], ctx: { phiIn: 
   // Each position's duty is linear in |i|, |i|·m, the slope and slope·m for each sign of i: without the per-angle
   // record those four sums per sign are taken over the period and the weights applied once.
   const moments = binned ? undefined : new Float64Array(8)
-  const onGrid = 'values' in ctx.reference && (ctx.reference as GridReference).points === points ? (ctx.reference as GridReference).values : undefined
+  const onGrid = valuesOnGrid(ctx.reference, points)
   const trig = gridTrig(points)
   const cosPhi = Math.cos(phi)
   const sinPhi = Math.sin(phi)

@@ -78,6 +78,16 @@ export interface GridReference {
 }
 
 /**
+ * The values a grid reference carries (see `GridReference`), when `reference` is one; with `points`, only when it was
+ * made for that integration grid. Otherwise undefined, and the caller computes the reference at its angles.
+ */
+export function valuesOnGrid(reference: (theta: number) => number, points?: number): Float64Array | undefined {
+  if (!('values' in reference)) return undefined
+  const r = reference as GridReference
+  return points === undefined || r.points === points ? r.values : undefined
+}
+
+/**
  * `makeReference(modulation, a)` with its values on the integration grid (k + ½)·2π/points and the two
  * other phases' shifts (all on the grid (j + ½)·2π/(3·points)) taken from the kept unit shape: the same
  * numbers as computing them (a × shape, then the clamp), without a sine per angle. Any other angle is computed afresh.

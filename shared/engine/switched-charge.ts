@@ -1,5 +1,5 @@
 // The charge of a split DC link's capacitors from the switched currents themselves, instant by instant.
-import type { GridReference } from './modulation'
+import { valuesOnGrid } from './modulation'
 import { insertCrossing, segmentBoundaries, triangle } from './synth'
 
 const TWO_PI = 2 * Math.PI
@@ -27,7 +27,7 @@ export function switchedSplitLinkCharge(L: number, reference: (theta: number) =>
   const B = bounds.length
   // Band position r = (1 + m)(L − 1)/2 of each phase at each boundary; on the grid reference's values by
   // linear interpolation when it has them (finer than the segments themselves).
-  const grid = 'values' in reference ? (reference as GridReference).values : undefined
+  const grid = valuesOnGrid(reference)
   const G = grid ? grid.length : 0
   const mAt = (theta: number): number => {
     if (!grid) return reference(theta)
